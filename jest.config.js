@@ -1,0 +1,26 @@
+// One jest run covers every suite; `scripts/test.ts` prepares the database and the web build first.
+const swc = [
+  '@swc/jest',
+  {
+    jsc: { parser: { syntax: 'typescript', tsx: true }, target: 'es2022', transform: { react: { runtime: 'automatic' } } },
+    module: { type: 'commonjs' },
+  },
+];
+
+const nodeProject = (displayName, roots, extra = {}) => ({
+  displayName,
+  testEnvironment: 'node',
+  roots,
+  transform: { '^.+\\.(t|j)sx?$': swc },
+  moduleNameMapper: { '^@/(.*)$': '<rootDir>/$1' },
+  testMatch: ['**/*.test.ts'],
+  ...extra,
+});
+
+module.exports = {
+  projects: [
+    nodeProject('unit', ['<rootDir>/tests/unit']),
+    nodeProject('api', ['<rootDir>/tests/api']),
+    nodeProject('e2e', ['<rootDir>/tests/e2e']),
+  ],
+};

@@ -1,0 +1,34 @@
+// The database instances the scripts start. Each has its own folder, port and database, so the
+// dev instance, the test instance and the bench instance can run side by side.
+import type { InstanceOptions } from './mariadb';
+
+const credentials = { user: 'voltcrib', password: 'voltcrib-local-only' };
+
+export function devInstance(env: NodeJS.ProcessEnv = process.env): InstanceOptions {
+  return { name: 'dev', port: Number(env.DB_PORT ?? 3307), database: 'voltcrib_dev', ...credentials };
+}
+
+export function testInstance(env: NodeJS.ProcessEnv = process.env): InstanceOptions {
+  return { name: 'test', port: Number(env.TEST_DB_PORT ?? 3308), database: 'voltcrib_test', ...credentials };
+}
+
+export function benchInstance(env: NodeJS.ProcessEnv = process.env): InstanceOptions {
+  return {
+    name: 'bench',
+    port: Number(env.BENCH_DB_PORT ?? 3309),
+    database: 'voltcrib_bench',
+    bufferPool: '256M',
+    ...credentials,
+  };
+}
+
+/** The environment a server process needs to reach an instance. */
+export function dbEnv(options: InstanceOptions): Record<string, string> {
+  return {
+    DB_HOST: '127.0.0.1',
+    DB_PORT: String(options.port),
+    DB_NAME: options.database,
+    DB_USER: options.user,
+    DB_PASSWORD: options.password,
+  };
+}

@@ -1,0 +1,82 @@
+// The app factory: tests import createApp() and drive it with supertest; index.ts only listens.
+import express, { type Express } from 'express';
+import session from 'express-session';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import type { Logger } from 'pino';
+import { createPassport } from './auth/passport';
+import { SessionStore } from './auth/session-store';
+import type { Config } from './config';
+import type { Db } from './db';
+import { csrf } from './middleware/csrf';
+import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { healthRouter } from './routes/health';
+import { peopleRouter } from './routes/people';
+import { sessionRouter } from './routes/session';
+import { webRouter } from './web';
+
+export interface AppDeps {
+  db: Db;
+  config: Config;
+  logger: Logger;
+}
+
+export function createApp({ db, config, logger }: AppDeps): Express {
+  const app = express();
+  app.disable('x-powered-by');
+  if (config.trustProxy) app.set('trust proxy', 1);
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          'default-src': ["'self'"],
+          // The QR decoder compiles WebAssembly; nothing else is evaluated.
+          'script-src': ["'self'", "'wasm-unsafe-eval'"],
+          // react-native-web injects its style rules at run time into a <style> element.
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'media-src': ["'self'", 'blob:'],
+          'font-src': ["'self'", 'data:'],
+          'connect-src': ["'self'"],
+          'worker-src': ["'self'", 'blob:'],
+          'object-src': ["'none'"],
+          'frame-ancestors': ["'none'"],
+          'upgrade-insecure-requests': config.session.secureCookies ? [] : null,
+        },
+      },
+      crossOriginEmbedderPolicy: false,
+    }),
+  );
+  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
+  app.use('/api/health', healthRouter(db));
+
+  const passport = createPassport(db);
+  app.use('/api', express.json({ limit: '100kb' }));
+  app.use(
+    '/api',
+    session({
+      name: 'voltcrib.sid',
+      secret: config.session.secret,
+      store: new SessionStore(db),
+      resave: false,
+      saveUninitialized: false,
+      cookie: {
+        httpOnly: true,
+        sameSite: 'lax',
+        secure: config.session.secureCookies,
+        maxAge: config.session.maxAgeMs,
+      },
+    }),
+  );
+  app.use('/api', passport.session());
+  app.use('/api', csrf.csrfSynchronisedProtection);
+
+  app.use('/api/session', sessionRouter(db, passport, config));
+  app.use('/api/people', peopleRouter(db));
+
+  app.use('/api', apiNotFound);
+  app.use(webRouter(config.webDir));
+  app.use(errorHandler);
+  return app;
+}

@@ -1,0 +1,65 @@
+// connect-session-knex 5, made safe for a lab server:
+// - its methods both call back with an error AND reject a promise nobody awaits; on Node 20 that
+//   unhandled rejection kills the process while the database is down. Here every error reaches
+//   express-session exactly once, through the callback, and the promise is settled.
+// - express-session touches the store on every request; we only write when the expiry would move
+//   by more than TOUCH_STEP_MS, which keeps signed-in reads at one statement for the session.
+import { ConnectSessionKnexStore } from 'connect-session-knex';
+import type { SessionData } from 'express-session';
+import type { Db } from '../db';
+
+type Callback<T = void> = (error?: unknown, value?: T) => void;
+
+const TOUCH_STEP_MS = 5 * 60_000;
+
+export class SessionStore extends ConnectSessionKnexStore {
+  constructor(private readonly db: Db) {
+    super({ knex: db, tableName: 'sessions', createTable: false, cleanupInterval: 10 * 60_000, onDbCleanupError: () => {} });
+    // The base class rejects `ready` when the table check fails (database down at boot).
+    (this as unknown as { ready: Promise<void> }).ready.catch(() => {});
+  }
+
+  /** Reads the row's expiry too, so `touch` can tell whether a write is worth it. */
+  override async get(sid: string, callback: Callback<SessionData | null>): Promise<SessionData | null> {
+    try {
+      const row = await this.db('sessions')
+        .select('sess', 'expired')
+        .where('sid', sid)
+        .andWhere('expired', '>', new Date())
+        .first<{ sess: unknown; expired: Date } | undefined>();
+      if (!row) {
+        callback(null, null);
+        return null;
+      }
+      const session = (typeof row.sess === 'string' ? JSON.parse(row.sess) : row.sess) as SessionData & { loadedExpiresMs?: number };
+      session.loadedExpiresMs = new Date(row.expired).getTime();
+      callback(null, session);
+      return session;
+    } catch (error) {
+      callback(error);
+      return null;
+    }
+  }
+
+  override set(sid: string, session: SessionData, callback?: Callback): Promise<void> {
+    return super.set(sid, session, (error?: unknown) => callback?.(error)).catch(() => undefined);
+  }
+
+  override destroy(sid: string, callback?: Callback): Promise<void> {
+    return super.destroy(sid, (error?: unknown) => callback?.(error)).catch(() => undefined);
+  }
+
+  override touch(sid: string, session: SessionData, callback?: Callback): Promise<void> {
+    const cookie = session.cookie as { expires?: Date | string | null };
+    const loaded = (session as { loadedExpiresMs?: number }).loadedExpiresMs;
+    const next = cookie.expires ? new Date(cookie.expires).getTime() : 0;
+    if (loaded && next - loaded < TOUCH_STEP_MS) {
+      callback?.();
+      return Promise.resolve();
+    }
+    return super
+      .touch(sid, session)
+      .then(() => callback?.())
+      .catch((error: unknown) => callback?.(error));
+  }
+}

@@ -1,0 +1,81 @@
+// Configuration comes from environment variables only, each with a safe default for a lab
+// workstation. Production must set SESSION_SECRET and PUBLIC_URL (the README lists them all).
+import { z } from 'zod';
+
+const bool = z
+  .enum(['true', 'false', '1', '0'])
+  .transform((value) => value === 'true' || value === '1');
+
+const envSchema = z.object({
+  NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
+  HOST: z.string().min(1).default('127.0.0.1'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(8080),
+  PUBLIC_URL: z.string().url().optional(),
+  DB_HOST: z.string().min(1).default('127.0.0.1'),
+  DB_PORT: z.coerce.number().int().min(1).max(65535).default(3307),
+  DB_NAME: z.string().regex(/^[A-Za-z0-9_]+$/, 'letters, digits and _ only').default('voltcrib_dev'),
+  DB_USER: z.string().min(1).default('voltcrib'),
+  DB_PASSWORD: z.string().default('voltcrib-local-only'),
+  DB_POOL_MAX: z.coerce.number().int().min(1).max(200).default(20),
+  SESSION_SECRET: z.string().min(16, 'at least 16 characters').optional(),
+  SESSION_MAX_AGE_HOURS: z.coerce.number().positive().max(24 * 30).default(12),
+  COOKIE_SECURE: bool.optional(),
+  TRUST_PROXY: bool.default(false),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  LOGIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
+  WEB_DIR: z.string().default('dist'),
+});
+
+export interface Config {
+  env: 'development' | 'test' | 'production';
+  host: string;
+  port: number;
+  publicUrl: string;
+  db: { host: string; port: number; database: string; user: string; password: string; poolMax: number };
+  session: { secret: string; maxAgeMs: number; secureCookies: boolean };
+  trustProxy: boolean;
+  logLevel: string;
+  loginRateLimit: number;
+  webDir: string;
+}
+
+export class ConfigError extends Error {}
+
+const DEV_SECRET = 'voltcrib-development-secret-not-for-production';
+
+export function loadConfig(env: Record<string, string | undefined> = process.env): Config {
+  const parsed = envSchema.safeParse(env);
+  if (!parsed.success) {
+    const problems = parsed.error.issues.map((issue) => `${issue.path.join('.')}: ${issue.message}`);
+    throw new ConfigError(`Invalid configuration:\n  ${problems.join('\n  ')}`);
+  }
+  const e = parsed.data;
+  if (e.NODE_ENV === 'production' && !e.SESSION_SECRET) {
+    throw new ConfigError('Invalid configuration:\n  SESSION_SECRET: required in production');
+  }
+  const publicUrl = (e.PUBLIC_URL ?? `http://${e.HOST === '0.0.0.0' ? '127.0.0.1' : e.HOST}:${e.PORT}`).replace(/\/$/, '');
+  return {
+    env: e.NODE_ENV,
+    host: e.HOST,
+    port: e.PORT,
+    publicUrl,
+    db: {
+      host: e.DB_HOST,
+      port: e.DB_PORT,
+      database: e.DB_NAME,
+      user: e.DB_USER,
+      password: e.DB_PASSWORD,
+      poolMax: e.DB_POOL_MAX,
+    },
+    session: {
+      secret: e.SESSION_SECRET ?? DEV_SECRET,
+      maxAgeMs: e.SESSION_MAX_AGE_HOURS * 3600_000,
+      // Secure cookies whenever the public URL is HTTPS unless explicitly overridden.
+      secureCookies: e.COOKIE_SECURE ?? publicUrl.startsWith('https://'),
+    },
+    trustProxy: e.TRUST_PROXY,
+    logLevel: e.LOG_LEVEL,
+    loginRateLimit: e.LOGIN_RATE_LIMIT,
+    webDir: e.WEB_DIR,
+  };
+}

@@ -1,0 +1,63 @@
+// The one Knex instance per process. MariaDB through mysql2, UTC everywhere.
+import knex, { type Knex } from 'knex';
+import path from 'node:path';
+import type { Config } from './config';
+
+export type Db = Knex;
+export type Trx = Knex.Transaction;
+
+export const MIGRATIONS_DIR = path.resolve(__dirname, '..', 'migrations');
+export const SEEDS_DIR = path.resolve(__dirname, '..', 'seeds');
+
+export function createDb(config: Pick<Config, 'db'>): Db {
+  return knex({
+    client: 'mysql2',
+    connection: {
+      host: config.db.host,
+      port: config.db.port,
+      user: config.db.user,
+      password: config.db.password,
+      database: config.db.database,
+      timezone: 'Z',
+      charset: 'utf8mb4',
+      decimalNumbers: true,
+      connectTimeout: 2000,
+      // BOOLEAN columns are TINYINT(1) in MariaDB; hand them to the code as booleans.
+      typeCast(field: { type: string; length: number; string(): string | null }, next: () => unknown) {
+        if (field.type === 'TINY' && field.length === 1) {
+          const value = field.string();
+          return value === null ? null : value === '1';
+        }
+        return next();
+      },
+    },
+    pool: { min: 0, max: config.db.poolMax },
+    // Fail fast while the database is down, so requests get a 503 instead of hanging.
+    acquireConnectionTimeout: 2000,
+    migrations: { directory: MIGRATIONS_DIR, extension: 'ts', loadExtensions: ['.ts'], tableName: 'knex_migrations' },
+    seeds: { directory: SEEDS_DIR, loadExtensions: ['.ts'] },
+  });
+}
+
+/** True when an error means the database itself could not be reached (not a bad query). */
+export function isDatabaseUnavailable(error: unknown): boolean {
+  if (typeof error !== 'object' || error === null) return false;
+  const { code, name, fatal } = error as { code?: string; name?: string; fatal?: boolean };
+  if (name === 'KnexTimeoutError') return true;
+  if (fatal === true) return true;
+  return [
+    'ECONNREFUSED',
+    'ECONNRESET',
+    'EPIPE',
+    'ETIMEDOUT',
+    'PROTOCOL_CONNECTION_LOST',
+    'ER_CON_COUNT_ERROR',
+    'ER_SERVER_SHUTDOWN',
+    'ER_CONNECTION_KILLED',
+  ].includes(code ?? '');
+}
+
+/** MariaDB's duplicate-key error, so services can answer 409 instead of 500. */
+export function isDuplicateKey(error: unknown): boolean {
+  return (error as { code?: string } | null)?.code === 'ER_DUP_ENTRY';
+}

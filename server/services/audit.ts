@@ -1,0 +1,147 @@
+// The audit trail: appended in the same transaction as the change it records, never updated or
+// deleted by the application. Each entry hashes the previous one, so `verifyAuditChain` finds any
+// edit or removal made behind the application's back.
+import { createHash } from 'node:crypto';
+import type { Db, Trx } from '../db';
+
+export interface AuditInput {
+  actorId: number | null;
+  entity: string;
+  entityId: string | number;
+  action: string;
+  before?: unknown;
+  after?: unknown;
+}
+
+export interface AuditEvent {
+  id: number;
+  at: string;
+  actorId: number | null;
+  actorName: string | null;
+  entity: string;
+  entityId: string;
+  action: string;
+  before: unknown;
+  after: unknown;
+}
+
+function canonical(value: unknown): string {
+  if (value === undefined || value === null) return 'null';
+  if (Array.isArray(value)) return `[${value.map(canonical).join(',')}]`;
+  if (typeof value === 'object') {
+    const entries = Object.entries(value as Record<string, unknown>)
+      .filter(([, v]) => v !== undefined)
+      .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
+    return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${canonical(v)}`).join(',')}}`;
+  }
+  return JSON.stringify(value);
+}
+
+function parseJson(value: unknown): unknown {
+  // mysql2 hands MariaDB JSON columns back as strings (they are LONGTEXT underneath).
+  if (typeof value !== 'string') return value ?? null;
+  try {
+    return JSON.parse(value);
+  } catch {
+    return value;
+  }
+}
+
+function entryHash(prevHash: string, row: { at: string; actorId: number | null; entity: string; entityId: string; action: string; before: unknown; after: unknown }): string {
+  return createHash('sha256')
+    .update(canonical({ prevHash, ...row }))
+    .digest('hex');
+}
+
+/** Appends one entry. Call inside the transaction that makes the change; takes the chain lock last. */
+export async function appendAudit(trx: Trx, input: AuditInput): Promise<void> {
+  const head = await trx('audit_head').where({ id: 1 }).forUpdate().first<{ hash: string }>();
+  const prevHash = head?.hash ?? '0'.repeat(64);
+  const at = new Date().toISOString();
+  const row = {
+    at,
+    actorId: input.actorId,
+    entity: input.entity,
+    entityId: String(input.entityId),
+    action: input.action,
+    // Round-trip through JSON so the hash is computed over exactly what is stored (dates as text).
+    before: input.before === undefined ? null : (JSON.parse(JSON.stringify(input.before)) as unknown),
+    after: input.after === undefined ? null : (JSON.parse(JSON.stringify(input.after)) as unknown),
+  };
+  const hash = entryHash(prevHash, row);
+  await trx('audit_events').insert({
+    at: new Date(at),
+    actor_id: row.actorId,
+    entity: row.entity,
+    entity_id: row.entityId,
+    action: row.action,
+    before: row.before === null ? null : JSON.stringify(row.before),
+    after: row.after === null ? null : JSON.stringify(row.after),
+    prev_hash: prevHash,
+    hash,
+  });
+  await trx('audit_head').where({ id: 1 }).update({ hash });
+}
+
+export interface AuditFilter {
+  entity?: string;
+  entityId?: string;
+  beforeId?: number;
+  limit: number;
+}
+
+export async function listAudit(db: Db, filter: AuditFilter): Promise<{ events: AuditEvent[]; nextCursor: string | null }> {
+  const query = db('audit_events as a')
+    .leftJoin('people as p', 'p.id', 'a.actor_id')
+    .select('a.id', 'a.at', 'a.actor_id', 'p.name as actor_name', 'a.entity', 'a.entity_id', 'a.action', 'a.before', 'a.after')
+    .orderBy('a.id', 'desc')
+    .limit(filter.limit + 1);
+  if (filter.entity) query.where('a.entity', filter.entity);
+  if (filter.entityId) query.where('a.entity_id', filter.entityId);
+  if (filter.beforeId) query.where('a.id', '<', filter.beforeId);
+  const rows = await query;
+  const page = rows.slice(0, filter.limit);
+  return {
+    events: page.map((r) => ({
+      id: Number(r.id),
+      at: new Date(r.at).toISOString(),
+      actorId: r.actor_id,
+      actorName: r.actor_name ?? null,
+      entity: r.entity,
+      entityId: r.entity_id,
+      action: r.action,
+      before: parseJson(r.before),
+      after: parseJson(r.after),
+    })),
+    nextCursor: rows.length > filter.limit ? String(page[page.length - 1]!.id) : null,
+  };
+}
+
+/** Walks the chain from the start; reports the first entry whose hash does not match. */
+export async function verifyAuditChain(db: Db): Promise<{ ok: boolean; checked: number; brokenAtId: number | null }> {
+  let prevHash = '0'.repeat(64);
+  let checked = 0;
+  let lastId = 0;
+  for (;;) {
+    const rows = await db('audit_events').where('id', '>', lastId).orderBy('id').limit(1000);
+    if (rows.length === 0) break;
+    for (const r of rows) {
+      const expected = entryHash(prevHash, {
+        at: new Date(r.at).toISOString(),
+        actorId: r.actor_id,
+        entity: r.entity,
+        entityId: r.entity_id,
+        action: r.action,
+        before: parseJson(r.before),
+        after: parseJson(r.after),
+      });
+      if (r.prev_hash !== prevHash || r.hash !== expected) return { ok: false, checked, brokenAtId: Number(r.id) };
+      prevHash = r.hash;
+      checked += 1;
+      lastId = Number(r.id);
+    }
+  }
+  const head = await db('audit_head').where({ id: 1 }).first<{ hash: string }>();
+  if (head && head.hash !== prevHash) return { ok: false, checked, brokenAtId: lastId };
+  return { ok: true, checked, brokenAtId: null };
+}

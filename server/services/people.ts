@@ -1,0 +1,56 @@
+import type { Role, SessionUser } from '../../shared/schemas/session';
+import type { Db } from '../db';
+
+export interface PersonRow {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+  group_id: number | null;
+  password_hash: string | null;
+  active: boolean;
+  last_sign_in_at: Date | null;
+}
+
+export interface PersonSummary {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+  groupName: string | null;
+  active: boolean;
+  lastSignInAt: string | null;
+}
+
+export function toSessionUser(person: Pick<PersonRow, 'id' | 'email' | 'name' | 'role'>): SessionUser {
+  return { id: person.id, email: person.email, name: person.name, role: person.role };
+}
+
+export async function findPersonByEmail(db: Db, email: string): Promise<PersonRow | undefined> {
+  return db<PersonRow>('people').where({ email: email.trim().toLowerCase() }).first();
+}
+
+export async function recordSignIn(db: Db, personId: number): Promise<void> {
+  await db('people').where({ id: personId }).update({ last_sign_in_at: new Date() });
+}
+
+export async function listPeople(db: Db): Promise<PersonSummary[]> {
+  const rows = await db('people as p')
+    .leftJoin('groups as g', 'g.id', 'p.group_id')
+    .select('p.id', 'p.email', 'p.name', 'p.role', 'p.active', 'p.last_sign_in_at', 'g.name as group_name')
+    .orderBy('p.name');
+  return rows.map((r) => ({
+    id: r.id,
+    email: r.email,
+    name: r.name,
+    role: r.role,
+    groupName: r.group_name ?? null,
+    active: Boolean(r.active),
+    lastSignInAt: r.last_sign_in_at ? new Date(r.last_sign_in_at).toISOString() : null,
+  }));
+}
+
+/** Ends every open session of a person at once (deactivation, role change). */
+export async function endSessionsOf(db: Db, personId: number): Promise<number> {
+  return db('sessions').where({ person_id: personId }).delete();
+}
