@@ -34,6 +34,9 @@ export function createDb(config: Pick<Config, 'db'>): Db {
     pool: { min: 0, max: config.db.poolMax },
     // Fail fast while the database is down, so requests get a 503 instead of hanging.
     acquireConnectionTimeout: 2000,
+    // Knex prints pool errors with console.log; they also reject the query, which the error
+    // handler logs once as a 503, so the console copy is only noise during an outage.
+    log: { warn() {}, error() {}, deprecate() {}, debug() {} },
     migrations: { directory: MIGRATIONS_DIR, extension: 'ts', loadExtensions: ['.ts'], tableName: 'knex_migrations' },
     seeds: { directory: SEEDS_DIR, loadExtensions: ['.ts'] },
   });

@@ -177,3 +177,17 @@ export function killInstance(options: InstanceOptions): void {
   const pid = Number(readFileSync(instance.pidFile, 'utf8').trim());
   process.kill(pid, 'SIGKILL');
 }
+
+/** Drops and recreates the instance's database (tests start from an empty, freshly migrated one). */
+export function resetDatabase(options: InstanceOptions): void {
+  const instance = describeInstance(options);
+  const db = instance.database;
+  sql(
+    instance,
+    [
+      `DROP DATABASE IF EXISTS \`${db}\``,
+      `CREATE DATABASE \`${db}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`,
+      `GRANT ALL PRIVILEGES ON \`${db}\`.* TO '${instance.user}'@'127.0.0.1'`,
+    ].join(';'),
+  );
+}

@@ -1,0 +1,59 @@
+// `npm test`: every suite against a real MariaDB (its own instance, separate from dev) and a real
+// browser. Extra arguments go to jest (e.g. `npm test -- tests/unit`).
+import { spawnSync } from 'node:child_process';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { buildWebIfStale } from './build-web';
+import { CHROMIUM, ensureDebianPackages, MARIADB, POPPLER } from './lib/debian-packages';
+import { testInstance } from './lib/instances';
+import { startInstance, stopInstance } from './lib/mariadb';
+import { recreateDatabase } from './lib/test-database';
+
+const ROOT = path.resolve(__dirname, '..');
+
+interface JestSummary {
+  numPassedTests: number;
+  numFailedTests: number;
+  numPendingTests: number;
+  numTotalTests: number;
+  numRuntimeErrorTestSuites: number;
+}
+
+async function main(): Promise<number> {
+  const t0 = Date.now();
+  ensureDebianPackages([MARIADB, CHROMIUM, POPPLER]);
+  const options = testInstance();
+  const { started } = await startInstance(options);
+  try {
+    await recreateDatabase(options);
+    buildWebIfStale();
+    mkdirSync(path.join(ROOT, '.data'), { recursive: true });
+    const resultsFile = path.join(ROOT, '.data', 'jest-results.json');
+    const jest = spawnSync(
+      path.join(ROOT, 'node_modules', '.bin', 'jest'),
+      ['--json', `--outputFile=${resultsFile}`, ...process.argv.slice(2)],
+      { cwd: ROOT, stdio: 'inherit', env: { ...process.env, NODE_ENV: 'test', VOLTCRIB_TEST_DB_PORT: String(options.port) } },
+    );
+    let line = `0 passed, 1 failed`;
+    if (existsSync(resultsFile)) {
+      const summary = JSON.parse(readFileSync(resultsFile, 'utf8')) as JestSummary;
+      // A suite that failed to load counts as a failure even though it ran no test.
+      const failed = summary.numFailedTests + summary.numRuntimeErrorTestSuites;
+      line = `${summary.numPassedTests} passed, ${failed} failed` + (summary.numPendingTests ? `, ${summary.numPendingTests} skipped` : '');
+    }
+    writeFileSync(path.join(ROOT, '.data', 'test-summary.txt'), line + '\n');
+    console.log(`\n[test] finished in ${((Date.now() - t0) / 1000).toFixed(0)} s`);
+    console.log(line);
+    return jest.status ?? 1;
+  } finally {
+    if (started) await stopInstance(options);
+  }
+}
+
+main()
+  .then((code) => process.exit(code))
+  .catch((error: unknown) => {
+    console.error(error instanceof Error ? error.message : error);
+    console.log('0 passed, 1 failed');
+    process.exit(1);
+  });
