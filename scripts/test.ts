@@ -6,6 +6,7 @@ import path from 'node:path';
 import { buildWebIfStale } from './build-web';
 import { CHROMIUM, ensureDebianPackages, MARIADB, POPPLER } from './lib/debian-packages';
 import { testInstance } from './lib/instances';
+import { startFakeS3 } from './lib/fake-s3';
 import { startInstance, stopInstance } from './lib/mariadb';
 import { recreateDatabase } from './lib/test-database';
 
@@ -24,6 +25,7 @@ async function main(): Promise<number> {
   ensureDebianPackages([MARIADB, CHROMIUM, POPPLER]);
   const options = testInstance();
   const { started } = await startInstance(options);
+  const s3 = await startFakeS3({ directory: path.join(ROOT, '.data', 'test-s3'), port: 0, bucket: 'voltcrib-test' });
   try {
     await recreateDatabase(options);
     buildWebIfStale();
@@ -32,7 +34,7 @@ async function main(): Promise<number> {
     const jest = spawnSync(
       path.join(ROOT, 'node_modules', '.bin', 'jest'),
       ['--json', `--outputFile=${resultsFile}`, ...process.argv.slice(2)],
-      { cwd: ROOT, stdio: 'inherit', env: { ...process.env, NODE_ENV: 'test', VOLTCRIB_TEST_DB_PORT: String(options.port) } },
+      { cwd: ROOT, stdio: 'inherit', env: { ...process.env, NODE_ENV: 'test', VOLTCRIB_TEST_DB_PORT: String(options.port), VOLTCRIB_TEST_S3_ENDPOINT: s3.endpoint } },
     );
     let line = `0 passed, 1 failed`;
     if (existsSync(resultsFile)) {
@@ -46,6 +48,7 @@ async function main(): Promise<number> {
     console.log(line);
     return jest.status ?? 1;
   } finally {
+    await s3.close();
     if (started) await stopInstance(options);
   }
 }

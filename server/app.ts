@@ -9,6 +9,10 @@ import { SessionStore } from './auth/session-store';
 import type { Config } from './config';
 import type { Db } from './db';
 import { csrf } from './middleware/csrf';
+import { filesRouter } from './routes/files';
+import { itemsRouter } from './routes/items';
+import { labelsRouter } from './routes/labels';
+import { createObjectStore, type ObjectStore } from './storage/object-store';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { healthRouter } from './routes/health';
 import { peopleRouter } from './routes/people';
@@ -19,10 +23,13 @@ export interface AppDeps {
   db: Db;
   config: Config;
   logger: Logger;
+  /** Defaults to the S3 bucket named in the configuration. */
+  objectStore?: ObjectStore;
 }
 
-export function createApp({ db, config, logger }: AppDeps): Express {
+export function createApp({ db, config, logger, objectStore }: AppDeps): Express {
   const app = express();
+  const store = objectStore ?? createObjectStore(config);
   app.disable('x-powered-by');
   if (config.trustProxy) app.set('trust proxy', 1);
 
@@ -74,6 +81,9 @@ export function createApp({ db, config, logger }: AppDeps): Express {
 
   app.use('/api/session', sessionRouter(db, passport, config));
   app.use('/api/people', peopleRouter(db));
+  app.use('/api/items', itemsRouter(db, config, store));
+  app.use('/api/files', filesRouter(db, store));
+  app.use('/api', labelsRouter(db, config));
 
   app.use('/api', apiNotFound);
   app.use(webRouter(config.webDir));

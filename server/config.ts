@@ -24,6 +24,12 @@ const envSchema = z.object({
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   LOGIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
   WEB_DIR: z.string().default('dist'),
+  S3_ENDPOINT: z.string().url().default('http://127.0.0.1:4569'),
+  S3_REGION: z.string().min(1).default('us-east-1'),
+  S3_BUCKET: z.string().regex(/^[a-z0-9.-]{3,63}$/).default('voltcrib-files'),
+  S3_ACCESS_KEY_ID: z.string().min(1).default('S3RVER'),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).default('S3RVER'),
+  UPLOAD_MAX_MB: z.coerce.number().positive().max(100).default(10),
 });
 
 export interface Config {
@@ -37,6 +43,8 @@ export interface Config {
   logLevel: string;
   loginRateLimit: number;
   webDir: string;
+  s3: { endpoint: string; region: string; bucket: string; accessKeyId: string; secretAccessKey: string };
+  uploadMaxBytes: number;
 }
 
 export class ConfigError extends Error {}
@@ -77,5 +85,13 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     logLevel: e.LOG_LEVEL,
     loginRateLimit: e.LOGIN_RATE_LIMIT,
     webDir: e.WEB_DIR,
+    s3: {
+      endpoint: e.S3_ENDPOINT,
+      region: e.S3_REGION,
+      bucket: e.S3_BUCKET,
+      accessKeyId: e.S3_ACCESS_KEY_ID,
+      secretAccessKey: e.S3_SECRET_ACCESS_KEY,
+    },
+    uploadMaxBytes: Math.round(e.UPLOAD_MAX_MB * 1024 * 1024),
   };
 }

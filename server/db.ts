@@ -21,6 +21,9 @@ export function createDb(config: Pick<Config, 'db'>): Db {
       timezone: 'Z',
       charset: 'utf8mb4',
       decimalNumbers: true,
+      // Calendar dates (due dates) stay 'YYYY-MM-DD' text; no time-zone shifting.
+      // (knex's connection type is narrower than what mysql2 accepts.)
+      dateStrings: ['DATE'] as unknown as boolean,
       connectTimeout: 2000,
       // BOOLEAN columns are TINYINT(1) in MariaDB; hand them to the code as booleans.
       typeCast(field: { type: string; length: number; string(): string | null }, next: () => unknown) {

@@ -45,8 +45,8 @@ export class SessionStore extends ConnectSessionKnexStore {
     return super.set(sid, session, (error?: unknown) => callback?.(error)).catch(() => undefined);
   }
 
-  override destroy(sid: string, callback?: Callback): Promise<void> {
-    return super.destroy(sid, (error?: unknown) => callback?.(error)).catch(() => undefined);
+  override destroy(sid: string, callback?: Callback): Promise<number> {
+    return super.destroy(sid, (error?: unknown) => callback?.(error)).catch(() => 0);
   }
 
   override touch(sid: string, session: SessionData, callback?: Callback): Promise<void> {

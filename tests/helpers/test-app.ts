@@ -19,6 +19,8 @@ export function testConfig(overrides: Record<string, string> = {}): Config {
     DB_PORT: process.env.VOLTCRIB_TEST_DB_PORT ?? '3308',
     DB_NAME: 'voltcrib_test',
     PORT: '0',
+    S3_ENDPOINT: process.env.VOLTCRIB_TEST_S3_ENDPOINT ?? 'http://127.0.0.1:4599',
+    S3_BUCKET: 'voltcrib-test',
     ...overrides,
   });
 }
@@ -84,4 +86,24 @@ export async function signedInAs(ctx: TestContext, role: Role) {
   const person = await createPerson(ctx.db, { role });
   const session = await signedInAgent(ctx.app, person);
   return { person, ...session };
+}
+
+/** A valid item body for each kind, with a unique name word so searches can find just these. */
+export function itemBody(kind: string, word: string, overrides: Record<string, unknown> = {}): Record<string, unknown> {
+  const ratings: Record<string, Record<string, unknown>> = {
+    multiplier: { stages: 6, stageCapacitanceNf: 2.2, driveFrequencyHz: 20000, maxInputKvPeak: 10, maxOutputKv: 80, maxMa: 1.5, polarity: 'positive' },
+    'hv-supply': { maxKv: 30, maxMa: 2, polarity: 'negative', outputCapacitanceNf: 5, bleederMohm: 300, hasInterlockInput: true },
+    probe: { maxKv: 40, ratio: 1000, inputResistanceMohm: 1000 },
+    'isolation-stand': { withstandKv: 100 },
+    'grounding-stick': { ratedKv: 100, hookResistanceMohm: 10, cableLengthM: 3 },
+    interlock: { ratedKv: 60 },
+    meter: { maxKv: null },
+    other: { maxKv: 5 },
+  };
+  return { kind, name: `${word} ${kind} unit`, location: 'Bay 2, cabinet B', make: 'Orrin Works', model: 'T-1', serial: `SN-${word}`, ratings: ratings[kind], ...overrides };
+}
+
+export function uniqueWord(): string {
+  counter += 1;
+  return `w${process.pid.toString(36)}${Date.now().toString(36)}${counter}`;
 }

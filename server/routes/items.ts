@@ -1,0 +1,109 @@
+import { Router, type Request } from 'express';
+import multer from 'multer';
+import { z } from 'zod';
+import { idParamSchema } from '../../shared/schemas/common';
+import { itemCreateSchema, itemListQuerySchema, itemUpdateSchema, tagSchema } from '../../shared/schemas/items';
+import type { Config } from '../config';
+import type { Db } from '../db';
+import { AppError, ValidationError } from '../errors';
+import { currentUser, requireRole, requireSignedIn } from '../middleware/require-role';
+import { validate } from '../middleware/validate';
+import { listAudit } from '../services/audit';
+import { listItemFiles, storeItemFile } from '../services/files';
+import { createItem, getItem, getItemByTag, listInspections, listItems, recordInspection, toItem, updateItem } from '../services/items';
+import { labelSvg, singleLabelPdf } from '../services/labels';
+import type { ObjectStore } from '../storage/object-store';
+
+const uploadKindSchema = z.object({ kind: z.enum(['photo', 'document']).optional() }).strict();
+
+function receiveUpload(maxBytes: number) {
+  const upload = multer({ storage: multer.memoryStorage(), preservePath: true, limits: { fileSize: maxBytes, files: 1, fields: 4, fieldSize: 1024 } }).single('file');
+  return (req: Request) =>
+    new Promise<void>((resolve, reject) =>
+      upload(req, req.res!, (error: unknown) => {
+        if (!error) return resolve();
+        const code = (error as { code?: string }).code;
+        if (code === 'LIMIT_FILE_SIZE') return reject(new AppError(413, 'FILE_TOO_LARGE', `Files can be at most ${Math.round(maxBytes / 1024 / 1024)} MB.`));
+        if (typeof code === 'string' && code.startsWith('LIMIT_')) return reject(new ValidationError('Send one file in the form field "file".'));
+        reject(new ValidationError('The upload could not be read as multipart form data.'));
+      }),
+    );
+}
+
+export function itemsRouter(db: Db, config: Config, store: ObjectStore): Router {
+  const router = Router();
+  const readUpload = receiveUpload(config.uploadMaxBytes);
+  const id = (req: Request) => validate(idParamSchema, req.params, 'item id').id;
+
+  router.get('/', requireSignedIn, async (req, res) => {
+    const query = validate(itemListQuerySchema, req.query, 'search');
+    res.json(await listItems(db, query));
+  });
+
+  router.post('/', requireRole('manager'), async (req, res) => {
+    const input = validate(itemCreateSchema, req.body, 'item');
+    const row = await createItem(db, currentUser(req), input);
+    res.status(201).json({ item: toItem(row, config.publicUrl) });
+  });
+
+  router.get('/by-tag/:tag', requireSignedIn, async (req, res) => {
+    const tag = validate(tagSchema, req.params.tag, 'tag');
+    res.json({ item: toItem(await getItemByTag(db, tag), config.publicUrl) });
+  });
+
+  router.get('/:id', requireSignedIn, async (req, res) => {
+    res.json({ item: toItem(await getItem(db, id(req)), config.publicUrl) });
+  });
+
+  router.patch('/:id', requireRole('manager'), async (req, res) => {
+    const itemId = id(req);
+    const input = validate(itemUpdateSchema, req.body, 'item change');
+    res.json({ item: toItem(await updateItem(db, currentUser(req), itemId, input), config.publicUrl) });
+  });
+
+  router.get('/:id/history', requireSignedIn, async (req, res) => {
+    const itemId = id(req);
+    await getItem(db, itemId);
+    res.json(await listAudit(db, { entity: 'item', entityId: String(itemId), limit: 100 }));
+  });
+
+  router.get('/:id/inspections', requireSignedIn, async (req, res) => {
+    const itemId = id(req);
+    await getItem(db, itemId);
+    res.json({ inspections: await listInspections(db, itemId) });
+  });
+
+  router.post('/:id/inspections', requireRole('manager', 'officer'), async (req, res) => {
+    const itemId = id(req);
+    const inspection = await recordInspection(db, currentUser(req), itemId, req.body);
+    res.status(201).json({ inspection, item: toItem(await getItem(db, itemId), config.publicUrl) });
+  });
+
+  router.get('/:id/files', requireSignedIn, async (req, res) => {
+    const itemId = id(req);
+    await getItem(db, itemId);
+    res.json({ files: await listItemFiles(db, itemId) });
+  });
+
+  router.post('/:id/files', requireRole('manager', 'officer'), async (req, res) => {
+    const itemId = id(req);
+    await readUpload(req);
+    const { kind } = validate(uploadKindSchema, req.body ?? {}, 'upload');
+    if (!req.file) throw new ValidationError('Attach the file in the form field "file".', { file: ['Required'] });
+    const file = await storeItemFile(db, store, currentUser(req), itemId, { originalName: req.file.originalname, buffer: req.file.buffer }, kind);
+    res.status(201).json({ file });
+  });
+
+  router.get('/:id/label.svg', requireSignedIn, async (req, res) => {
+    const item = await getItem(db, id(req));
+    res.type('image/svg+xml').set('Cache-Control', 'private, max-age=3600').send(await labelSvg(item.tag, config.publicUrl));
+  });
+
+  router.get('/:id/label.pdf', requireRole('manager', 'officer'), async (req, res) => {
+    const item = toItem(await getItem(db, id(req)), config.publicUrl);
+    const pdf = await singleLabelPdf(item, config.publicUrl);
+    res.type('application/pdf').set('Content-Disposition', `inline; filename="label-${item.tag}.pdf"`).send(pdf);
+  });
+
+  return router;
+}

@@ -1,0 +1,357 @@
+// Gear registry operations. Every write runs in one transaction with its audit entry.
+import {
+  DEFAULT_INSPECTION_DAYS,
+  DUE_SOON_DAYS,
+  KIND_TAG_CODES,
+  RATINGS_SCHEMAS,
+  ratedKvOf,
+  type InspectionCreateInput,
+  type InspectionState,
+  type Item,
+  type ItemCreateInput,
+  type ItemKind,
+  type ItemListQuery,
+  type ItemRatings,
+  type ItemStatus,
+  type ItemSummary,
+  type ItemUpdateInput,
+  type Inspection,
+  inspectionCreateSchema,
+} from '../../shared/schemas/items';
+import type { SessionUser } from '../../shared/schemas/session';
+import { isDuplicateKey, type Db, type Trx } from '../db';
+import { ConflictError, NotFoundError, ValidationError } from '../errors';
+import { validate } from '../middleware/validate';
+import { appendAudit } from './audit';
+import { addDaysIso, dateColumnToIso, timestampToIso, todayIso } from './dates';
+
+export interface ItemRow {
+  id: number;
+  tag: string;
+  kind: ItemKind;
+  name: string;
+  make: string;
+  model: string;
+  serial: string;
+  location: string;
+  notes: string;
+  ratings: unknown;
+  rated_kv: number | null;
+  status: ItemStatus;
+  status_reason: string | null;
+  inspection_interval_days: number;
+  last_inspected_on: string | null;
+  next_inspection_due: string | null;
+  photo_file_id: number | null;
+  created_at: Date;
+  updated_at: Date;
+}
+
+const SUMMARY_COLUMNS = ['id', 'tag', 'kind', 'name', 'status', 'status_reason', 'rated_kv', 'location', 'next_inspection_due'] as const;
+
+export function inspectionStateOf(nextDue: string | null, today = todayIso()): InspectionState {
+  if (!nextDue) return 'never';
+  if (nextDue < today) return 'overdue';
+  if (nextDue <= addDaysIso(today, DUE_SOON_DAYS)) return 'due-soon';
+  return 'current';
+}
+
+function parseRatings(value: unknown): ItemRatings['ratings'] {
+  return (typeof value === 'string' ? JSON.parse(value) : value) as ItemRatings['ratings'];
+}
+
+export function toItemSummary(row: Pick<ItemRow, (typeof SUMMARY_COLUMNS)[number]>): ItemSummary {
+  const nextDue = dateColumnToIso(row.next_inspection_due);
+  return {
+    id: row.id,
+    tag: row.tag,
+    kind: row.kind,
+    name: row.name,
+    status: row.status,
+    statusReason: row.status_reason,
+    ratedKv: row.rated_kv === null ? null : Number(row.rated_kv),
+    location: row.location,
+    nextInspectionDue: nextDue,
+    inspectionState: inspectionStateOf(nextDue),
+  };
+}
+
+export function toItem(row: ItemRow, publicUrl: string): Item {
+  return {
+    ...toItemSummary(row),
+    make: row.make,
+    model: row.model,
+    serial: row.serial,
+    notes: row.notes,
+    ratings: parseRatings(row.ratings),
+    inspectionIntervalDays: row.inspection_interval_days,
+    lastInspectedOn: dateColumnToIso(row.last_inspected_on),
+    photoFileId: row.photo_file_id,
+    labelUrl: labelUrl(publicUrl, row.tag),
+    createdAt: timestampToIso(row.created_at)!,
+    updatedAt: timestampToIso(row.updated_at)!,
+  };
+}
+
+export function labelUrl(publicUrl: string, tag: string): string {
+  return `${publicUrl}/i/${encodeURIComponent(tag)}`;
+}
+
+/** Next tag for a kind, e.g. MUL-0008. The sequence row is locked, so two managers never collide. */
+async function issueTag(trx: Trx, kind: ItemKind): Promise<string> {
+  const code = KIND_TAG_CODES[kind];
+  await trx.raw('INSERT INTO tag_sequences (code, last_value) VALUES (?, 1) ON DUPLICATE KEY UPDATE last_value = last_value + 1', [code]);
+  const row = await trx('tag_sequences').where({ code }).first<{ last_value: number }>();
+  return `${code}-${String(row!.last_value).padStart(4, '0')}`;
+}
+
+async function lockItem(trx: Trx, id: number): Promise<ItemRow> {
+  const row = await trx<ItemRow>('items').where({ id }).forUpdate().first();
+  if (!row) throw new NotFoundError(`No item with id ${id}.`);
+  return row;
+}
+
+export async function getItem(db: Db, id: number): Promise<ItemRow> {
+  const row = await db<ItemRow>('items').where({ id }).first();
+  if (!row) throw new NotFoundError(`No item with id ${id}.`);
+  return row;
+}
+
+export async function getItemByTag(db: Db, tag: string): Promise<ItemRow> {
+  const row = await db<ItemRow>('items').where({ tag: tag.trim().toUpperCase() }).first();
+  if (!row) throw new NotFoundError(`No item carries the tag ${tag}.`);
+  return row;
+}
+
+export async function createItem(db: Db, actor: SessionUser, input: ItemCreateInput & { kind: ItemKind; ratings: ItemRatings['ratings'] }): Promise<ItemRow> {
+  return db.transaction(async (trx) => {
+    const tag = input.tag ?? (await issueTag(trx, input.kind));
+    const record = {
+      tag,
+      kind: input.kind,
+      name: input.name,
+      make: input.make ?? '',
+      model: input.model ?? '',
+      serial: input.serial ?? '',
+      location: input.location,
+      notes: input.notes ?? '',
+      ratings: JSON.stringify(input.ratings),
+      rated_kv: ratedKvOf({ kind: input.kind, ratings: input.ratings } as ItemRatings),
+      inspection_interval_days: input.inspectionIntervalDays ?? DEFAULT_INSPECTION_DAYS[input.kind],
+    };
+    let id: number;
+    try {
+      [id] = (await trx('items').insert(record)) as [number];
+    } catch (error) {
+      if (isDuplicateKey(error)) throw new ConflictError(`The tag ${tag} has already been issued; tags are never reused.`, 'TAG_TAKEN');
+      throw error;
+    }
+    const row = await lockItem(trx, id);
+    await appendAudit(trx, { actorId: actor.id, entity: 'item', entityId: id, action: 'item.created', after: { ...record, ratings: input.ratings } });
+    return row;
+  });
+}
+
+function auditView(row: ItemRow) {
+  return {
+    name: row.name,
+    make: row.make,
+    model: row.model,
+    serial: row.serial,
+    location: row.location,
+    notes: row.notes,
+    ratings: parseRatings(row.ratings),
+    status: row.status,
+    statusReason: row.status_reason,
+    inspectionIntervalDays: row.inspection_interval_days,
+  };
+}
+
+export async function updateItem(db: Db, actor: SessionUser, id: number, input: ItemUpdateInput): Promise<ItemRow> {
+  return db.transaction(async (trx) => {
+    const before = await lockItem(trx, id);
+    if (before.status === 'retired') throw new ConflictError(`${before.tag} is retired; retired gear cannot be changed.`, 'ITEM_RETIRED');
+    const changes: Partial<ItemRow> & { ratings?: string; updated_at: Date } = { updated_at: new Date() };
+    for (const key of ['name', 'make', 'model', 'serial', 'location', 'notes'] as const) {
+      if (input[key] !== undefined) changes[key] = input[key];
+    }
+    if (input.inspectionIntervalDays !== undefined) {
+      changes.inspection_interval_days = input.inspectionIntervalDays;
+      if (before.last_inspected_on) changes.next_inspection_due = addDaysIso(dateColumnToIso(before.last_inspected_on)!, input.inspectionIntervalDays);
+    }
+    if (input.ratings !== undefined) {
+      const ratings = validate(RATINGS_SCHEMAS[before.kind], input.ratings, `ratings for a ${before.kind}`);
+      changes.ratings = JSON.stringify(ratings);
+      changes.rated_kv = ratedKvOf({ kind: before.kind, ratings } as ItemRatings);
+    }
+    if (input.status !== undefined && input.status !== before.status) {
+      changes.status = input.status;
+      changes.status_reason = input.status === 'in-service' ? null : (input.statusReason ?? null);
+    } else if (input.statusReason !== undefined && before.status !== 'in-service') {
+      changes.status_reason = input.statusReason;
+    }
+    await trx('items').where({ id }).update(changes);
+    const after = await lockItem(trx, id);
+    const action =
+      changes.status === 'out-of-service' ? 'item.tagged-out' : changes.status === 'in-service' ? 'item.cleared' : changes.status === 'retired' ? 'item.retired' : 'item.updated';
+    await appendAudit(trx, { actorId: actor.id, entity: 'item', entityId: id, action, before: auditView(before), after: auditView(after) });
+    return after;
+  });
+}
+
+/** Tags an item out of service inside a caller's transaction (failed inspection, damage at return). */
+export async function tagOutInTransaction(trx: Trx, actorId: number, id: number, reason: string, action = 'item.tagged-out'): Promise<void> {
+  const before = await lockItem(trx, id);
+  if (before.status === 'retired') return;
+  await trx('items').where({ id }).update({ status: 'out-of-service', status_reason: reason.slice(0, 500), updated_at: new Date() });
+  await appendAudit(trx, {
+    actorId,
+    entity: 'item',
+    entityId: id,
+    action,
+    before: { status: before.status, statusReason: before.status_reason },
+    after: { status: 'out-of-service', statusReason: reason.slice(0, 500) },
+  });
+}
+
+export async function recordInspection(db: Db, actor: SessionUser, itemId: number, body: unknown): Promise<Inspection> {
+  const input = validate(inspectionCreateSchema, body, 'inspection');
+  const inspectedOn = input.inspectedOn ?? todayIso();
+  if (inspectedOn > todayIso()) throw new ValidationError('An inspection cannot be dated in the future.', { inspectedOn: ['Pick today or an earlier date'] });
+  return db.transaction(async (trx) => {
+    const item = await lockItem(trx, itemId);
+    if (item.status === 'retired') throw new ConflictError(`${item.tag} is retired.`, 'ITEM_RETIRED');
+    const nextDue = addDaysIso(inspectedOn, item.inspection_interval_days);
+    const [id] = (await trx('inspections').insert({
+      item_id: itemId,
+      inspected_on: inspectedOn,
+      inspector_id: actor.id,
+      result: input.result,
+      readings: JSON.stringify(input.readings),
+      notes: input.notes,
+      next_due: nextDue,
+    })) as [number];
+    // A later inspection entered for an earlier date must not move the due date backwards.
+    const latest = dateColumnToIso(item.last_inspected_on);
+    if (!latest || inspectedOn >= latest) {
+      await trx('items').where({ id: itemId }).update({ last_inspected_on: inspectedOn, next_inspection_due: nextDue, updated_at: new Date() });
+    }
+    await appendAudit(trx, {
+      actorId: actor.id,
+      entity: 'item',
+      entityId: itemId,
+      action: `inspection.${input.result}`,
+      after: { inspectionId: id, inspectedOn, result: input.result, readings: input.readings, notes: input.notes, nextDue },
+    });
+    if (input.result === 'fail') {
+      await tagOutInTransaction(trx, actor.id, itemId, `Failed inspection on ${inspectedOn}: ${input.notes}`);
+    }
+    return {
+      id,
+      itemId,
+      inspectedOn,
+      inspectorName: actor.name,
+      result: input.result,
+      readings: input.readings,
+      notes: input.notes,
+      nextDue,
+    };
+  });
+}
+
+export async function listInspections(db: Db, itemId: number, limit = 50): Promise<Inspection[]> {
+  const rows = await db('inspections as i')
+    .join('people as p', 'p.id', 'i.inspector_id')
+    .where('i.item_id', itemId)
+    .orderBy([{ column: 'i.inspected_on', order: 'desc' }, { column: 'i.id', order: 'desc' }])
+    .limit(limit)
+    .select('i.*', 'p.name as inspector_name');
+  return rows.map((r) => ({
+    id: r.id,
+    itemId: r.item_id,
+    inspectedOn: dateColumnToIso(r.inspected_on)!,
+    inspectorName: r.inspector_name,
+    result: r.result,
+    readings: typeof r.readings === 'string' ? JSON.parse(r.readings) : r.readings,
+    notes: r.notes,
+    nextDue: dateColumnToIso(r.next_due)!,
+  }));
+}
+
+// ---------------------------------------------------------------------------------------------
+// Listing with keyset pagination. The cursor is the last row's sort key and id, base64url JSON.
+
+interface Cursor {
+  v: string | number | null;
+  id: number;
+}
+
+function encodeCursor(cursor: Cursor): string {
+  return Buffer.from(JSON.stringify(cursor)).toString('base64url');
+}
+
+function decodeCursor(raw: string): Cursor {
+  try {
+    const parsed = JSON.parse(Buffer.from(raw, 'base64url').toString('utf8')) as Cursor;
+    if (typeof parsed !== 'object' || parsed === null || !Number.isInteger(parsed.id)) throw new Error('bad');
+    if (parsed.v !== null && typeof parsed.v !== 'string' && typeof parsed.v !== 'number') throw new Error('bad');
+    return parsed;
+  } catch {
+    throw new ValidationError('The page cursor is not valid; start from the first page.', { cursor: ['Invalid cursor'] });
+  }
+}
+
+/** Boolean-mode FULLTEXT terms: every word must match, as a prefix. */
+export function fulltextTerms(q: string): string | null {
+  const words = q
+    .normalize('NFKC')
+    .split(/[^\p{L}\p{N}]+/u)
+    .filter((w) => w.length > 0)
+    .slice(0, 8);
+  return words.length > 0 ? words.map((w) => `+${w}*`).join(' ') : null;
+}
+
+const SORTS = {
+  tag: { column: 'tag', order: 'asc', key: (r: ItemRow) => r.tag },
+  name: { column: 'name', order: 'asc', key: (r: ItemRow) => r.name },
+  ratedKv: { column: 'rated_kv', order: 'desc', key: (r: ItemRow) => (r.rated_kv === null ? null : Number(r.rated_kv)) },
+  nextDue: { column: 'next_inspection_due', order: 'asc', key: (r: ItemRow) => dateColumnToIso(r.next_inspection_due) },
+} as const;
+
+export async function listItems(db: Db, query: ItemListQuery): Promise<{ items: ItemSummary[]; nextCursor: string | null }> {
+  const sort = SORTS[query.sort];
+  const builder = db<ItemRow>('items').select(...SUMMARY_COLUMNS);
+  if (query.kind) builder.where('kind', query.kind);
+  if (query.status) builder.where('status', query.status);
+  else builder.whereNot('status', 'retired');
+  if (query.minKv !== undefined) builder.where('rated_kv', '>=', query.minKv);
+  if (query.due === 'overdue') builder.where('next_inspection_due', '<', todayIso());
+  if (query.due === 'soon') builder.where('next_inspection_due', '<=', addDaysIso(todayIso(), DUE_SOON_DAYS));
+  if (query.q) {
+    const terms = fulltextTerms(query.q);
+    if (terms) builder.whereRaw('MATCH (tag, name, make, model, serial, location) AGAINST (? IN BOOLEAN MODE)', [terms]);
+  }
+
+  if (query.cursor) {
+    const { v, id } = decodeCursor(query.cursor);
+    const col = sort.column;
+    if (sort.order === 'asc') {
+      // Ascending: NULLs come first in MariaDB.
+      if (v === null) builder.where((w) => w.where((x) => x.whereNull(col).andWhere('id', '>', id)).orWhereNotNull(col));
+      else builder.where((w) => w.where(col, '>', v).orWhere((x) => x.where(col, v).andWhere('id', '>', id)));
+    } else {
+      // Descending: NULLs come last.
+      if (v === null) builder.whereNull(col).andWhere('id', '<', id);
+      else builder.where((w) => w.where(col, '<', v).orWhere((x) => x.where(col, v).andWhere('id', '<', id)).orWhereNull(col));
+    }
+  }
+  builder.orderBy([{ column: sort.column, order: sort.order }, { column: 'id', order: sort.order }]).limit(query.limit + 1);
+
+  const rows = (await builder) as ItemRow[];
+  const page = rows.slice(0, query.limit);
+  const last = page[page.length - 1];
+  return {
+    items: page.map(toItemSummary),
+    nextCursor: rows.length > query.limit && last ? encodeCursor({ v: sort.key(last), id: last.id }) : null,
+  };
+}
