@@ -14,6 +14,7 @@ import { itemsRouter } from './routes/items';
 import { labelsRouter } from './routes/labels';
 import { createObjectStore, type ObjectStore } from './storage/object-store';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { serverTiming } from './middleware/server-timing';
 import { healthRouter } from './routes/health';
 import { peopleRouter } from './routes/people';
 import { sessionRouter } from './routes/session';
@@ -56,6 +57,7 @@ export function createApp({ db, config, logger, objectStore }: AppDeps): Express
     }),
   );
   app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
+  app.use('/api', serverTiming);
   app.use('/api/health', healthRouter(db));
 
   const passport = createPassport(db);

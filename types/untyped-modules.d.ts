@@ -1,4 +1,4 @@
-// s3rver ships no types; only what scripts/lib/fake-s3.ts uses.
+// Declarations for the few packages that ship no types; only what the project uses.
 declare module 's3rver' {
   interface S3rverOptions {
     address?: string;
@@ -14,4 +14,9 @@ declare module 's3rver' {
     run(): Promise<{ address: string; port: number }>;
     close(callback?: () => void): void;
   }
+}
+
+declare module 'on-headers' {
+  import type { ServerResponse } from 'node:http';
+  export default function onHeaders(res: ServerResponse, listener: () => void): void;
 }
