@@ -9,6 +9,7 @@ import { SessionStore } from './auth/session-store';
 import type { Config } from './config';
 import type { Db } from './db';
 import { csrf } from './middleware/csrf';
+import { calcRouter } from './routes/calc';
 import { filesRouter } from './routes/files';
 import { itemsRouter } from './routes/items';
 import { labelsRouter } from './routes/labels';
@@ -83,6 +84,7 @@ export function createApp({ db, config, logger, objectStore }: AppDeps): Express
 
   app.use('/api/session', sessionRouter(db, passport, config));
   app.use('/api/people', peopleRouter(db));
+  app.use('/api/calc', calcRouter());
   app.use('/api/items', itemsRouter(db, config, store));
   app.use('/api/files', filesRouter(db, store));
   app.use('/api', labelsRouter(db, config));

@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ERROR_CODES, type ErrorBody } from '../../shared/errors';
+import { HvInputError } from '../../shared/hv';
 import { isDatabaseUnavailable } from '../db';
 import { AppError, NotFoundError, UnavailableError } from '../errors';
 
@@ -16,6 +17,9 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   let error: AppError;
   if (err instanceof AppError) {
     error = err;
+  } else if (err instanceof HvInputError) {
+    // The physics refused its input (e.g. a safe voltage above the starting voltage).
+    error = new AppError(400, ERROR_CODES.validation, err.message, { fieldErrors: { [err.field]: [err.message] } });
   } else if (isDatabaseUnavailable(err)) {
     error = new UnavailableError();
   } else if (err?.type === 'entity.parse.failed') {
