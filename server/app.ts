@@ -9,7 +9,11 @@ import { SessionStore } from './auth/session-store';
 import type { Config } from './config';
 import type { Db } from './db';
 import { csrf } from './middleware/csrf';
+import { auditRouter } from './routes/audit';
+import { assessmentsRouter, bookingsRouter } from './routes/bookings';
 import { calcRouter } from './routes/calc';
+import { checklistTemplatesRouter } from './routes/checklist-templates';
+import { labRulesRouter } from './routes/lab-rules';
 import { filesRouter } from './routes/files';
 import { itemsRouter } from './routes/items';
 import { labelsRouter } from './routes/labels';
@@ -88,6 +92,11 @@ export function createApp({ db, config, logger, objectStore }: AppDeps): Express
   app.use('/api/items', itemsRouter(db, config, store));
   app.use('/api/files', filesRouter(db, store));
   app.use('/api', labelsRouter(db, config));
+  app.use('/api/assessments', assessmentsRouter(db));
+  app.use('/api/bookings', bookingsRouter(db));
+  app.use('/api/lab-rules', labRulesRouter(db));
+  app.use('/api/checklist-templates', checklistTemplatesRouter(db));
+  app.use('/api/audit', auditRouter(db));
 
   app.use('/api', apiNotFound);
   app.use(webRouter(config.webDir));

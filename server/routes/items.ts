@@ -9,10 +9,17 @@ import { AppError, ValidationError } from '../errors';
 import { currentUser, requireRole, requireSignedIn } from '../middleware/require-role';
 import { validate } from '../middleware/validate';
 import { listAudit } from '../services/audit';
+import { itemAvailability, itemBookingHistory } from '../services/bookings';
 import { listItemFiles, storeItemFile } from '../services/files';
 import { createItem, getItem, getItemByTag, listInspections, listItems, recordInspection, toItem, updateItem } from '../services/items';
 import { labelSvg, singleLabelPdf } from '../services/labels';
 import type { ObjectStore } from '../storage/object-store';
+
+const windowSchema = z
+  .object({ from: z.iso.datetime({ offset: true }), to: z.iso.datetime({ offset: true }) })
+  .strict()
+  .refine((v) => new Date(v.to) > new Date(v.from), { message: 'to must be after from', path: ['to'] })
+  .refine((v) => new Date(v.to).getTime() - new Date(v.from).getTime() <= 92 * 24 * 3600_000, { message: 'At most 92 days at a time', path: ['to'] });
 
 const uploadKindSchema = z.object({ kind: z.enum(['photo', 'document']).optional() }).strict();
 
@@ -65,6 +72,19 @@ export function itemsRouter(db: Db, config: Config, store: ObjectStore): Router 
     const itemId = id(req);
     await getItem(db, itemId);
     res.json(await listAudit(db, { entity: 'item', entityId: String(itemId), limit: 100 }));
+  });
+
+  router.get('/:id/availability', requireSignedIn, async (req, res) => {
+    const itemId = id(req);
+    const window = validate(windowSchema, req.query, 'window');
+    await getItem(db, itemId);
+    res.json({ busy: await itemAvailability(db, itemId, new Date(window.from), new Date(window.to)) });
+  });
+
+  router.get('/:id/bookings', requireSignedIn, async (req, res) => {
+    const itemId = id(req);
+    await getItem(db, itemId);
+    res.json({ bookings: await itemBookingHistory(db, itemId) });
   });
 
   router.get('/:id/inspections', requireSignedIn, async (req, res) => {

@@ -1,12 +1,32 @@
 import { Router } from 'express';
+import { qualificationSchema } from '../../shared/schemas/bookings';
+import { idParamSchema } from '../../shared/schemas/common';
 import type { Db } from '../db';
-import { requireRole } from '../middleware/require-role';
+import { ForbiddenError, NotFoundError } from '../errors';
+import { currentUser, requireRole, requireSignedIn } from '../middleware/require-role';
+import { validate } from '../middleware/validate';
 import { listPeople } from '../services/people';
+import { getQualification, setQualification } from '../services/qualifications';
 
 export function peopleRouter(db: Db): Router {
   const router = Router();
   router.get('/', requireRole('manager'), async (_req, res) => {
     res.json({ people: await listPeople(db) });
+  });
+
+  router.get('/:id/qualification', requireSignedIn, async (req, res) => {
+    const { id } = validate(idParamSchema, req.params, 'person id');
+    const actor = currentUser(req);
+    if (actor.role === 'member' && actor.id !== id) throw new ForbiddenError('Members can only read their own qualification.');
+    const person = await db('people').where({ id }).first('id');
+    if (!person) throw new NotFoundError(`No person with id ${id}.`);
+    res.json({ qualification: await getQualification(db, id) });
+  });
+
+  router.put('/:id/qualification', requireRole('officer'), async (req, res) => {
+    const { id } = validate(idParamSchema, req.params, 'person id');
+    const input = validate(qualificationSchema, req.body, 'qualification');
+    res.json({ qualification: await setQualification(db, currentUser(req), id, input) });
   });
   return router;
 }

@@ -1,0 +1,603 @@
+// Bookings and the safety gate. Every state change runs in one transaction that locks the booking
+// row first, then its items in id order, and appends its audit entry last (the audit chain lock),
+// so concurrent requests queue instead of deadlocking.
+import { assessSetup, type AssessedItem, type Assessment } from '../../shared/rules/assessment';
+import { releaseFailures } from '../../shared/rules/release';
+import {
+  LIVE_STATUSES,
+  type BookingCreateInput,
+  type BookingStatus,
+  type BookingUpdateInput,
+  type ChecklistEntry,
+  type ChecklistSubmitInput,
+  type LabRules,
+  type TestPlan,
+} from '../../shared/schemas/bookings';
+import type { ItemKind, ItemSummary } from '../../shared/schemas/items';
+import type { Role, SessionUser } from '../../shared/schemas/session';
+import type { Db, Trx } from '../db';
+import { AppError, ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../errors';
+import { appendAudit } from './audit';
+import { activeTemplates, applicableEntries, evaluateAnswers } from './checklists';
+import { timestampToIso, todayIso } from './dates';
+import { inspectionStateOf, tagOutInTransaction, toItemSummary, type ItemRow } from './items';
+import { getLabRules } from './lab-rules';
+import { getQualification } from './qualifications';
+
+export interface BookingRow {
+  id: number;
+  person_id: number;
+  status: BookingStatus;
+  starts_at: Date;
+  ends_at: Date;
+  location: string;
+  purpose: string;
+  planned_kv: number;
+  polarity: TestPlan['polarity'];
+  max_current_ma: number;
+  people_present: number;
+  plan_version: number;
+  assessment: unknown;
+  approval_required: boolean;
+  released_at: Date | null;
+  returned_at: Date | null;
+  cancelled_at: Date | null;
+  created_at: Date;
+  updated_at: Date;
+}
+
+const STAFF: Role[] = ['officer', 'manager'];
+const EDITABLE: BookingStatus[] = ['requested', 'awaiting-approval', 'approved', 'refused'];
+const PRE_RELEASE: BookingStatus[] = ['requested', 'awaiting-approval', 'approved'];
+
+const json = <T>(value: unknown): T => (typeof value === 'string' ? JSON.parse(value) : value) as T;
+
+export function planOf(row: BookingRow): TestPlan {
+  return { plannedKv: Number(row.planned_kv), polarity: row.polarity, maxCurrentMa: Number(row.max_current_ma), peoplePresent: row.people_present };
+}
+
+export function isOverdue(row: Pick<BookingRow, 'status' | 'ends_at'>, now = new Date()): boolean {
+  return row.status === 'released' && new Date(row.ends_at).getTime() < now.getTime();
+}
+
+// ------------------------------------------------------------------------------------------
+// Assessment inputs
+
+function toAssessedItem(row: ItemRow): AssessedItem {
+  return {
+    id: row.id,
+    tag: row.tag,
+    name: row.name,
+    kind: row.kind,
+    ratedKv: row.rated_kv === null ? null : Number(row.rated_kv),
+    ratings: json<Record<string, unknown>>(row.ratings),
+    status: row.status,
+    inspectionState: inspectionStateOf(row.next_inspection_due),
+  };
+}
+
+async function loadItems(db: Db | Trx, itemIds: number[], lock: boolean): Promise<ItemRow[]> {
+  const query = db<ItemRow>('items').whereIn('id', itemIds).orderBy('id');
+  if (lock) query.forUpdate();
+  const rows = (await query) as ItemRow[];
+  const missing = itemIds.filter((id) => !rows.some((r) => r.id === id));
+  if (missing.length > 0) throw new ValidationError(`No item with id ${missing.join(', ')}.`, { itemIds: [`Unknown item ${missing.join(', ')}`] });
+  return rows;
+}
+
+export async function assess(db: Db | Trx, items: ItemRow[], plan: TestPlan, personId: number, rules?: LabRules): Promise<Assessment> {
+  const [labRules, qualification] = await Promise.all([rules ?? getLabRules(db), getQualification(db, personId)]);
+  return assessSetup({ items: items.map(toAssessedItem), plan, rules: labRules, qualification, today: todayIso() });
+}
+
+export async function assessPlan(db: Db, itemIds: number[], plan: TestPlan, personId: number): Promise<Assessment> {
+  return assess(db, await loadItems(db, itemIds, false), plan, personId);
+}
+
+// ------------------------------------------------------------------------------------------
+// Reading bookings
+
+export interface BookingView {
+  id: number;
+  personId: number;
+  personName: string;
+  status: BookingStatus;
+  overdue: boolean;
+  startsAt: string;
+  endsAt: string;
+  location: string;
+  purpose: string;
+  plan: TestPlan;
+  planVersion: number;
+  itemIds: number[];
+  items: ItemSummary[];
+  assessment: Assessment;
+  approvalRequired: boolean;
+  approval: { decision: 'approve' | 'refuse'; officerName: string; conditions: string | null; reason: string | null; decidedAt: string; current: boolean } | null;
+  checklist: { pre: ChecklistEntry[]; return: ChecklistEntry[] };
+  checklistRuns: { pre: { completedAt: string; withinLimits: boolean } | null; return: { completedAt: string; withinLimits: boolean } | null };
+  scannedItemIds: number[];
+  releasedAt: string | null;
+  returnedAt: string | null;
+  cancelledAt: string | null;
+  createdAt: string;
+}
+
+function canSee(actor: SessionUser, row: Pick<BookingRow, 'person_id'>): boolean {
+  return row.person_id === actor.id || STAFF.includes(actor.role);
+}
+
+async function lockBooking(trx: Trx, id: number): Promise<BookingRow> {
+  const row = await trx<BookingRow>('bookings').where({ id }).forUpdate().first();
+  if (!row) throw new NotFoundError(`No booking with id ${id}.`);
+  return row;
+}
+
+async function currentApproval(db: Db | Trx, row: BookingRow) {
+  const approval = await db('approvals as a')
+    .join('people as p', 'p.id', 'a.officer_id')
+    .where('a.booking_id', row.id)
+    .orderBy('a.id', 'desc')
+    .first('a.*', 'p.name as officer_name');
+  if (!approval) return null;
+  return {
+    decision: approval.decision as 'approve' | 'refuse',
+    officerName: approval.officer_name as string,
+    conditions: approval.conditions as string | null,
+    reason: approval.reason as string | null,
+    decidedAt: timestampToIso(approval.decided_at)!,
+    current: approval.voided_at === null && approval.plan_version === row.plan_version,
+  };
+}
+
+async function latestRun(db: Db | Trx, row: BookingRow, phase: 'pre' | 'return') {
+  const run = await db('checklist_runs').where({ booking_id: row.id, phase, plan_version: row.plan_version }).orderBy('id', 'desc').first('complete', 'within_limits', 'completed_at');
+  return run ? { complete: Boolean(run.complete), withinLimits: Boolean(run.within_limits), completedAt: timestampToIso(run.completed_at)! } : null;
+}
+
+export async function bookingView(db: Db | Trx, row: BookingRow): Promise<BookingView> {
+  const [person, itemRows, scans, approval, pre, ret, templates, rules] = await Promise.all([
+    db('people').where({ id: row.person_id }).first('name'),
+    db('booking_items as bi').join('items as i', 'i.id', 'bi.item_id').where('bi.booking_id', row.id).orderBy('i.tag').select('i.*'),
+    db('booking_scans').where({ booking_id: row.id }).select('item_id'),
+    currentApproval(db, row),
+    latestRun(db, row, 'pre'),
+    latestRun(db, row, 'return'),
+    activeTemplates(db),
+    getLabRules(db),
+  ]);
+  const plan = planOf(row);
+  const kinds = [...new Set((itemRows as ItemRow[]).map((i) => i.kind as string))];
+  return {
+    id: row.id,
+    personId: row.person_id,
+    personName: person?.name ?? '',
+    status: row.status,
+    overdue: isOverdue(row),
+    startsAt: timestampToIso(row.starts_at)!,
+    endsAt: timestampToIso(row.ends_at)!,
+    location: row.location,
+    purpose: row.purpose,
+    plan,
+    planVersion: row.plan_version,
+    itemIds: (itemRows as ItemRow[]).map((i) => i.id),
+    items: (itemRows as ItemRow[]).map(toItemSummary),
+    assessment: json<Assessment>(row.assessment),
+    approvalRequired: Boolean(row.approval_required),
+    approval,
+    checklist: { pre: applicableEntries(templates, 'pre', plan.plannedKv, kinds, rules), return: applicableEntries(templates, 'return', plan.plannedKv, kinds, rules) },
+    checklistRuns: {
+      pre: pre ? { completedAt: pre.completedAt, withinLimits: pre.withinLimits } : null,
+      return: ret ? { completedAt: ret.completedAt, withinLimits: ret.withinLimits } : null,
+    },
+    scannedItemIds: scans.map((s: { item_id: number }) => s.item_id),
+    releasedAt: timestampToIso(row.released_at),
+    returnedAt: timestampToIso(row.returned_at),
+    cancelledAt: timestampToIso(row.cancelled_at),
+    createdAt: timestampToIso(row.created_at)!,
+  };
+}
+
+export async function getBooking(db: Db, actor: SessionUser, id: number): Promise<BookingView> {
+  const row = await db<BookingRow>('bookings').where({ id }).first();
+  if (!row || !canSee(actor, row)) throw new NotFoundError(`No booking with id ${id}.`);
+  return bookingView(db, row);
+}
+
+export interface BookingSummary {
+  id: number;
+  personId: number;
+  personName: string;
+  status: BookingStatus;
+  overdue: boolean;
+  startsAt: string;
+  endsAt: string;
+  location: string;
+  purpose: string;
+  plannedKv: number;
+  approvalRequired: boolean;
+  itemTags: string[];
+}
+
+export async function listBookings(
+  db: Db,
+  actor: SessionUser,
+  query: { mine?: string; status?: string; itemId?: number; cursor?: string; limit: number },
+): Promise<{ bookings: BookingSummary[]; nextCursor: string | null }> {
+  const mine = query.mine === '1' || query.mine === 'true' || !STAFF.includes(actor.role);
+  const builder = db('bookings as b').join('people as p', 'p.id', 'b.person_id').select('b.*', 'p.name as person_name');
+  if (mine) builder.where('b.person_id', actor.id);
+  if (query.status === 'overdue') builder.where('b.status', 'released').andWhere('b.ends_at', '<', new Date());
+  else if (query.status === 'live') builder.whereIn('b.status', LIVE_STATUSES);
+  else if (query.status) builder.where('b.status', query.status);
+  if (query.itemId) builder.whereExists(db('booking_items as bi').whereRaw('bi.booking_id = b.id').andWhere('bi.item_id', query.itemId));
+  if (query.cursor) {
+    const before = Number(query.cursor);
+    if (!Number.isInteger(before) || before <= 0) throw new ValidationError('The page cursor is not valid.', { cursor: ['Invalid cursor'] });
+    builder.where('b.id', '<', before);
+  }
+  const rows = await builder.orderBy('b.id', 'desc').limit(query.limit + 1);
+  const page = rows.slice(0, query.limit);
+  // One query for every tag on the page, whatever the page size.
+  const tags = page.length
+    ? await db('booking_items as bi').join('items as i', 'i.id', 'bi.item_id').whereIn('bi.booking_id', page.map((r) => r.id)).orderBy('i.tag').select('bi.booking_id', 'i.tag')
+    : [];
+  return {
+    bookings: page.map((r) => ({
+      id: r.id,
+      personId: r.person_id,
+      personName: r.person_name,
+      status: r.status,
+      overdue: isOverdue(r),
+      startsAt: timestampToIso(r.starts_at)!,
+      endsAt: timestampToIso(r.ends_at)!,
+      location: r.location,
+      purpose: r.purpose,
+      plannedKv: Number(r.planned_kv),
+      approvalRequired: Boolean(r.approval_required),
+      itemTags: tags.filter((t) => t.booking_id === r.id).map((t) => t.tag),
+    })),
+    nextCursor: rows.length > query.limit ? String(page[page.length - 1]!.id) : null,
+  };
+}
+
+/** Live bookings holding an item in a window: what the booking form shows as availability. */
+export async function itemAvailability(db: Db, itemId: number, from: Date, to: Date) {
+  const rows = await db('booking_items as bi')
+    .join('bookings as b', 'b.id', 'bi.booking_id')
+    .join('people as p', 'p.id', 'b.person_id')
+    .where('bi.item_id', itemId)
+    .andWhere('bi.live', true)
+    .andWhere('bi.starts_at', '<', to)
+    .andWhere('bi.ends_at', '>', from)
+    .orderBy('bi.starts_at')
+    .select('b.id', 'b.status', 'bi.starts_at', 'bi.ends_at', 'p.name as person_name');
+  return rows.map((r) => ({ bookingId: r.id, status: r.status, startsAt: timestampToIso(r.starts_at)!, endsAt: timestampToIso(r.ends_at)!, personName: r.person_name }));
+}
+
+// ------------------------------------------------------------------------------------------
+// Writing bookings
+
+/** Refuses when any item is held by another live booking overlapping the window. Items must be locked. */
+async function assertItemsFree(trx: Trx, items: ItemRow[], startsAt: Date, endsAt: Date, exceptBookingId?: number): Promise<void> {
+  const clashes = await trx('booking_items as bi')
+    .join('items as i', 'i.id', 'bi.item_id')
+    .whereIn('bi.item_id', items.map((i) => i.id))
+    .andWhere('bi.live', true)
+    .andWhere('bi.starts_at', '<', endsAt)
+    .andWhere('bi.ends_at', '>', startsAt)
+    .modify((q) => {
+      if (exceptBookingId) q.andWhereNot('bi.booking_id', exceptBookingId);
+    })
+    .select('i.tag', 'bi.booking_id');
+  if (clashes.length > 0) {
+    const tags = [...new Set(clashes.map((c: { tag: string }) => c.tag))];
+    throw new ConflictError(`Already booked in that window: ${tags.join(', ')}. Pick another time or other gear.`, 'ITEM_TAKEN');
+  }
+  const retired = items.filter((i) => i.status === 'retired').map((i) => i.tag);
+  if (retired.length > 0) throw new ConflictError(`Retired gear cannot be booked: ${retired.join(', ')}.`, 'ITEM_RETIRED');
+}
+
+function checkWindow(startsAt: Date, endsAt: Date): void {
+  // A few minutes of slack: a booking made at the counter starts "now".
+  if (endsAt.getTime() <= Date.now()) throw new ValidationError('The booking window has already ended.', { endsAt: ['Pick an end in the future'] });
+  if (startsAt.getTime() < Date.now() - 10 * 60_000) throw new ValidationError('The booking cannot start in the past.', { startsAt: ['Pick a start from now on'] });
+}
+
+function statusFor(assessment: Assessment): BookingStatus {
+  return assessment.approvalRequired ? 'awaiting-approval' : 'requested';
+}
+
+export async function createBooking(db: Db, actor: SessionUser, input: BookingCreateInput): Promise<BookingView> {
+  const startsAt = new Date(input.startsAt);
+  const endsAt = new Date(input.endsAt);
+  checkWindow(startsAt, endsAt);
+  const id = await db.transaction(async (trx) => {
+    const items = await loadItems(trx, [...input.itemIds].sort((a, b) => a - b), true);
+    await assertItemsFree(trx, items, startsAt, endsAt);
+    const assessment = await assess(trx, items, input.plan, actor.id);
+    const record = {
+      person_id: actor.id,
+      status: statusFor(assessment),
+      starts_at: startsAt,
+      ends_at: endsAt,
+      location: input.location,
+      purpose: input.purpose,
+      planned_kv: input.plan.plannedKv,
+      polarity: input.plan.polarity,
+      max_current_ma: input.plan.maxCurrentMa,
+      people_present: input.plan.peoplePresent,
+      assessment: JSON.stringify(assessment),
+      approval_required: assessment.approvalRequired,
+    };
+    const [bookingId] = (await trx('bookings').insert(record)) as [number];
+    await trx('booking_items').insert(items.map((i) => ({ booking_id: bookingId, item_id: i.id, starts_at: startsAt, ends_at: endsAt, live: true })));
+    await appendAudit(trx, {
+      actorId: actor.id,
+      entity: 'booking',
+      entityId: bookingId,
+      action: 'booking.created',
+      after: { status: record.status, itemIds: items.map((i) => i.id), startsAt: input.startsAt, endsAt: input.endsAt, plan: input.plan, approvalReasons: assessment.approvalReasons.map((r) => r.code) },
+    });
+    return bookingId;
+  });
+  return getBooking(db, actor, id);
+}
+
+export async function updateBooking(db: Db, actor: SessionUser, id: number, input: BookingUpdateInput): Promise<BookingView> {
+  await db.transaction(async (trx) => {
+    const row = await lockBooking(trx, id);
+    if (row.person_id !== actor.id) throw new ForbiddenError('Only the person who booked can change the booking.');
+    if (!EDITABLE.includes(row.status)) throw new ConflictError(`A ${row.status} booking cannot be changed.`, 'BOOKING_LOCKED');
+    const currentItems = (await trx('booking_items').where({ booking_id: id }).select('item_id')).map((r) => r.item_id as number);
+    const itemIds = input.itemIds ?? currentItems;
+    const startsAt = input.startsAt ? new Date(input.startsAt) : new Date(row.starts_at);
+    const endsAt = input.endsAt ? new Date(input.endsAt) : new Date(row.ends_at);
+    if (endsAt <= startsAt) throw new ValidationError('The end must be after the start.', { endsAt: ['The end must be after the start'] });
+    const plan = input.plan ?? planOf(row);
+    const itemsChanged = input.itemIds !== undefined && [...itemIds].sort().join() !== [...currentItems].sort().join();
+    const windowChanged = startsAt.getTime() !== new Date(row.starts_at).getTime() || endsAt.getTime() !== new Date(row.ends_at).getTime();
+    const planChanged = input.plan !== undefined && JSON.stringify(plan) !== JSON.stringify(planOf(row));
+    const bumps = itemsChanged || windowChanged || planChanged;
+    if (windowChanged) checkWindow(startsAt, endsAt);
+
+    const items = await loadItems(trx, [...itemIds].sort((a, b) => a - b), true);
+    if (itemsChanged || windowChanged || row.status === 'refused') await assertItemsFree(trx, items, startsAt, endsAt, id);
+    const assessment = await assess(trx, items, plan, row.person_id);
+    const status = bumps || row.status === 'refused' ? statusFor(assessment) : row.status;
+    const planVersion = bumps ? row.plan_version + 1 : row.plan_version;
+    await trx('bookings').where({ id }).update({
+      status,
+      starts_at: startsAt,
+      ends_at: endsAt,
+      location: input.location ?? row.location,
+      purpose: input.purpose ?? row.purpose,
+      planned_kv: plan.plannedKv,
+      polarity: plan.polarity,
+      max_current_ma: plan.maxCurrentMa,
+      people_present: plan.peoplePresent,
+      plan_version: planVersion,
+      assessment: JSON.stringify(assessment),
+      approval_required: assessment.approvalRequired,
+      updated_at: new Date(),
+    });
+    if (bumps) {
+      // An approval binds to the plan it was given for; the new plan needs a new decision.
+      await trx('approvals').where({ booking_id: id }).whereNull('voided_at').update({ voided_at: new Date() });
+      await trx('booking_scans').where({ booking_id: id }).whereNotIn('item_id', itemIds).delete();
+    }
+    if (itemsChanged || windowChanged || row.status === 'refused') {
+      await trx('booking_items').where({ booking_id: id }).delete();
+      await trx('booking_items').insert(items.map((i) => ({ booking_id: id, item_id: i.id, starts_at: startsAt, ends_at: endsAt, live: true })));
+    }
+    await appendAudit(trx, {
+      actorId: actor.id,
+      entity: 'booking',
+      entityId: id,
+      action: bumps ? 'booking.plan-changed' : 'booking.updated',
+      before: { status: row.status, planVersion: row.plan_version, itemIds: currentItems, startsAt: row.starts_at, endsAt: row.ends_at, plan: planOf(row), location: row.location, purpose: row.purpose },
+      after: { status, planVersion, itemIds, startsAt, endsAt, plan, location: input.location ?? row.location, purpose: input.purpose ?? row.purpose },
+    });
+  });
+  return getBooking(db, actor, id);
+}
+
+export async function cancelBooking(db: Db, actor: SessionUser, id: number): Promise<BookingView> {
+  await db.transaction(async (trx) => {
+    const row = await lockBooking(trx, id);
+    if (!canSee(actor, row)) throw new NotFoundError(`No booking with id ${id}.`);
+    if (row.person_id !== actor.id && !STAFF.includes(actor.role)) throw new ForbiddenError();
+    if (!EDITABLE.includes(row.status)) throw new ConflictError(`A ${row.status} booking cannot be cancelled.`, 'BOOKING_LOCKED');
+    await trx('bookings').where({ id }).update({ status: 'cancelled', cancelled_at: new Date(), updated_at: new Date() });
+    await trx('booking_items').where({ booking_id: id }).update({ live: false });
+    await appendAudit(trx, { actorId: actor.id, entity: 'booking', entityId: id, action: 'booking.cancelled', before: { status: row.status }, after: { status: 'cancelled' } });
+  });
+  return getBooking(db, actor, id);
+}
+
+export async function decideApproval(db: Db, actor: SessionUser, id: number, input: { decision: 'approve' | 'refuse'; conditions?: string; reason?: string }): Promise<BookingView> {
+  await db.transaction(async (trx) => {
+    const row = await lockBooking(trx, id);
+    // Nobody approves their own test, whatever their role.
+    if (row.person_id === actor.id) throw new ForbiddenError('You cannot decide on your own booking; another officer must.');
+    if (row.status !== 'awaiting-approval') throw new ConflictError(`Only bookings awaiting approval can be decided; this one is ${row.status}.`, 'NOT_AWAITING_APPROVAL');
+    await trx('approvals').insert({
+      booking_id: id,
+      officer_id: actor.id,
+      decision: input.decision,
+      conditions: input.conditions || null,
+      reason: input.reason || null,
+      plan_version: row.plan_version,
+    });
+    const status: BookingStatus = input.decision === 'approve' ? 'approved' : 'refused';
+    await trx('bookings').where({ id }).update({ status, updated_at: new Date() });
+    if (status === 'refused') await trx('booking_items').where({ booking_id: id }).update({ live: false });
+    await appendAudit(trx, {
+      actorId: actor.id,
+      entity: 'booking',
+      entityId: id,
+      action: input.decision === 'approve' ? 'approval.granted' : 'approval.refused',
+      before: { status: row.status },
+      after: { status, planVersion: row.plan_version, conditions: input.conditions ?? null, reason: input.reason ?? null },
+    });
+  });
+  return getBooking(db, actor, id);
+}
+
+function assertCounterAccess(actor: SessionUser, row: BookingRow): void {
+  if (!canSee(actor, row)) throw new NotFoundError(`No booking with id ${row.id}.`);
+}
+
+export async function recordScan(db: Db, actor: SessionUser, id: number, tag: string): Promise<BookingView> {
+  await db.transaction(async (trx) => {
+    const row = await lockBooking(trx, id);
+    assertCounterAccess(actor, row);
+    if (!PRE_RELEASE.includes(row.status)) throw new ConflictError(`Scanning is for release; this booking is ${row.status}.`, 'BOOKING_LOCKED');
+    const item = await trx('items').where({ tag: tag.trim().toUpperCase() }).first('id', 'tag');
+    if (!item) throw new NotFoundError(`No item carries the tag ${tag}.`);
+    const inBooking = await trx('booking_items').where({ booking_id: id, item_id: item.id }).first('item_id');
+    if (!inBooking) throw new AppError(409, 'ITEM_NOT_IN_BOOKING', `${item.tag} is not part of this booking. Put it back and scan the booked gear.`);
+    const already = await trx('booking_scans').where({ booking_id: id, item_id: item.id }).first('item_id');
+    if (!already) {
+      await trx('booking_scans').insert({ booking_id: id, item_id: item.id, scanned_by: actor.id });
+      await appendAudit(trx, { actorId: actor.id, entity: 'booking', entityId: id, action: 'booking.item-scanned', after: { itemId: item.id, tag: item.tag } });
+    }
+  });
+  return getBooking(db, actor, id);
+}
+
+export async function submitChecklist(db: Db, actor: SessionUser, id: number, input: ChecklistSubmitInput): Promise<BookingView> {
+  await db.transaction(async (trx) => {
+    const row = await lockBooking(trx, id);
+    assertCounterAccess(actor, row);
+    if (input.phase === 'pre' && !PRE_RELEASE.includes(row.status)) throw new ConflictError(`The pre-energize checklist is for release; this booking is ${row.status}.`, 'BOOKING_LOCKED');
+    if (input.phase === 'return' && row.status !== 'released') throw new ConflictError('The make-safe checklist is for returning released gear.', 'BOOKING_LOCKED');
+    const [templates, rules, kinds] = await Promise.all([
+      activeTemplates(trx),
+      getLabRules(trx),
+      trx('booking_items as bi').join('items as i', 'i.id', 'bi.item_id').where('bi.booking_id', id).distinct('i.kind'),
+    ]);
+    const entries = applicableEntries(templates, input.phase, Number(row.planned_kv), kinds.map((k: { kind: ItemKind }) => k.kind), rules);
+    const evaluated = evaluateAnswers(entries, input.answers);
+    const fileIds = input.answers.map((a) => a.fileId).filter((f): f is number => f !== undefined);
+    if (fileIds.length > 0) {
+      const found = await trx('item_files').whereIn('id', fileIds).count({ n: '*' }).first();
+      if (Number(found?.n) !== new Set(fileIds).size) throw new ValidationError('A photo in the checklist was not found.', { answers: ['Unknown photo'] });
+    }
+    const [runId] = (await trx('checklist_runs').insert({
+      booking_id: id,
+      phase: input.phase,
+      plan_version: row.plan_version,
+      answers: JSON.stringify(evaluated.snapshot),
+      complete: evaluated.complete,
+      within_limits: evaluated.withinLimits,
+      completed_by: actor.id,
+    })) as [number];
+    await appendAudit(trx, {
+      actorId: actor.id,
+      entity: 'booking',
+      entityId: id,
+      action: `checklist.${input.phase}-completed`,
+      after: { runId, planVersion: row.plan_version, withinLimits: evaluated.withinLimits, answers: evaluated.snapshot },
+    });
+  });
+  return getBooking(db, actor, id);
+}
+
+export async function releaseBooking(db: Db, actor: SessionUser, id: number, now = new Date()): Promise<BookingView> {
+  await db.transaction(async (trx) => {
+    const row = await lockBooking(trx, id);
+    assertCounterAccess(actor, row);
+    const itemIds = (await trx('booking_items').where({ booking_id: id }).orderBy('item_id').select('item_id')).map((r) => r.item_id as number);
+    const items = await loadItems(trx, itemIds, true);
+    const rules = await getLabRules(trx);
+    // Recomputed now, from the gear's and the member's state at this moment: the stored
+    // assessment may be days old.
+    const assessment = await assess(trx, items, planOf(row), row.person_id, rules);
+    const [scans, approval, pre] = await Promise.all([
+      trx('booking_scans').where({ booking_id: id }).select('item_id'),
+      currentApproval(trx, row),
+      latestRun(trx, row, 'pre'),
+    ]);
+    const failures = releaseFailures({
+      status: row.status,
+      approvalRequired: assessment.approvalRequired,
+      approvalCurrent: Boolean(approval?.current && approval.decision === 'approve'),
+      now,
+      startsAt: new Date(row.starts_at),
+      endsAt: new Date(row.ends_at),
+      earlyPickupMin: rules.earlyPickupMin,
+      itemIds,
+      scannedItemIds: scans.map((s: { item_id: number }) => s.item_id),
+      assessment,
+      checklist: pre,
+    });
+    if (failures.length > 0) {
+      throw new ConflictError(`Release refused: ${failures.length} rule${failures.length === 1 ? '' : 's'} not met.`, 'RELEASE_REFUSED', failures);
+    }
+    await trx('bookings').where({ id }).update({ status: 'released', released_at: now, assessment: JSON.stringify(assessment), approval_required: assessment.approvalRequired, updated_at: new Date() });
+    await appendAudit(trx, {
+      actorId: actor.id,
+      entity: 'booking',
+      entityId: id,
+      action: 'booking.released',
+      before: { status: row.status },
+      after: { status: 'released', planVersion: row.plan_version, plannedKv: Number(row.planned_kv), itemIds, approval: approval ? { officer: approval.officerName, conditions: approval.conditions } : null },
+    });
+  });
+  return getBooking(db, actor, id);
+}
+
+export async function returnBooking(db: Db, actor: SessionUser, id: number, input: { damagedItemIds: number[]; notes: string }): Promise<BookingView> {
+  await db.transaction(async (trx) => {
+    const row = await lockBooking(trx, id);
+    assertCounterAccess(actor, row);
+    if (row.status !== 'released') throw new ConflictError(`Only released gear can be returned; this booking is ${row.status}.`, 'BOOKING_LOCKED');
+    const itemIds = (await trx('booking_items').where({ booking_id: id }).orderBy('item_id').select('item_id')).map((r) => r.item_id as number);
+    const stray = input.damagedItemIds.filter((d) => !itemIds.includes(d));
+    if (stray.length > 0) throw new ValidationError(`Items ${stray.join(', ')} are not part of this booking.`, { damagedItemIds: ['Only items of this booking'] });
+    const run = await latestRun(trx, row, 'return');
+    const failures: { rule: string; message: string }[] = [];
+    if (!run) failures.push({ rule: 'make-safe-checklist', message: 'Complete the make-safe checklist first.' });
+    else if (!run.withinLimits) failures.push({ rule: 'make-safe-checklist', message: 'A make-safe reading is outside its limits (e.g. residual voltage above the safe level): ground the output again and measure.' });
+    if (failures.length > 0) throw new ConflictError('Return refused: the gear is not yet made safe.', 'RETURN_REFUSED', failures);
+
+    await trx('items').whereIn('id', itemIds).orderBy('id').forUpdate().select('id');
+    for (const itemId of input.damagedItemIds) {
+      await trx('incidents').insert({ booking_id: id, item_id: itemId, kind: 'damage', description: input.notes, reported_by: actor.id });
+      await tagOutInTransaction(trx, actor.id, itemId, `Damaged on return of booking ${id}: ${input.notes}`, 'item.tagged-out-at-return');
+    }
+    const now = new Date();
+    await trx('bookings').where({ id }).update({ status: 'returned', returned_at: now, updated_at: now });
+    await trx('booking_items').where({ booking_id: id }).update({ live: false });
+    await appendAudit(trx, {
+      actorId: actor.id,
+      entity: 'booking',
+      entityId: id,
+      action: 'booking.returned',
+      before: { status: 'released' },
+      after: { status: 'returned', damagedItemIds: input.damagedItemIds, notes: input.notes, late: now > new Date(row.ends_at) },
+    });
+  });
+  return getBooking(db, actor, id);
+}
+
+/** An item's booking history for its page (newest first). */
+export async function itemBookingHistory(db: Db, itemId: number, limit = 50) {
+  const rows = await db('booking_items as bi')
+    .join('bookings as b', 'b.id', 'bi.booking_id')
+    .join('people as p', 'p.id', 'b.person_id')
+    .where('bi.item_id', itemId)
+    .orderBy('b.id', 'desc')
+    .limit(limit)
+    .select('b.id', 'b.status', 'b.starts_at', 'b.ends_at', 'b.planned_kv', 'p.name as person_name');
+  return rows.map((r) => ({
+    bookingId: r.id,
+    status: r.status as BookingStatus,
+    overdue: isOverdue(r),
+    startsAt: timestampToIso(r.starts_at)!,
+    endsAt: timestampToIso(r.ends_at)!,
+    plannedKv: Number(r.planned_kv),
+    personName: r.person_name as string,
+  }));
+}

@@ -1,0 +1,39 @@
+import type { Qualification, QualificationInput } from '../../shared/schemas/bookings';
+import type { SessionUser } from '../../shared/schemas/session';
+import type { Db, Trx } from '../db';
+import { NotFoundError } from '../errors';
+import { appendAudit } from './audit';
+import { dateColumnToIso, timestampToIso } from './dates';
+
+export async function getQualification(db: Db | Trx, personId: number): Promise<Qualification | null> {
+  const row = await db('qualifications as q').leftJoin('people as p', 'p.id', 'q.recorded_by').where('q.person_id', personId).first('q.*', 'p.name as recorded_by_name');
+  if (!row) return null;
+  return {
+    personId,
+    authorisedKv: Number(row.authorised_kv),
+    expiresOn: dateColumnToIso(row.expires_on)!,
+    notes: row.notes,
+    recordedByName: row.recorded_by_name ?? null,
+    updatedAt: timestampToIso(row.updated_at)!,
+  };
+}
+
+export async function setQualification(db: Db, actor: SessionUser, personId: number, input: QualificationInput): Promise<Qualification> {
+  await db.transaction(async (trx) => {
+    const person = await trx('people').where({ id: personId }).forUpdate().first('id');
+    if (!person) throw new NotFoundError(`No person with id ${personId}.`);
+    const before = await getQualification(trx, personId);
+    const record = { authorised_kv: input.authorisedKv, expires_on: input.expiresOn, notes: input.notes ?? '', recorded_by: actor.id, updated_at: new Date() };
+    if (before) await trx('qualifications').where({ person_id: personId }).update(record);
+    else await trx('qualifications').insert({ person_id: personId, ...record });
+    await appendAudit(trx, {
+      actorId: actor.id,
+      entity: 'qualification',
+      entityId: personId,
+      action: 'qualification.set',
+      before: before ? { authorisedKv: before.authorisedKv, expiresOn: before.expiresOn } : null,
+      after: { authorisedKv: input.authorisedKv, expiresOn: input.expiresOn, notes: input.notes ?? '' },
+    });
+  });
+  return (await getQualification(db, personId))!;
+}

@@ -1,0 +1,168 @@
+// Booking payloads, lab rules and qualifications: one schema each, for the form and the API.
+import { z } from 'zod';
+import { polaritySchema } from './items';
+
+export const BOOKING_STATUSES = ['requested', 'awaiting-approval', 'approved', 'refused', 'released', 'returned', 'cancelled'] as const;
+export type BookingStatus = (typeof BOOKING_STATUSES)[number];
+/** States in which a booking holds its items (an item is never in two overlapping live bookings). */
+export const LIVE_STATUSES: BookingStatus[] = ['requested', 'awaiting-approval', 'approved', 'released'];
+
+export const testPlanSchema = z
+  .object({
+    plannedKv: z.number().min(0.05, 'At least 0.05 kV').max(300, 'At most 300 kV'),
+    polarity: polaritySchema,
+    maxCurrentMa: z.number().min(0).max(10_000),
+    peoplePresent: z.number().int().min(1, 'Count yourself').max(50),
+  })
+  .strict();
+export type TestPlan = z.infer<typeof testPlanSchema>;
+
+const itemIds = z.array(z.number().int().positive()).min(1, 'Pick at least one item').max(30, 'At most 30 items');
+const isoTime = z.iso.datetime({ offset: true, message: 'Use an ISO date and time' });
+
+const windowRefine = <T extends { startsAt?: string; endsAt?: string }>(v: T) => !v.startsAt || !v.endsAt || new Date(v.endsAt) > new Date(v.startsAt);
+
+export const bookingCreateSchema = z
+  .object({
+    itemIds,
+    startsAt: isoTime,
+    endsAt: isoTime,
+    location: z.string().trim().min(1, 'Which bench or bay?').max(120),
+    purpose: z.string().trim().min(3, 'Say what the test is for').max(500),
+    plan: testPlanSchema,
+  })
+  .strict()
+  .refine(windowRefine, { message: 'The end must be after the start', path: ['endsAt'] })
+  .refine((v) => new Date(v.endsAt).getTime() - new Date(v.startsAt).getTime() <= 14 * 24 * 3600_000, { message: 'A booking can last at most 14 days', path: ['endsAt'] })
+  .refine((v) => new Set(v.itemIds).size === v.itemIds.length, { message: 'An item is listed twice', path: ['itemIds'] });
+export type BookingCreateInput = z.infer<typeof bookingCreateSchema>;
+
+export const bookingUpdateSchema = z
+  .object({
+    itemIds: itemIds.optional(),
+    startsAt: isoTime.optional(),
+    endsAt: isoTime.optional(),
+    location: z.string().trim().min(1).max(120).optional(),
+    purpose: z.string().trim().min(3).max(500).optional(),
+    plan: testPlanSchema.optional(),
+  })
+  .strict()
+  .refine((v) => Object.keys(v).length > 0, 'Nothing to change')
+  .refine(windowRefine, { message: 'The end must be after the start', path: ['endsAt'] })
+  .refine((v) => !v.itemIds || new Set(v.itemIds).size === v.itemIds.length, { message: 'An item is listed twice', path: ['itemIds'] });
+export type BookingUpdateInput = z.infer<typeof bookingUpdateSchema>;
+
+export const bookingListQuerySchema = z
+  .object({
+    mine: z.enum(['1', '0', 'true', 'false']).optional(),
+    status: z.enum([...BOOKING_STATUSES, 'overdue', 'live']).optional(),
+    itemId: z.coerce.number().int().positive().optional(),
+    cursor: z.string().max(100).optional(),
+    limit: z.coerce.number().int().min(1).max(100).default(25),
+  })
+  .strict();
+
+export const assessmentRequestSchema = z
+  .object({ itemIds, plan: testPlanSchema, personId: z.number().int().positive().optional() })
+  .strict();
+
+export const approvalDecisionSchema = z
+  .object({
+    decision: z.enum(['approve', 'refuse']),
+    conditions: z.string().trim().max(1000).optional(),
+    reason: z.string().trim().max(1000).optional(),
+  })
+  .strict()
+  .refine((v) => v.decision !== 'refuse' || (v.reason ?? '').length > 0, { message: 'Say why the test is refused', path: ['reason'] });
+
+export const scanSchema = z.object({ tag: z.string().trim().min(1).max(40) }).strict();
+
+export const checklistSubmitSchema = z
+  .object({
+    phase: z.enum(['pre', 'return']),
+    answers: z
+      .array(
+        z
+          .object({
+            itemId: z.number().int().positive(),
+            confirmed: z.boolean().optional(),
+            value: z.number().optional(),
+            fileId: z.number().int().positive().optional(),
+          })
+          .strict(),
+      )
+      .max(60),
+  })
+  .strict();
+export type ChecklistSubmitInput = z.infer<typeof checklistSubmitSchema>;
+
+export const returnSchema = z
+  .object({
+    damagedItemIds: z.array(z.number().int().positive()).max(30).default([]),
+    notes: z.string().trim().max(2000).default(''),
+  })
+  .strict()
+  .refine((v) => v.damagedItemIds.length === 0 || v.notes.length > 0, { message: 'Describe the damage', path: ['notes'] });
+
+export const labRulesSchema = z
+  .object({
+    approvalKv: z.number().min(0).max(300),
+    energyThresholdJ: z.number().min(0).max(10_000),
+    ratingMarginPct: z.number().min(0).max(200),
+    interlockKv: z.number().min(0).max(300),
+    safeResidualV: z.number().min(1).max(1000),
+    earlyPickupMin: z.number().int().min(0).max(24 * 60),
+    overdueGraceMin: z.number().int().min(0).max(7 * 24 * 60),
+  })
+  .strict();
+export type LabRules = z.infer<typeof labRulesSchema>;
+
+export const qualificationSchema = z
+  .object({
+    authorisedKv: z.number().min(0).max(300),
+    expiresOn: z.iso.date(),
+    notes: z.string().trim().max(500).default(''),
+  })
+  .strict();
+export type QualificationInput = z.infer<typeof qualificationSchema>;
+
+export interface Qualification {
+  personId: number;
+  authorisedKv: number;
+  expiresOn: string;
+  notes: string;
+  recordedByName: string | null;
+  updatedAt: string;
+}
+
+export const CHECKLIST_KINDS = ['confirm', 'reading', 'photo'] as const;
+export const checklistTemplateItemSchema = z
+  .object({
+    phase: z.enum(['pre', 'return']),
+    kind: z.enum(CHECKLIST_KINDS),
+    text: z.string().trim().min(3).max(300),
+    unit: z.string().trim().max(20).nullable().default(null),
+    min: z.number().nullable().default(null),
+    max: z.number().nullable().default(null),
+    /** The upper limit comes from a lab rule instead of a fixed number. */
+    maxFromRule: z.enum(['safeResidualV']).nullable().default(null),
+    required: z.boolean().default(true),
+    appliesFromKv: z.number().min(0).max(300).nullable().default(null),
+    appliesWithKind: z.string().max(30).nullable().default(null),
+    position: z.number().int().min(0).max(1000).default(0),
+  })
+  .strict()
+  .refine((v) => v.kind !== 'reading' || (v.unit ?? '').length > 0, { message: 'A reading needs a unit', path: ['unit'] })
+  .refine((v) => v.min === null || v.max === null || v.min <= v.max, { message: 'min must not exceed max', path: ['max'] });
+export type ChecklistTemplateItemInput = z.input<typeof checklistTemplateItemSchema>;
+
+/** One line of a checklist as the booking shows it (limits already resolved from lab rules). */
+export interface ChecklistEntry {
+  id: number;
+  kind: 'confirm' | 'reading' | 'photo';
+  text: string;
+  unit?: string;
+  min?: number;
+  max?: number;
+  required: boolean;
+}
