@@ -119,6 +119,11 @@ export async function listAudit(db: Db, filter: AuditFilter): Promise<{ events: 
 
 /** Walks the chain from the start; reports the first entry whose hash does not match. */
 export async function verifyAuditChain(db: Db): Promise<{ ok: boolean; checked: number; brokenAtId: number | null }> {
+  // One REPEATABLE READ snapshot, so entries appended during the walk do not look like a break.
+  return db.transaction(async (trx) => walkChain(trx), { isolationLevel: 'repeatable read', readOnly: true });
+}
+
+async function walkChain(db: Trx): Promise<{ ok: boolean; checked: number; brokenAtId: number | null }> {
   let prevHash = '0'.repeat(64);
   let checked = 0;
   let lastId = 0;
