@@ -6,7 +6,7 @@ import path from 'node:path';
 import { buildWebIfStale } from './build-web';
 import { CHROMIUM, ensureDebianPackages, MARIADB, POPPLER } from './lib/debian-packages';
 import { testInstance } from './lib/instances';
-import { startFakeS3 } from './lib/fake-s3';
+import { startFakeS3 } from '../server/storage/fake-s3';
 import { startInstance, stopInstance } from './lib/mariadb';
 import { recreateDatabase } from './lib/test-database';
 

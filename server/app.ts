@@ -9,11 +9,14 @@ import { SessionStore } from './auth/session-store';
 import type { Config } from './config';
 import type { Db } from './db';
 import { csrf } from './middleware/csrf';
+import type { Mailbox } from './mail/fake-smtp';
+import { invitationsRouter, passwordResetsRouter } from './routes/accounts';
 import { auditRouter } from './routes/audit';
 import { assessmentsRouter, bookingsRouter } from './routes/bookings';
 import { calcRouter } from './routes/calc';
 import { checklistTemplatesRouter } from './routes/checklist-templates';
 import { labRulesRouter } from './routes/lab-rules';
+import { mailboxRouter } from './routes/mailbox';
 import { filesRouter } from './routes/files';
 import { itemsRouter } from './routes/items';
 import { labelsRouter } from './routes/labels';
@@ -21,7 +24,7 @@ import { createObjectStore, type ObjectStore } from './storage/object-store';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { serverTiming } from './middleware/server-timing';
 import { healthRouter } from './routes/health';
-import { peopleRouter } from './routes/people';
+import { groupsRouter, peopleRouter } from './routes/people';
 import { sessionRouter } from './routes/session';
 import { webRouter } from './web';
 
@@ -31,9 +34,11 @@ export interface AppDeps {
   logger: Logger;
   /** Defaults to the S3 bucket named in the configuration. */
   objectStore?: ObjectStore;
+  /** The local fake SMTP server's mailbox, when it is in use (development, tests). */
+  mailbox?: Mailbox;
 }
 
-export function createApp({ db, config, logger, objectStore }: AppDeps): Express {
+export function createApp({ db, config, logger, objectStore, mailbox }: AppDeps): Express {
   const app = express();
   const store = objectStore ?? createObjectStore(config);
   app.disable('x-powered-by');
@@ -88,15 +93,19 @@ export function createApp({ db, config, logger, objectStore }: AppDeps): Express
 
   app.use('/api/session', sessionRouter(db, passport, config));
   app.use('/api/people', peopleRouter(db));
+  app.use('/api/groups', groupsRouter(db));
   app.use('/api/calc', calcRouter());
   app.use('/api/items', itemsRouter(db, config, store));
   app.use('/api/files', filesRouter(db, store));
   app.use('/api', labelsRouter(db, config));
   app.use('/api/assessments', assessmentsRouter(db));
-  app.use('/api/bookings', bookingsRouter(db));
+  app.use('/api/bookings', bookingsRouter(db, config));
   app.use('/api/lab-rules', labRulesRouter(db));
   app.use('/api/checklist-templates', checklistTemplatesRouter(db));
   app.use('/api/audit', auditRouter(db));
+  app.use('/api/invitations', invitationsRouter(db, config));
+  app.use('/api/password-resets', passwordResetsRouter(db, config));
+  app.use('/api/mailbox', mailboxRouter(mailbox));
 
   app.use('/api', apiNotFound);
   app.use(webRouter(config.webDir));

@@ -24,12 +24,18 @@ const envSchema = z.object({
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   LOGIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
   WEB_DIR: z.string().default('dist'),
-  S3_ENDPOINT: z.string().url().default('http://127.0.0.1:4569'),
+  S3_ENDPOINT: z.string().url().optional(),
   S3_REGION: z.string().min(1).default('us-east-1'),
   S3_BUCKET: z.string().regex(/^[a-z0-9.-]{3,63}$/).default('voltcrib-files'),
   S3_ACCESS_KEY_ID: z.string().min(1).default('S3RVER'),
   S3_SECRET_ACCESS_KEY: z.string().min(1).default('S3RVER'),
   UPLOAD_MAX_MB: z.coerce.number().positive().max(100).default(10),
+  SMTP_URL: z.string().regex(/^smtps?:\/\//, 'smtp:// or smtps:// URL').optional(),
+  SMTP_FAKE_PORT: z.coerce.number().int().min(0).max(65535).default(0),
+  MAIL_FROM: z.string().min(3).default('Voltcrib <voltcrib@localhost>'),
+  MAIL_CRON: z.string().min(9).default('0 * * * * *'),
+  MAIL_POLL_MS: z.coerce.number().int().min(100).max(600_000).default(2000),
+  SCHEDULER: bool.default(true),
 });
 
 export interface Config {
@@ -43,8 +49,10 @@ export interface Config {
   logLevel: string;
   loginRateLimit: number;
   webDir: string;
-  s3: { endpoint: string; region: string; bucket: string; accessKeyId: string; secretAccessKey: string };
+  /** null: development starts a local S3 fake in-process. */
+  s3: { endpoint: string | null; region: string; bucket: string; accessKeyId: string; secretAccessKey: string };
   uploadMaxBytes: number;
+  mail: { smtpUrl: string | null; fakePort: number; from: string; cron: string; pollMs: number; scheduler: boolean };
 }
 
 export class ConfigError extends Error {}
@@ -86,12 +94,13 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     loginRateLimit: e.LOGIN_RATE_LIMIT,
     webDir: e.WEB_DIR,
     s3: {
-      endpoint: e.S3_ENDPOINT,
+      endpoint: e.S3_ENDPOINT ?? null,
       region: e.S3_REGION,
       bucket: e.S3_BUCKET,
       accessKeyId: e.S3_ACCESS_KEY_ID,
       secretAccessKey: e.S3_SECRET_ACCESS_KEY,
     },
     uploadMaxBytes: Math.round(e.UPLOAD_MAX_MB * 1024 * 1024),
+    mail: { smtpUrl: e.SMTP_URL ?? null, fakePort: e.SMTP_FAKE_PORT, from: e.MAIL_FROM, cron: e.MAIL_CRON, pollMs: e.MAIL_POLL_MS, scheduler: e.SCHEDULER },
   };
 }

@@ -10,6 +10,7 @@ import {
   scanSchema,
 } from '../../shared/schemas/bookings';
 import { idParamSchema } from '../../shared/schemas/common';
+import type { Config } from '../config';
 import type { Db } from '../db';
 import { ForbiddenError } from '../errors';
 import { currentUser, requireRole, requireSignedIn } from '../middleware/require-role';
@@ -41,7 +42,8 @@ export function assessmentsRouter(db: Db): Router {
   return router;
 }
 
-export function bookingsRouter(db: Db): Router {
+export function bookingsRouter(db: Db, config: Config): Router {
+  const mail = { publicUrl: config.publicUrl };
   const router = Router();
   const id = (req: Request) => validate(idParamSchema, req.params, 'booking id').id;
   router.use(requireSignedIn);
@@ -50,7 +52,7 @@ export function bookingsRouter(db: Db): Router {
     res.json(await listBookings(db, currentUser(req), validate(bookingListQuerySchema, req.query, 'booking search')));
   });
   router.post('/', async (req, res) => {
-    const booking = await createBooking(db, currentUser(req), validate(bookingCreateSchema, req.body, 'booking'));
+    const booking = await createBooking(db, currentUser(req), validate(bookingCreateSchema, req.body, 'booking'), mail);
     res.status(201).json({ booking });
   });
   router.get('/:id', async (req, res) => {
@@ -58,14 +60,14 @@ export function bookingsRouter(db: Db): Router {
   });
   router.patch('/:id', async (req, res) => {
     const bookingId = id(req);
-    res.json({ booking: await updateBooking(db, currentUser(req), bookingId, validate(bookingUpdateSchema, req.body, 'booking change')) });
+    res.json({ booking: await updateBooking(db, currentUser(req), bookingId, validate(bookingUpdateSchema, req.body, 'booking change'), mail) });
   });
   router.post('/:id/cancel', async (req, res) => {
     res.json({ booking: await cancelBooking(db, currentUser(req), id(req)) });
   });
   router.post('/:id/approval', requireRole('officer'), async (req, res) => {
     const bookingId = id(req);
-    res.json({ booking: await decideApproval(db, currentUser(req), bookingId, validate(approvalDecisionSchema, req.body, 'decision')) });
+    res.json({ booking: await decideApproval(db, currentUser(req), bookingId, validate(approvalDecisionSchema, req.body, 'decision'), mail) });
   });
   router.post('/:id/scans', async (req, res) => {
     const bookingId = id(req);

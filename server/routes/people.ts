@@ -1,10 +1,12 @@
 import { Router } from 'express';
+import { personUpdateSchema } from '../../shared/schemas/accounts';
 import { qualificationSchema } from '../../shared/schemas/bookings';
 import { idParamSchema } from '../../shared/schemas/common';
 import type { Db } from '../db';
 import { ForbiddenError, NotFoundError } from '../errors';
 import { currentUser, requireRole, requireSignedIn } from '../middleware/require-role';
 import { validate } from '../middleware/validate';
+import { updatePerson } from '../services/accounts';
 import { listPeople } from '../services/people';
 import { getQualification, setQualification } from '../services/qualifications';
 
@@ -12,6 +14,11 @@ export function peopleRouter(db: Db): Router {
   const router = Router();
   router.get('/', requireRole('manager'), async (_req, res) => {
     res.json({ people: await listPeople(db) });
+  });
+
+  router.patch('/:id', requireRole('manager'), async (req, res) => {
+    const { id } = validate(idParamSchema, req.params, 'person id');
+    res.json({ person: await updatePerson(db, currentUser(req), id, validate(personUpdateSchema, req.body, 'change')) });
   });
 
   router.get('/:id/qualification', requireSignedIn, async (req, res) => {
@@ -27,6 +34,14 @@ export function peopleRouter(db: Db): Router {
     const { id } = validate(idParamSchema, req.params, 'person id');
     const input = validate(qualificationSchema, req.body, 'qualification');
     res.json({ qualification: await setQualification(db, currentUser(req), id, input) });
+  });
+  return router;
+}
+
+export function groupsRouter(db: Db): Router {
+  const router = Router();
+  router.get('/', requireSignedIn, async (_req, res) => {
+    res.json({ groups: await db('groups').orderBy('name').select('id', 'name') });
   });
   return router;
 }

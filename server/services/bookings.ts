@@ -17,6 +17,8 @@ import type { ItemKind, ItemSummary } from '../../shared/schemas/items';
 import type { Role, SessionUser } from '../../shared/schemas/session';
 import type { Db, Trx } from '../db';
 import { AppError, ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../errors';
+import { messages, type BookingFacts } from '../mail/messages';
+import { enqueueMail } from '../mail/outbox';
 import { appendAudit } from './audit';
 import { activeTemplates, applicableEntries, evaluateAnswers } from './checklists';
 import { timestampToIso, todayIso } from './dates';
@@ -278,6 +280,26 @@ export async function itemAvailability(db: Db, itemId: number, from: Date, to: D
 // ------------------------------------------------------------------------------------------
 // Writing bookings
 
+export interface MailContext {
+  publicUrl: string;
+}
+
+async function factsFor(trx: Trx, bookingId: number): Promise<BookingFacts & { personEmail: string; personId: number }> {
+  const b = await trx('bookings as b').join('people as p', 'p.id', 'b.person_id').where('b.id', bookingId).first('b.id', 'b.person_id', 'b.ends_at', 'b.planned_kv', 'b.purpose', 'p.name', 'p.email');
+  const tags = await trx('booking_items as bi').join('items as i', 'i.id', 'bi.item_id').where('bi.booking_id', bookingId).orderBy('i.tag').pluck('i.tag');
+  return { id: b.id, personId: b.person_id, personName: b.name, personEmail: b.email, plannedKv: Number(b.planned_kv), purpose: b.purpose, endsAt: timestampToIso(b.ends_at)!, itemTags: tags };
+}
+
+/** Approval requests go to every active officer except the booker, once per plan version. */
+async function notifyOfficers(trx: Trx, bookingId: number, planVersion: number, assessment: Assessment, mail: MailContext): Promise<void> {
+  const facts = await factsFor(trx, bookingId);
+  const officers = await trx('people').where({ role: 'officer', active: true }).whereNot('id', facts.personId).select('id', 'email');
+  const content = messages.approvalRequested(mail.publicUrl, facts, assessment.approvalReasons.map((r) => r.message));
+  for (const officer of officers) {
+    await enqueueMail(trx, { kind: 'approval-requested', to: officer.email, dedupeKey: `approval-requested:${bookingId}:${planVersion}:${officer.id}`, ...content });
+  }
+}
+
 /** Refuses when any item is held by another live booking overlapping the window. Items must be locked. */
 async function assertItemsFree(trx: Trx, items: ItemRow[], startsAt: Date, endsAt: Date, exceptBookingId?: number): Promise<void> {
   const clashes = await trx('booking_items as bi')
@@ -308,7 +330,7 @@ function statusFor(assessment: Assessment): BookingStatus {
   return assessment.approvalRequired ? 'awaiting-approval' : 'requested';
 }
 
-export async function createBooking(db: Db, actor: SessionUser, input: BookingCreateInput): Promise<BookingView> {
+export async function createBooking(db: Db, actor: SessionUser, input: BookingCreateInput, mail: MailContext): Promise<BookingView> {
   const startsAt = new Date(input.startsAt);
   const endsAt = new Date(input.endsAt);
   checkWindow(startsAt, endsAt);
@@ -339,12 +361,13 @@ export async function createBooking(db: Db, actor: SessionUser, input: BookingCr
       action: 'booking.created',
       after: { status: record.status, itemIds: items.map((i) => i.id), startsAt: input.startsAt, endsAt: input.endsAt, plan: input.plan, approvalReasons: assessment.approvalReasons.map((r) => r.code) },
     });
+    if (record.status === 'awaiting-approval') await notifyOfficers(trx, bookingId, 1, assessment, mail);
     return bookingId;
   });
   return getBooking(db, actor, id);
 }
 
-export async function updateBooking(db: Db, actor: SessionUser, id: number, input: BookingUpdateInput): Promise<BookingView> {
+export async function updateBooking(db: Db, actor: SessionUser, id: number, input: BookingUpdateInput, mail: MailContext): Promise<BookingView> {
   await db.transaction(async (trx) => {
     const row = await lockBooking(trx, id);
     if (row.person_id !== actor.id) throw new ForbiddenError('Only the person who booked can change the booking.');
@@ -398,6 +421,7 @@ export async function updateBooking(db: Db, actor: SessionUser, id: number, inpu
       before: { status: row.status, planVersion: row.plan_version, itemIds: currentItems, startsAt: row.starts_at, endsAt: row.ends_at, plan: planOf(row), location: row.location, purpose: row.purpose },
       after: { status, planVersion, itemIds, startsAt, endsAt, plan, location: input.location ?? row.location, purpose: input.purpose ?? row.purpose },
     });
+    if (status === 'awaiting-approval' && (bumps || row.status === 'refused')) await notifyOfficers(trx, id, planVersion, assessment, mail);
   });
   return getBooking(db, actor, id);
 }
@@ -415,7 +439,13 @@ export async function cancelBooking(db: Db, actor: SessionUser, id: number): Pro
   return getBooking(db, actor, id);
 }
 
-export async function decideApproval(db: Db, actor: SessionUser, id: number, input: { decision: 'approve' | 'refuse'; conditions?: string; reason?: string }): Promise<BookingView> {
+export async function decideApproval(
+  db: Db,
+  actor: SessionUser,
+  id: number,
+  input: { decision: 'approve' | 'refuse'; conditions?: string; reason?: string },
+  mail: MailContext,
+): Promise<BookingView> {
   await db.transaction(async (trx) => {
     const row = await lockBooking(trx, id);
     // Nobody approves their own test, whatever their role.
@@ -440,6 +470,9 @@ export async function decideApproval(db: Db, actor: SessionUser, id: number, inp
       before: { status: row.status },
       after: { status, planVersion: row.plan_version, conditions: input.conditions ?? null, reason: input.reason ?? null },
     });
+    const facts = await factsFor(trx, id);
+    const note = (input.decision === 'approve' ? input.conditions : input.reason) || null;
+    await enqueueMail(trx, { kind: 'approval-decided', to: facts.personEmail, ...messages.approvalDecided(mail.publicUrl, facts, input.decision, actor.name, note) });
   });
   return getBooking(db, actor, id);
 }

@@ -20,6 +20,7 @@ export interface PersonSummary {
   groupName: string | null;
   active: boolean;
   lastSignInAt: string | null;
+  qualification: { authorisedKv: number; expiresOn: string } | null;
 }
 
 export function toSessionUser(person: Pick<PersonRow, 'id' | 'email' | 'name' | 'role'>): SessionUser {
@@ -37,7 +38,8 @@ export async function recordSignIn(db: Db, personId: number): Promise<void> {
 export async function listPeople(db: Db): Promise<PersonSummary[]> {
   const rows = await db('people as p')
     .leftJoin('groups as g', 'g.id', 'p.group_id')
-    .select('p.id', 'p.email', 'p.name', 'p.role', 'p.active', 'p.last_sign_in_at', 'g.name as group_name')
+    .leftJoin('qualifications as q', 'q.person_id', 'p.id')
+    .select('p.id', 'p.email', 'p.name', 'p.role', 'p.active', 'p.last_sign_in_at', 'g.name as group_name', 'q.authorised_kv', 'q.expires_on')
     .orderBy('p.name');
   return rows.map((r) => ({
     id: r.id,
@@ -47,6 +49,7 @@ export async function listPeople(db: Db): Promise<PersonSummary[]> {
     groupName: r.group_name ?? null,
     active: Boolean(r.active),
     lastSignInAt: r.last_sign_in_at ? new Date(r.last_sign_in_at).toISOString() : null,
+    qualification: r.authorised_kv === null ? null : { authorisedKv: Number(r.authorised_kv), expiresOn: String(r.expires_on) },
   }));
 }
 

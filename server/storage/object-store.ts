@@ -18,7 +18,8 @@ function unavailable(error: unknown): never {
 
 export function createObjectStore(config: Pick<Config, 's3'>): ObjectStore {
   const client = new S3Client({
-    endpoint: config.s3.endpoint,
+    // Without an endpoint the SDK talks to AWS itself (production with a real bucket).
+    endpoint: config.s3.endpoint ?? undefined,
     region: config.s3.region,
     forcePathStyle: true,
     credentials: { accessKeyId: config.s3.accessKeyId, secretAccessKey: config.s3.secretAccessKey },

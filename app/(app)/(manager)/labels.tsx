@@ -1,0 +1,5 @@
+import { LabelsScreen } from '@/components/labels/labels-screen';
+
+export default function LabelsRoute() {
+  return <LabelsScreen />;
+}

@@ -1,0 +1,5 @@
+import { OutboxScreen } from '@/components/outbox/outbox-screen';
+
+export default function OutboxRoute() {
+  return <OutboxScreen />;
+}

@@ -1,0 +1,5 @@
+import { ReportsScreen } from '@/components/reports/reports-screen';
+
+export default function ReportsRoute() {
+  return <ReportsScreen />;
+}

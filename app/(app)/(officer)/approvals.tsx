@@ -1,0 +1,5 @@
+import { ApprovalsScreen } from '@/components/approvals/approvals-screen';
+
+export default function ApprovalsRoute() {
+  return <ApprovalsScreen />;
+}

@@ -1,0 +1,5 @@
+import { TodayScreen } from '@/components/today/today-screen';
+
+export default function TodayRoute() {
+  return <TodayScreen />;
+}

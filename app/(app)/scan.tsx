@@ -1,0 +1,5 @@
+import { ScanScreen } from '@/components/scan/scan-screen';
+
+export default function ScanRoute() {
+  return <ScanScreen />;
+}

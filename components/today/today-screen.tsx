@@ -1,0 +1,57 @@
+import { router } from 'expo-router';
+import { StyleSheet, View } from 'react-native';
+
+import { roleLabels } from '@/components/common/roles';
+import { spacing, type HazardLevel } from '@/components/theme/tokens';
+import { AppText } from '@/components/ui/app-text';
+import { Badge } from '@/components/ui/badge';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { HazardBadge } from '@/components/ui/hazard-badge';
+import { Screen } from '@/components/ui/screen';
+import { useBreakpoints } from '@/hooks/use-breakpoints';
+import { useCurrentUser } from '@/hooks/use-session';
+
+// What each level means in Voltcrib, in the words of the safety-colour convention it follows.
+const hazardLegend: { level: HazardLevel; meaning: string }[] = [
+  { level: 'danger', meaning: 'Will kill or seriously injure if ignored.' },
+  { level: 'warning', meaning: 'Could kill or seriously injure if ignored.' },
+  { level: 'caution', meaning: 'Could cause minor injury or damage gear.' },
+  { level: 'safe', meaning: 'Made safe: de-energised, grounded, checked.' },
+  { level: 'info', meaning: 'Something to know; no hazard by itself.' },
+];
+
+export function TodayScreen() {
+  const user = useCurrentUser();
+  const { isWide } = useBreakpoints();
+  return (
+    <Screen testID="today-screen" title="Today" hideTitle>
+      <View style={styles.greeting}>
+        <AppText variant="display" headingLevel={1} testID="today-greeting">
+          {user ? `Hello, ${user.name}` : 'Hello'}
+        </AppText>
+        {user ? <Badge label={roleLabels[user.role]} tone="primary" icon="badge-account" testID="today-role" /> : null}
+      </View>
+      <AppText>Your next bookings and any overdue gear will show here once booking is built.</AppText>
+      <Button label="Scan a label" icon="qrcode-scan" block={!isWide} testID="today-scan" onPress={() => router.navigate('/scan')} />
+      <Card title="How Voltcrib marks hazards">
+        <View style={styles.legend}>
+          {hazardLegend.map(({ level, meaning }) => (
+            <View key={level} style={styles.legendRow}>
+              <HazardBadge level={level} />
+              <AppText variant="small" tone="muted">
+                {meaning}
+              </AppText>
+            </View>
+          ))}
+        </View>
+      </Card>
+    </Screen>
+  );
+}
+
+const styles = StyleSheet.create({
+  greeting: { gap: spacing.sm },
+  legend: { gap: spacing.md },
+  legendRow: { gap: spacing.xxs },
+});

@@ -1,0 +1,113 @@
+// The one way the app talks to the API: same origin, session cookie, JSON both ways, and the
+// CSRF token on every state-changing request. Failures always surface as an ApiError.
+import { ERROR_CODES, isErrorBody, type FieldErrors } from '@/shared/errors';
+import type { SessionResponse } from '@/shared/schemas/session';
+
+export class ApiError extends Error {
+  readonly status: number;
+  readonly code: string;
+  readonly fieldErrors: FieldErrors | undefined;
+
+  constructor(status: number, code: string, message: string, fieldErrors?: FieldErrors) {
+    super(message);
+    this.name = 'ApiError';
+    this.status = status;
+    this.code = code;
+    this.fieldErrors = fieldErrors;
+  }
+}
+
+export function isApiError(error: unknown): error is ApiError {
+  return error instanceof ApiError;
+}
+
+type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
+
+interface RequestOptions {
+  method?: Method;
+  body?: unknown;
+  signal?: AbortSignal;
+}
+
+const UNREACHABLE_MESSAGE = 'Voltcrib could not reach its server. Check the connection and try again.';
+
+// The token from the last GET /api/session (the session query's fetcher records it). It changes
+// at sign-in and sign-out, so those mutations forget it and the next write fetches a fresh one.
+let csrfToken: string | null = null;
+
+export function forgetCsrfToken(): void {
+  csrfToken = null;
+}
+
+/** GET /api/session. The session query uses this, so the cached session and the token agree. */
+export async function fetchSession(signal?: AbortSignal): Promise<SessionResponse> {
+  const session = await send<SessionResponse>('/api/session', { signal });
+  csrfToken = session.csrfToken;
+  return session;
+}
+
+async function currentCsrfToken(signal?: AbortSignal): Promise<string> {
+  if (csrfToken !== null) return csrfToken;
+  return (await fetchSession(signal)).csrfToken;
+}
+
+export async function apiRequest<T>(path: string, options: RequestOptions = {}): Promise<T> {
+  const method = options.method ?? 'GET';
+  if (method === 'GET') return send<T>(path, options);
+
+  try {
+    return await send<T>(path, { ...options, csrfToken: await currentCsrfToken(options.signal) });
+  } catch (error) {
+    // A token can go stale (session expired, signed in on another tab): fetch a fresh one and
+    // try once more. Writes are not retried for any other reason.
+    if (!(isApiError(error) && error.code === ERROR_CODES.csrf)) throw error;
+    forgetCsrfToken();
+    return send<T>(path, { ...options, csrfToken: await currentCsrfToken(options.signal) });
+  }
+}
+
+async function send<T>(path: string, options: RequestOptions & { csrfToken?: string }): Promise<T> {
+  const headers: Record<string, string> = { accept: 'application/json' };
+  if (options.body !== undefined) headers['content-type'] = 'application/json';
+  if (options.csrfToken !== undefined) headers['x-csrf-token'] = options.csrfToken;
+
+  let response: Response;
+  try {
+    response = await fetch(path, {
+      method: options.method ?? 'GET',
+      headers,
+      credentials: 'same-origin',
+      body: options.body === undefined ? undefined : JSON.stringify(options.body),
+      signal: options.signal,
+    });
+  } catch (error) {
+    if (error instanceof Error && error.name === 'AbortError') throw error;
+    throw new ApiError(0, ERROR_CODES.unavailable, UNREACHABLE_MESSAGE);
+  }
+
+  if (response.status === 204) return undefined as T;
+
+  const payload: unknown = await response.json().catch(() => undefined);
+  if (response.ok) return payload as T;
+
+  if (isErrorBody(payload)) {
+    const { code, message, fieldErrors } = payload.error;
+    throw new ApiError(response.status, code, message, fieldErrors);
+  }
+  throw new ApiError(response.status, fallbackCode(response.status), fallbackMessage(response.status));
+}
+
+function fallbackCode(status: number): string {
+  if (status === 401) return ERROR_CODES.unauthenticated;
+  if (status === 403) return ERROR_CODES.forbidden;
+  if (status === 404) return ERROR_CODES.notFound;
+  if (status === 429) return ERROR_CODES.rateLimited;
+  if (status === 503) return ERROR_CODES.unavailable;
+  return ERROR_CODES.internal;
+}
+
+function fallbackMessage(status: number): string {
+  if (status === 429) return 'Too many attempts. Wait a minute and try again.';
+  if (status === 503 || status === 502 || status === 504) return UNREACHABLE_MESSAGE;
+  return 'Something went wrong on the server. Try again.';
+}

@@ -1,0 +1,70 @@
+// Scheduled reminders. Each message has a dedupe key, so however many servers run this at the
+// same moment, the outbox holds one copy and the worker sends it once.
+import type { Db } from '../db';
+import { enqueueMail } from '../mail/outbox';
+import { messages, type BookingFacts } from '../mail/messages';
+import { addDaysIso, timestampToIso, todayIso } from '../services/dates';
+import { getLabRules } from '../services/lab-rules';
+
+async function bookingFacts(db: Db, ids: number[]): Promise<Map<number, BookingFacts & { personEmail: string; endsAtDate: Date }>> {
+  if (ids.length === 0) return new Map();
+  const rows = await db('bookings as b').join('people as p', 'p.id', 'b.person_id').whereIn('b.id', ids).select('b.id', 'b.ends_at', 'b.planned_kv', 'b.purpose', 'p.name', 'p.email');
+  const tags = await db('booking_items as bi').join('items as i', 'i.id', 'bi.item_id').whereIn('bi.booking_id', ids).orderBy('i.tag').select('bi.booking_id', 'i.tag');
+  return new Map(
+    rows.map((r) => [
+      r.id,
+      {
+        id: r.id,
+        personName: r.name,
+        personEmail: r.email,
+        plannedKv: Number(r.planned_kv),
+        purpose: r.purpose,
+        endsAt: timestampToIso(r.ends_at)!,
+        endsAtDate: new Date(r.ends_at),
+        itemTags: tags.filter((t) => t.booking_id === r.id).map((t) => t.tag),
+      },
+    ]),
+  );
+}
+
+export async function enqueueOverdueReminders(db: Db, publicUrl: string, now = new Date()): Promise<number> {
+  const rules = await getLabRules(db);
+  const overdue = await db('bookings').where('status', 'released').andWhere('ends_at', '<', now).orderBy('id').limit(500).pluck('id');
+  const facts = await bookingFacts(db, overdue);
+  const officers = await db('people').where({ role: 'officer', active: true }).select('id', 'email');
+  let queued = 0;
+  for (const b of facts.values()) {
+    if (await enqueueMail(db, { kind: 'overdue-member', to: b.personEmail, dedupeKey: `overdue-member:${b.id}`, ...messages.overdueToMember(publicUrl, b) })) queued += 1;
+    if (now.getTime() - b.endsAtDate.getTime() >= rules.overdueGraceMin * 60_000) {
+      for (const officer of officers) {
+        const content = messages.overdueToOfficer(publicUrl, b, rules.overdueGraceMin);
+        if (await enqueueMail(db, { kind: 'overdue-officer', to: officer.email, dedupeKey: `overdue-officer:${b.id}:${officer.id}`, ...content })) queued += 1;
+      }
+    }
+  }
+  return queued;
+}
+
+/** One digest a day per manager: items whose inspection is due within 7 days, and overdue ones. */
+export async function enqueueInspectionDigests(db: Db, publicUrl: string, today = todayIso()): Promise<number> {
+  const due = await db('items')
+    .whereNot('status', 'retired')
+    .andWhere('next_inspection_due', '<=', addDaysIso(today, 7))
+    .orderBy('next_inspection_due')
+    .limit(101)
+    .select('id', 'tag', 'name', 'next_inspection_due');
+  if (due.length === 0) return 0;
+  const managers = await db('people').where({ role: 'manager', active: true }).select('id', 'email');
+  const toDue = (i: { tag: string; name: string; next_inspection_due: string }) => ({ tag: i.tag, name: i.name, dueOn: i.next_inspection_due });
+  const content = messages.inspectionDigest(
+    publicUrl,
+    due.filter((i) => i.next_inspection_due < today).map(toDue),
+    due.filter((i) => i.next_inspection_due >= today).map(toDue),
+    today,
+  );
+  let queued = 0;
+  for (const manager of managers) {
+    if (await enqueueMail(db, { kind: 'inspection-digest', to: manager.email, dedupeKey: `inspection-digest:${today}:${manager.id}`, ...content })) queued += 1;
+  }
+  return queued;
+}

@@ -1,0 +1,102 @@
+// The words of every e-mail Voltcrib sends: plain text plus simple HTML, each with a link in.
+export interface MailContent {
+  subject: string;
+  text: string;
+  html: string;
+}
+
+function escapeHtml(value: string): string {
+  return value.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+}
+
+function compose(subject: string, lines: string[], link: { url: string; label: string }): MailContent {
+  const text = [...lines, '', `${link.label}: ${link.url}`, '', '— Voltcrib, the lab’s HV gear register'].join('\n');
+  const html = [
+    '<div style="font-family: sans-serif; font-size: 16px; line-height: 1.5">',
+    ...lines.map((l) => (l ? `<p>${escapeHtml(l)}</p>` : '')),
+    `<p><a href="${escapeHtml(link.url)}">${escapeHtml(link.label)}</a></p>`,
+    '<p style="color:#555">— Voltcrib, the lab’s HV gear register</p>',
+    '</div>',
+  ].join('\n');
+  return { subject, text, html };
+}
+
+export interface BookingFacts {
+  id: number;
+  personName: string;
+  itemTags: string[];
+  plannedKv: number;
+  endsAt: string;
+  purpose: string;
+}
+
+export interface DueItem {
+  tag: string;
+  name: string;
+  dueOn: string;
+}
+
+export const messages = {
+  overdueToMember(baseUrl: string, b: BookingFacts): MailContent {
+    return compose(
+      `Overdue: return HV gear from booking #${b.id}`,
+      [`Hello ${b.personName},`, `Your booking #${b.id} ended at ${b.endsAt} and its gear is still out: ${b.itemTags.join(', ')}.`, 'Make it safe (switch off, unplug, ground with the stick, measure the residual voltage) and return it at the counter.'],
+      { url: `${baseUrl}/bookings/${b.id}`, label: 'Open the booking' },
+    );
+  },
+  overdueToOfficer(baseUrl: string, b: BookingFacts, graceMin: number): MailContent {
+    return compose(
+      `Overdue more than ${graceMin} min: booking #${b.id} (${b.personName})`,
+      [`Booking #${b.id} by ${b.personName} (${b.plannedKv} kV, ${b.purpose}) ended at ${b.endsAt}, and the gear has not come back: ${b.itemTags.join(', ')}.`, 'Please check that the setup has been made safe.'],
+      { url: `${baseUrl}/bookings/${b.id}`, label: 'Open the booking' },
+    );
+  },
+  approvalRequested(baseUrl: string, b: BookingFacts, reasons: string[]): MailContent {
+    return compose(
+      `Approval needed: ${b.plannedKv} kV test by ${b.personName} (booking #${b.id})`,
+      [`${b.personName} asks to run: ${b.purpose}.`, `Gear: ${b.itemTags.join(', ')}.`, 'Why approval is needed:', ...reasons.map((r) => `• ${r}`)],
+      { url: `${baseUrl}/approvals`, label: 'Open the approval queue' },
+    );
+  },
+  approvalDecided(baseUrl: string, b: BookingFacts, decision: 'approve' | 'refuse', officerName: string, note: string | null): MailContent {
+    const approved = decision === 'approve';
+    return compose(
+      `${approved ? 'Approved' : 'Refused'}: your ${b.plannedKv} kV test (booking #${b.id})`,
+      [
+        `Hello ${b.personName},`,
+        `${officerName} ${approved ? 'approved' : 'refused'} your test plan "${b.purpose}".`,
+        note ? `${approved ? 'Conditions' : 'Reason'}: ${note}` : '',
+        approved ? 'At the counter: scan each item, complete the pre-energize checklist, then release.' : 'You can change the plan and ask again.',
+      ],
+      { url: `${baseUrl}/bookings/${b.id}`, label: 'Open the booking' },
+    );
+  },
+  inspectionDigest(baseUrl: string, overdue: DueItem[], soon: DueItem[], today: string): MailContent {
+    const line = (i: DueItem) => `${i.tag} ${i.name}: due ${i.dueOn}`;
+    return compose(
+      `Inspections: ${overdue.length} overdue, ${soon.length} due within 7 days (${today})`,
+      [
+        overdue.length ? 'Overdue (cannot be released until inspected):' : '',
+        ...overdue.slice(0, 50).map(line),
+        soon.length ? 'Due within 7 days (cannot be released after the date):' : '',
+        ...soon.slice(0, 50).map(line),
+        overdue.length + soon.length > 100 ? 'More items are due; see the gear list.' : '',
+      ].filter(Boolean),
+      { url: `${baseUrl}/gear`, label: 'Open the gear list' },
+    );
+  },
+  invitation(baseUrl: string, name: string, inviterName: string, token: string, expiresAt: string): MailContent {
+    return compose(
+      'You are invited to Voltcrib',
+      [`Hello ${name},`, `${inviterName} added you to the lab's Voltcrib, where the shared high-voltage gear is booked and released.`, `Set your password with the link below. It works once and expires at ${expiresAt}.`],
+      { url: `${baseUrl}/invitation/${token}`, label: 'Set your password' },
+    );
+  },
+  passwordReset(baseUrl: string, name: string, token: string, expiresAt: string): MailContent {
+    return compose(
+      'Reset your Voltcrib password',
+      [`Hello ${name},`, 'Someone (hopefully you) asked to reset your Voltcrib password.', `The link below works once and expires at ${expiresAt}. If you did not ask, ignore this e-mail.`],
+      { url: `${baseUrl}/reset-password/${token}`, label: 'Choose a new password' },
+    );
+  },
+};

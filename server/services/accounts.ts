@@ -1,0 +1,111 @@
+// Invitations, password resets and people management. Tokens are random, sent once by e-mail,
+// and stored only as SHA-256 hashes; each works once and expires.
+import { createHash, randomBytes } from 'node:crypto';
+import type { InvitationInput, PersonUpdateInput } from '../../shared/schemas/accounts';
+import type { SessionUser } from '../../shared/schemas/session';
+import { hashPassword } from '../auth/passwords';
+import { isDuplicateKey, type Db, type Trx } from '../db';
+import { AppError, ConflictError, ForbiddenError, NotFoundError } from '../errors';
+import { messages } from '../mail/messages';
+import { enqueueMail } from '../mail/outbox';
+import { appendAudit } from './audit';
+import { endSessionsOf } from './people';
+
+const INVITATION_HOURS = 7 * 24;
+const RESET_MINUTES = 60;
+
+const sha256 = (token: string) => createHash('sha256').update(token).digest('hex');
+
+async function issueToken(trx: Trx, personId: number, purpose: 'invitation' | 'password-reset', lifetimeMs: number) {
+  const token = randomBytes(32).toString('base64url');
+  const expiresAt = new Date(Date.now() + lifetimeMs);
+  // A new link replaces any earlier unused one of the same purpose.
+  await trx('person_tokens').where({ person_id: personId, purpose }).whereNull('used_at').update({ used_at: new Date() });
+  await trx('person_tokens').insert({ person_id: personId, purpose, token_hash: sha256(token), expires_at: expiresAt });
+  return { token, expiresAt };
+}
+
+export async function invitePerson(db: Db, actor: SessionUser, input: InvitationInput, publicUrl: string) {
+  return db.transaction(async (trx) => {
+    let personId: number;
+    try {
+      [personId] = (await trx('people').insert({ email: input.email, name: input.name, role: input.role, group_id: input.groupId ?? null, password_hash: null, active: true })) as [number];
+    } catch (error) {
+      if (isDuplicateKey(error)) throw new ConflictError('Someone with that e-mail is already in Voltcrib.', 'EMAIL_TAKEN');
+      throw error;
+    }
+    const { token, expiresAt } = await issueToken(trx, personId, 'invitation', INVITATION_HOURS * 3600_000);
+    await enqueueMail(trx, { kind: 'invitation', to: input.email, ...messages.invitation(publicUrl, input.name, actor.name, token, expiresAt.toISOString()) });
+    await appendAudit(trx, { actorId: actor.id, entity: 'person', entityId: personId, action: 'person.invited', after: { email: input.email, name: input.name, role: input.role } });
+    return { id: personId, email: input.email, name: input.name, role: input.role };
+  });
+}
+
+/** Uses a token once: sets the password, marks the token used, ends the person's other sessions. */
+async function redeem(db: Db, token: string, purpose: 'invitation' | 'password-reset', password: string): Promise<void> {
+  const hash = await hashPassword(password);
+  const personId = await db.transaction(async (trx) => {
+    const row = await trx('person_tokens').where({ token_hash: sha256(token), purpose }).forUpdate().first();
+    if (!row || row.used_at !== null) throw new AppError(410, 'LINK_USED_OR_INVALID', 'This link is not valid or has already been used. Ask for a new one.');
+    if (new Date(row.expires_at).getTime() < Date.now()) throw new AppError(410, 'LINK_EXPIRED', 'This link has expired. Ask for a new one.');
+    const person = await trx('people').where({ id: row.person_id }).forUpdate().first('id', 'active');
+    if (!person?.active) throw new AppError(410, 'LINK_USED_OR_INVALID', 'This link is not valid or has already been used. Ask for a new one.');
+    await trx('person_tokens').where({ id: row.id }).update({ used_at: new Date() });
+    await trx('people').where({ id: row.person_id }).update({ password_hash: hash, updated_at: new Date() });
+    await appendAudit(trx, { actorId: row.person_id, entity: 'person', entityId: row.person_id, action: purpose === 'invitation' ? 'person.invitation-accepted' : 'person.password-reset' });
+    return row.person_id as number;
+  });
+  // Whoever held a session with the old password is signed out.
+  await endSessionsOf(db, personId);
+}
+
+export const acceptInvitation = (db: Db, token: string, password: string) => redeem(db, token, 'invitation', password);
+export const completePasswordReset = (db: Db, token: string, password: string) => redeem(db, token, 'password-reset', password);
+
+/** Always succeeds from the caller's view: whether the e-mail exists is never revealed. */
+export async function requestPasswordReset(db: Db, email: string, publicUrl: string): Promise<void> {
+  await db.transaction(async (trx) => {
+    const person = await trx('people').where({ email: email.trim().toLowerCase(), active: true }).whereNotNull('password_hash').forUpdate().first('id', 'name', 'email');
+    if (!person) return;
+    const { token, expiresAt } = await issueToken(trx, person.id, 'password-reset', RESET_MINUTES * 60_000);
+    await enqueueMail(trx, { kind: 'password-reset', to: person.email, ...messages.passwordReset(publicUrl, person.name, token, expiresAt.toISOString()) });
+    await appendAudit(trx, { actorId: null, entity: 'person', entityId: person.id, action: 'person.password-reset-requested' });
+  });
+}
+
+export async function updatePerson(db: Db, actor: SessionUser, personId: number, input: PersonUpdateInput) {
+  if (personId === actor.id && (input.active === false || (input.role && input.role !== actor.role))) {
+    throw new ForbiddenError('You cannot deactivate yourself or change your own role; ask another manager.');
+  }
+  const result = await db.transaction(async (trx) => {
+    const before = await trx('people').where({ id: personId }).forUpdate().first('id', 'email', 'name', 'role', 'active', 'group_id');
+    if (!before) throw new NotFoundError(`No person with id ${personId}.`);
+    if (input.groupId) {
+      const group = await trx('groups').where({ id: input.groupId }).first('id');
+      if (!group) throw new NotFoundError(`No group with id ${input.groupId}.`);
+    }
+    const changes = {
+      ...(input.role !== undefined ? { role: input.role } : {}),
+      ...(input.active !== undefined ? { active: input.active } : {}),
+      ...(input.groupId !== undefined ? { group_id: input.groupId } : {}),
+      ...(input.name !== undefined ? { name: input.name } : {}),
+      updated_at: new Date(),
+    };
+    await trx('people').where({ id: personId }).update(changes);
+    const after = await trx('people').where({ id: personId }).first('id', 'email', 'name', 'role', 'active', 'group_id');
+    await appendAudit(trx, {
+      actorId: actor.id,
+      entity: 'person',
+      entityId: personId,
+      action: input.active === false ? 'person.deactivated' : input.active === true && !before.active ? 'person.reactivated' : 'person.updated',
+      before: { role: before.role, active: Boolean(before.active), groupId: before.group_id, name: before.name },
+      after: { role: after.role, active: Boolean(after.active), groupId: after.group_id, name: after.name },
+    });
+    return { before, after };
+  });
+  // Sessions hold a snapshot of the person: a new role or a deactivation must end them at once.
+  if (result.after.role !== result.before.role || (result.before.active && !result.after.active) || result.after.name !== result.before.name) {
+    await endSessionsOf(db, personId);
+  }
+  return { id: personId, email: result.after.email, name: result.after.name, role: result.after.role, active: Boolean(result.after.active), groupId: result.after.group_id };
+}

@@ -1,0 +1,30 @@
+import { z } from 'zod';
+import { roleSchema } from './session';
+
+/** Long enough to resist guessing; no composition rules (they push people to worse passwords). */
+export const passwordSchema = z.string().min(10, 'Use at least 10 characters').max(200);
+
+export const invitationSchema = z
+  .object({
+    email: z.string().trim().toLowerCase().email('Enter a valid e-mail address').max(254),
+    name: z.string().trim().min(2, 'Enter the person’s name').max(120),
+    role: roleSchema,
+    groupId: z.number().int().positive().nullable().optional(),
+  })
+  .strict();
+export type InvitationInput = z.infer<typeof invitationSchema>;
+
+export const setPasswordSchema = z.object({ password: passwordSchema }).strict();
+export const passwordResetRequestSchema = z.object({ email: z.string().trim().toLowerCase().max(254) }).strict();
+export const tokenParamSchema = z.object({ token: z.string().regex(/^[A-Za-z0-9_-]{20,100}$/, 'Invalid link') }).strict();
+
+export const personUpdateSchema = z
+  .object({
+    role: roleSchema.optional(),
+    active: z.boolean().optional(),
+    groupId: z.number().int().positive().nullable().optional(),
+    name: z.string().trim().min(2).max(120).optional(),
+  })
+  .strict()
+  .refine((v) => Object.keys(v).length > 0, 'Nothing to change');
+export type PersonUpdateInput = z.infer<typeof personUpdateSchema>;
