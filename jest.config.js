@@ -18,6 +18,8 @@ const nodeProject = (displayName, roots, extra = {}) => ({
 });
 
 module.exports = {
+  // Browser tests and the contention test need more than jest's 5 s default.
+  testTimeout: 60_000,
   projects: [
     nodeProject('unit', ['<rootDir>/tests/unit']),
     nodeProject('api', ['<rootDir>/tests/api']),

@@ -1,0 +1,95 @@
+// Browser tests: the real server (exported web app + API) on a free loopback port against the test
+// database, driven by Debian's chromium through playwright-core. Never downloads a browser.
+import net from 'node:net';
+import path from 'node:path';
+import type { Server } from 'node:http';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { createApp } from '../../server/app';
+import { createLogger } from '../../server/logger';
+import { startFakeSmtp, type FakeSmtp } from '../../server/mail/fake-smtp';
+import { createDb, type Db } from '../../server/db';
+import { testConfig } from './test-app';
+
+export const PHONE = { width: 390, height: 844 };
+export const WIDE = { width: 1280, height: 800 };
+
+async function freePort(): Promise<number> {
+  const server = net.createServer();
+  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+  const { port } = server.address() as net.AddressInfo;
+  await new Promise<void>((resolve) => server.close(() => resolve()));
+  return port;
+}
+
+export interface E2eServer {
+  baseUrl: string;
+  db: Db;
+  smtp: FakeSmtp;
+  close(): Promise<void>;
+}
+
+export async function startE2eServer(): Promise<E2eServer> {
+  const port = await freePort();
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const config = testConfig({ PORT: String(port), PUBLIC_URL: baseUrl, WEB_DIR: path.resolve(__dirname, '../../dist') });
+  const db = createDb(config);
+  const smtp = await startFakeSmtp();
+  const app = createApp({ db, config, logger: createLogger('silent'), mailbox: smtp });
+  const server: Server = await new Promise((resolve) => {
+    const s = app.listen(port, '127.0.0.1', () => resolve(s));
+  });
+  return {
+    baseUrl,
+    db,
+    smtp,
+    async close() {
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+      server.closeAllConnections?.();
+      await smtp.close();
+      await db.destroy();
+    },
+  };
+}
+
+export interface BrowserHandle {
+  browser: Browser;
+  close(): Promise<void>;
+}
+
+/** Debian's chromium, quiet on a closed network. `fakeVideo` feeds a y4m file as the camera. */
+export async function launchBrowser(options: { fakeVideo?: string } = {}): Promise<BrowserHandle> {
+  // playwright gives every launch a fresh, throw-away profile of its own.
+  const args = [
+    '--no-sandbox',
+    '--disable-gpu',
+    '--disable-quic',
+    '--no-first-run',
+    '--disable-background-networking',
+    '--disable-component-update',
+    '--disable-sync',
+  ];
+  if (options.fakeVideo) {
+    args.push('--use-fake-ui-for-media-stream', '--use-fake-device-for-media-stream', `--use-file-for-fake-video-capture=${options.fakeVideo}`);
+  }
+  const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', headless: true, args });
+  return {
+    browser,
+    close: () => browser.close(),
+  };
+}
+
+export async function newPage(browser: Browser, viewport: { width: number; height: number }, colorScheme: 'light' | 'dark' = 'light'): Promise<{ context: BrowserContext; page: Page }> {
+  const context = await browser.newContext({ viewport, colorScheme });
+  const page = await context.newPage();
+  return { context, page };
+}
+
+export async function signInThroughUi(page: Page, baseUrl: string, email: string, password: string): Promise<void> {
+  await page.goto(`${baseUrl}/`, { waitUntil: 'load' });
+  await page.getByTestId('sign-in-email').fill(email);
+  await page.getByTestId('sign-in-password').fill(password);
+  await page.getByTestId('sign-in-submit').click();
+  await page.getByTestId('today-screen').waitFor({ timeout: 20_000 });
+}
+
+export const SCREENSHOT_DIR = path.resolve(__dirname, '../../test-results');
