@@ -31,7 +31,9 @@ export interface E2eServer {
 export async function startE2eServer(): Promise<E2eServer> {
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
-  const config = testConfig({ PORT: String(port), PUBLIC_URL: baseUrl, WEB_DIR: path.resolve(__dirname, '../../dist') });
+  // VOLTCRIB_E2E_WEB_DIR lets parallel work export the app to its own folder.
+  const webDir = process.env.VOLTCRIB_E2E_WEB_DIR ?? path.resolve(__dirname, '../../dist');
+  const config = testConfig({ PORT: String(port), PUBLIC_URL: baseUrl, WEB_DIR: webDir });
   const db = createDb(config);
   const smtp = await startFakeSmtp();
   const app = createApp({ db, config, logger: createLogger('silent'), mailbox: smtp });
