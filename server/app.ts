@@ -17,6 +17,7 @@ import { calcRouter } from './routes/calc';
 import { checklistTemplatesRouter } from './routes/checklist-templates';
 import { labRulesRouter } from './routes/lab-rules';
 import { mailboxRouter } from './routes/mailbox';
+import { reportsRouter } from './routes/reports';
 import { filesRouter } from './routes/files';
 import { itemsRouter } from './routes/items';
 import { labelsRouter } from './routes/labels';
@@ -106,6 +107,7 @@ export function createApp({ db, config, logger, objectStore, mailbox }: AppDeps)
   app.use('/api/invitations', invitationsRouter(db, config));
   app.use('/api/password-resets', passwordResetsRouter(db, config));
   app.use('/api/mailbox', mailboxRouter(mailbox));
+  app.use('/api/reports', reportsRouter(db));
 
   app.use('/api', apiNotFound);
   app.use(webRouter(config.webDir));

@@ -1,0 +1,45 @@
+import { Router, type Response } from 'express';
+import { z } from 'zod';
+import type { Db } from '../db';
+import { requireRole } from '../middleware/require-role';
+import { validate } from '../middleware/validate';
+import { inspectionRows, overdueRows, toCsv, usageByGroup } from '../services/reports';
+
+const periodSchema = z
+  .object({ from: z.iso.datetime({ offset: true }).optional(), to: z.iso.datetime({ offset: true }).optional() })
+  .strict()
+  .transform((v) => {
+    const to = v.to ? new Date(v.to) : new Date();
+    const from = v.from ? new Date(v.from) : new Date(to.getTime() - 30 * 24 * 3600_000);
+    return { from, to };
+  })
+  .refine((v) => v.to > v.from, { message: 'to must be after from', path: ['to'] })
+  .refine((v) => v.to.getTime() - v.from.getTime() <= 3 * 366 * 24 * 3600_000, { message: 'At most three years', path: ['from'] });
+
+const none = z.object({}).strict();
+
+function sendCsv(res: Response, name: string, body: string): void {
+  res.type('text/csv; charset=utf-8').set('Content-Disposition', `attachment; filename="${name}"`).send(body);
+}
+
+export function reportsRouter(db: Db): Router {
+  const router = Router();
+  router.use(requireRole('manager'));
+  router.get('/usage', async (req, res) => {
+    const { from, to } = validate(periodSchema, req.query, 'period');
+    res.json({ from: from.toISOString(), to: to.toISOString(), groups: await usageByGroup(db, from, to) });
+  });
+  router.get('/usage.csv', async (req, res) => {
+    const { from, to } = validate(periodSchema, req.query, 'period');
+    sendCsv(res, 'voltcrib-usage.csv', toCsv(await usageByGroup(db, from, to) as unknown as Record<string, unknown>[], ['groupName', 'bookings', 'hours', 'people']));
+  });
+  router.get('/overdue.csv', async (req, res) => {
+    validate(none, req.query, 'query');
+    sendCsv(res, 'voltcrib-overdue.csv', toCsv(await overdueRows(db), ['bookingId', 'person', 'email', 'endedAt', 'hoursOverdue', 'plannedKv', 'location']));
+  });
+  router.get('/inspections.csv', async (req, res) => {
+    validate(none, req.query, 'query');
+    sendCsv(res, 'voltcrib-inspections.csv', toCsv(await inspectionRows(db), ['tag', 'name', 'kind', 'location', 'status', 'nextDue', 'overdue']));
+  });
+  return router;
+}
