@@ -1,6 +1,6 @@
 // `npm test`: every suite against a real MariaDB (its own instance, separate from dev) and a real
 // browser. Extra arguments go to jest (e.g. `npm test -- tests/unit`).
-import { spawnSync } from 'node:child_process';
+import { spawn } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { buildWebIfStale } from './build-web';
@@ -31,11 +31,13 @@ async function main(): Promise<number> {
     buildWebIfStale();
     mkdirSync(path.join(ROOT, '.data'), { recursive: true });
     const resultsFile = path.join(ROOT, '.data', 'jest-results.json');
-    const jest = spawnSync(
+    // Asynchronous on purpose: the S3 fake lives in this process and must keep answering.
+    const jest = spawn(
       path.join(ROOT, 'node_modules', '.bin', 'jest'),
       ['--json', `--outputFile=${resultsFile}`, ...process.argv.slice(2)],
       { cwd: ROOT, stdio: 'inherit', env: { ...process.env, NODE_ENV: 'test', VOLTCRIB_TEST_DB_PORT: String(options.port), VOLTCRIB_TEST_S3_ENDPOINT: s3.endpoint } },
     );
+    const status = await new Promise<number | null>((resolve) => jest.once('exit', (code) => resolve(code)));
     let line = `0 passed, 1 failed`;
     if (existsSync(resultsFile)) {
       const summary = JSON.parse(readFileSync(resultsFile, 'utf8')) as JestSummary;
@@ -46,7 +48,7 @@ async function main(): Promise<number> {
     writeFileSync(path.join(ROOT, '.data', 'test-summary.txt'), line + '\n');
     console.log(`\n[test] finished in ${((Date.now() - t0) / 1000).toFixed(0)} s`);
     console.log(line);
-    return jest.status ?? 1;
+    return status ?? 1;
   } finally {
     await s3.close();
     if (started) await stopInstance(options);

@@ -4,12 +4,19 @@ import type { InstanceOptions } from './mariadb';
 
 const credentials = { user: 'voltcrib', password: 'voltcrib-local-only' };
 
+/** A non-default port gets its own data folder, so two checkouts or runs never share one. */
+function folder(base: string, port: number, defaultPort: number): string {
+  return port === defaultPort ? base : `${base}-${port}`;
+}
+
 export function devInstance(env: NodeJS.ProcessEnv = process.env): InstanceOptions {
-  return { name: 'dev', port: Number(env.DB_PORT ?? 3307), database: 'voltcrib_dev', ...credentials };
+  const port = Number(env.DB_PORT ?? 3307);
+  return { name: folder('dev', port, 3307), port, database: 'voltcrib_dev', ...credentials };
 }
 
 export function testInstance(env: NodeJS.ProcessEnv = process.env): InstanceOptions {
-  return { name: 'test', port: Number(env.TEST_DB_PORT ?? 3308), database: 'voltcrib_test', ...credentials };
+  const port = Number(env.TEST_DB_PORT ?? 3308);
+  return { name: folder('test', port, 3308), port, database: 'voltcrib_test', ...credentials };
 }
 
 export function benchInstance(env: NodeJS.ProcessEnv = process.env): InstanceOptions {

@@ -120,7 +120,7 @@ export async function listAudit(db: Db, filter: AuditFilter): Promise<{ events: 
 /** Walks the chain from the start; reports the first entry whose hash does not match. */
 export async function verifyAuditChain(db: Db): Promise<{ ok: boolean; checked: number; brokenAtId: number | null }> {
   // One REPEATABLE READ snapshot, so entries appended during the walk do not look like a break.
-  return db.transaction(async (trx) => walkChain(trx), { isolationLevel: 'repeatable read', readOnly: true });
+  return db.transaction(async (trx) => walkChain(trx), { isolationLevel: 'repeatable read' });
 }
 
 async function walkChain(db: Trx): Promise<{ ok: boolean; checked: number; brokenAtId: number | null }> {
