@@ -24,5 +24,6 @@ module.exports = {
     nodeProject('unit', ['<rootDir>/tests/unit']),
     nodeProject('api', ['<rootDir>/tests/api']),
     nodeProject('e2e', ['<rootDir>/tests/e2e']),
+    nodeProject('faults', ['<rootDir>/tests/faults']),
   ],
 };

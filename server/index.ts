@@ -57,6 +57,10 @@ export async function startServer(env: Record<string, string | undefined> = proc
 }
 
 if (require.main === module) {
+  // A lab server must outlive a database or mail outage: log stray rejections, never exit on them.
+  process.on('unhandledRejection', (reason) => {
+    console.error(JSON.stringify({ level: 'error', msg: 'unhandled rejection', reason: String(reason) }));
+  });
   startServer()
     .then(({ config, port }) => console.log(JSON.stringify({ msg: 'listening', url: `http://${config.host}:${port}`, port })))
     .catch((error: unknown) => {

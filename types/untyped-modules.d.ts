@@ -20,3 +20,29 @@ declare module 'on-headers' {
   import type { ServerResponse } from 'node:http';
   export default function onHeaders(res: ServerResponse, listener: () => void): void;
 }
+
+declare module 'autocannon' {
+  namespace autocannon {
+    interface Options {
+      url: string;
+      method?: string;
+      headers?: Record<string, string>;
+      body?: string;
+      connections?: number;
+      duration?: number;
+    }
+    interface Histogram {
+      average: number;
+      p50: number;
+      p99: number;
+    }
+    interface Result {
+      requests: Histogram;
+      latency: Histogram;
+      errors: number;
+      timeouts: number;
+    }
+  }
+  function autocannon(options: autocannon.Options, callback: (error: Error | null, result: autocannon.Result) => void): unknown;
+  export default autocannon;
+}
