@@ -284,6 +284,8 @@ export async function listInspections(db: Db, itemId: number, limit = 50): Promi
 interface Cursor {
   v: string | number | null;
   id: number;
+  /** How the search text was matched on the first page. */
+  m?: TextMatch;
 }
 
 function encodeCursor(cursor: Cursor): string {
@@ -295,11 +297,15 @@ function decodeCursor(raw: string): Cursor {
     const parsed = JSON.parse(Buffer.from(raw, 'base64url').toString('utf8')) as Cursor;
     if (typeof parsed !== 'object' || parsed === null || !Number.isInteger(parsed.id)) throw new Error('bad');
     if (parsed.v !== null && typeof parsed.v !== 'string' && typeof parsed.v !== 'number') throw new Error('bad');
+    if (parsed.m !== undefined && parsed.m !== 'tag' && parsed.m !== 'words') throw new Error('bad');
     return parsed;
   } catch {
     throw new ValidationError('The page cursor is not valid; start from the first page.', { cursor: ['Invalid cursor'] });
   }
 }
+
+/** Looks like a tag or its start: letters, a dash, then digits (MUL-0007, mul-00). */
+const TAG_LIKE = /^[A-Za-z]{2,5}-[A-Za-z0-9-]*\d[A-Za-z0-9-]*$/;
 
 /** Boolean-mode FULLTEXT terms: every word must match, as a prefix. */
 export function fulltextTerms(q: string): string | null {
@@ -320,7 +326,22 @@ const SORTS = {
   nextDue: { column: 'next_inspection_due', order: 'asc', unique: false, key: (r: ItemRow) => dateColumnToIso(r.next_inspection_due) },
 } as const;
 
+type TextMatch = 'tag' | 'words';
+
 export async function listItems(db: Db, query: ItemListQuery): Promise<{ items: ItemSummary[]; nextCursor: string | null }> {
+  const cursor = query.cursor ? decodeCursor(query.cursor) : null;
+  const q = query.q?.trim() ?? '';
+  // A tag typed off a label is answered by a prefix range on the unique tag index; FULLTEXT would
+  // match every item of that kind code. If no tag starts that way (a serial number looks alike),
+  // the words are searched instead. The cursor remembers which, so later pages stay consistent.
+  if (q && TAG_LIKE.test(q) && cursor?.m !== 'words') {
+    const byTag = await listPage(db, query, cursor, 'tag');
+    if (byTag.items.length > 0 || cursor) return byTag;
+  }
+  return listPage(db, query, cursor, 'words');
+}
+
+async function listPage(db: Db, query: ItemListQuery, cursor: Cursor | null, match: TextMatch): Promise<{ items: ItemSummary[]; nextCursor: string | null }> {
   const sort = SORTS[query.sort];
   const builder = db<ItemRow>('items').select(...SUMMARY_COLUMNS);
   if (query.kind) builder.where('kind', query.kind);
@@ -329,13 +350,16 @@ export async function listItems(db: Db, query: ItemListQuery): Promise<{ items: 
   if (query.minKv !== undefined) builder.where('rated_kv', '>=', query.minKv);
   if (query.due === 'overdue') builder.where('next_inspection_due', '<', todayIso());
   if (query.due === 'soon') builder.where('next_inspection_due', '<=', addDaysIso(todayIso(), DUE_SOON_DAYS));
-  if (query.q) {
-    const terms = fulltextTerms(query.q);
+  const q = query.q?.trim();
+  if (q && match === 'tag') {
+    builder.where('tag', 'like', `${q.toUpperCase().replace(/[%_\\]/g, '')}%`);
+  } else if (q) {
+    const terms = fulltextTerms(q);
     if (terms) builder.whereRaw('MATCH (tag, name, make, model, serial, location) AGAINST (? IN BOOLEAN MODE)', [terms]);
   }
 
-  if (query.cursor) {
-    const { v, id } = decodeCursor(query.cursor);
+  if (cursor) {
+    const { v, id } = cursor;
     const col = sort.column;
     if (sort.unique) {
       if (typeof v !== 'string') throw new ValidationError('The page cursor is not valid; start from the first page.', { cursor: ['Invalid cursor'] });
@@ -357,6 +381,6 @@ export async function listItems(db: Db, query: ItemListQuery): Promise<{ items: 
   const last = page[page.length - 1];
   return {
     items: page.map(toItemSummary),
-    nextCursor: rows.length > query.limit && last ? encodeCursor({ v: sort.key(last), id: last.id }) : null,
+    nextCursor: rows.length > query.limit && last ? encodeCursor({ v: sort.key(last), id: last.id, m: match }) : null,
   };
 }

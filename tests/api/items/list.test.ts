@@ -86,3 +86,15 @@ describe('GET /api/items', () => {
     }
   });
 });
+
+describe('GET /api/items with a tag-shaped search', () => {
+  it('finds by tag prefix, and still finds a serial number that looks like a tag', async () => {
+    const first = created[0]!;
+    const prefix = first.tag.slice(0, first.tag.length - 1);
+    const byPrefix = await manager.agent.get(`/api/items?q=${encodeURIComponent(prefix.toLowerCase())}&limit=100`).expect(200);
+    expect(byPrefix.body.items.every((i: { tag: string }) => i.tag.startsWith(prefix))).toBe(true);
+    expect(byPrefix.body.items.map((i: { id: number }) => i.id)).toContain(first.id);
+    const serial = await manager.agent.get(`/api/items?q=SN-${word}`).expect(200);
+    expect(serial.body.items.length).toBeGreaterThan(0);
+  });
+});
