@@ -12,6 +12,8 @@ import { Screen } from '@/components/ui/screen';
 import { useBreakpoints } from '@/hooks/use-breakpoints';
 import { useCurrentUser } from '@/hooks/use-session';
 
+import { ApprovalsWaiting, MyGearOut, MyNextBookings } from './today-lists';
+
 // What each level means in Voltcrib, in the words of the safety-colour convention it follows.
 const hazardLegend: { level: HazardLevel; meaning: string }[] = [
   { level: 'danger', meaning: 'Will kill or seriously injure if ignored.' },
@@ -21,6 +23,7 @@ const hazardLegend: { level: HazardLevel; meaning: string }[] = [
   { level: 'info', meaning: 'Something to know; no hazard by itself.' },
 ];
 
+/** The day at a glance: gear out (overdue first), next bookings, and for officers the queue. */
 export function TodayScreen() {
   const user = useCurrentUser();
   const { isWide } = useBreakpoints();
@@ -32,8 +35,14 @@ export function TodayScreen() {
         </AppText>
         {user ? <Badge label={roleLabels[user.role]} tone="primary" icon="badge-account" testID="today-role" /> : null}
       </View>
-      <AppText>Your next bookings and any overdue gear will show here once booking is built.</AppText>
       <Button label="Scan a label" icon="qrcode-scan" block={!isWide} testID="today-scan" onPress={() => router.navigate('/scan')} />
+      {user ? (
+        <>
+          <MyGearOut />
+          {user.role === 'officer' ? <ApprovalsWaiting officerId={user.id} /> : null}
+          <MyNextBookings />
+        </>
+      ) : null}
       <Card title="How Voltcrib marks hazards">
         <View style={styles.legend}>
           {hazardLegend.map(({ level, meaning }) => (

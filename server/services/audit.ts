@@ -2,6 +2,7 @@
 // deleted by the application. Each entry hashes the previous one, so `verifyAuditChain` finds any
 // edit or removal made behind the application's back.
 import { createHash } from 'node:crypto';
+import type { AuditEvent, AuditPage, AuditVerification } from '../../shared/schemas/audit';
 import type { Db, Trx } from '../db';
 
 export interface AuditInput {
@@ -13,17 +14,6 @@ export interface AuditInput {
   after?: unknown;
 }
 
-export interface AuditEvent {
-  id: number;
-  at: string;
-  actorId: number | null;
-  actorName: string | null;
-  entity: string;
-  entityId: string;
-  action: string;
-  before: unknown;
-  after: unknown;
-}
 
 function canonical(value: unknown): string {
   if (value === undefined || value === null) return 'null';
@@ -90,7 +80,7 @@ export interface AuditFilter {
   limit: number;
 }
 
-export async function listAudit(db: Db, filter: AuditFilter): Promise<{ events: AuditEvent[]; nextCursor: string | null }> {
+export async function listAudit(db: Db, filter: AuditFilter): Promise<AuditPage> {
   const query = db('audit_events as a')
     .leftJoin('people as p', 'p.id', 'a.actor_id')
     .select('a.id', 'a.at', 'a.actor_id', 'p.name as actor_name', 'a.entity', 'a.entity_id', 'a.action', 'a.before', 'a.after')
@@ -118,12 +108,12 @@ export async function listAudit(db: Db, filter: AuditFilter): Promise<{ events: 
 }
 
 /** Walks the chain from the start; reports the first entry whose hash does not match. */
-export async function verifyAuditChain(db: Db): Promise<{ ok: boolean; checked: number; brokenAtId: number | null }> {
+export async function verifyAuditChain(db: Db): Promise<AuditVerification> {
   // One REPEATABLE READ snapshot, so entries appended during the walk do not look like a break.
   return db.transaction(async (trx) => walkChain(trx), { isolationLevel: 'repeatable read' });
 }
 
-async function walkChain(db: Trx): Promise<{ ok: boolean; checked: number; brokenAtId: number | null }> {
+async function walkChain(db: Trx): Promise<AuditVerification> {
   let prevHash = '0'.repeat(64);
   let checked = 0;
   let lastId = 0;

@@ -5,6 +5,10 @@ import { assessSetup, type AssessedItem, type Assessment } from '../../shared/ru
 import { releaseFailures } from '../../shared/rules/release';
 import {
   LIVE_STATUSES,
+  type Booking,
+  type BookingSummary,
+  type BusyWindow,
+  type ItemBooking,
   type BookingCreateInput,
   type BookingStatus,
   type BookingUpdateInput,
@@ -99,31 +103,6 @@ export async function assessPlan(db: Db, itemIds: number[], plan: TestPlan, pers
 // ------------------------------------------------------------------------------------------
 // Reading bookings
 
-export interface BookingView {
-  id: number;
-  personId: number;
-  personName: string;
-  status: BookingStatus;
-  overdue: boolean;
-  startsAt: string;
-  endsAt: string;
-  location: string;
-  purpose: string;
-  plan: TestPlan;
-  planVersion: number;
-  itemIds: number[];
-  items: ItemSummary[];
-  assessment: Assessment;
-  approvalRequired: boolean;
-  approval: { decision: 'approve' | 'refuse'; officerName: string; conditions: string | null; reason: string | null; decidedAt: string; current: boolean } | null;
-  checklist: { pre: ChecklistEntry[]; return: ChecklistEntry[] };
-  checklistRuns: { pre: { completedAt: string; withinLimits: boolean } | null; return: { completedAt: string; withinLimits: boolean } | null };
-  scannedItemIds: number[];
-  releasedAt: string | null;
-  returnedAt: string | null;
-  cancelledAt: string | null;
-  createdAt: string;
-}
 
 function canSee(actor: SessionUser, row: Pick<BookingRow, 'person_id'>): boolean {
   return row.person_id === actor.id || STAFF.includes(actor.role);
@@ -157,7 +136,7 @@ async function latestRun(db: Db | Trx, row: BookingRow, phase: 'pre' | 'return')
   return run ? { complete: Boolean(run.complete), withinLimits: Boolean(run.within_limits), completedAt: timestampToIso(run.completed_at)! } : null;
 }
 
-export async function bookingView(db: Db | Trx, row: BookingRow): Promise<BookingView> {
+export async function bookingView(db: Db | Trx, row: BookingRow): Promise<Booking> {
   const [person, itemRows, scans, approval, pre, ret, templates, rules] = await Promise.all([
     db('people').where({ id: row.person_id }).first('name'),
     db('booking_items as bi').join('items as i', 'i.id', 'bi.item_id').where('bi.booking_id', row.id).orderBy('i.tag').select('i.*'),
@@ -200,26 +179,12 @@ export async function bookingView(db: Db | Trx, row: BookingRow): Promise<Bookin
   };
 }
 
-export async function getBooking(db: Db, actor: SessionUser, id: number): Promise<BookingView> {
+export async function getBooking(db: Db, actor: SessionUser, id: number): Promise<Booking> {
   const row = await db<BookingRow>('bookings').where({ id }).first();
   if (!row || !canSee(actor, row)) throw new NotFoundError(`No booking with id ${id}.`);
   return bookingView(db, row);
 }
 
-export interface BookingSummary {
-  id: number;
-  personId: number;
-  personName: string;
-  status: BookingStatus;
-  overdue: boolean;
-  startsAt: string;
-  endsAt: string;
-  location: string;
-  purpose: string;
-  plannedKv: number;
-  approvalRequired: boolean;
-  itemTags: string[];
-}
 
 export async function listBookings(
   db: Db,
@@ -264,7 +229,7 @@ export async function listBookings(
 }
 
 /** Live bookings holding an item in a window: what the booking form shows as availability. */
-export async function itemAvailability(db: Db, itemId: number, from: Date, to: Date) {
+export async function itemAvailability(db: Db, itemId: number, from: Date, to: Date): Promise<BusyWindow[]> {
   const rows = await db('booking_items as bi')
     .join('bookings as b', 'b.id', 'bi.booking_id')
     .join('people as p', 'p.id', 'b.person_id')
@@ -330,7 +295,7 @@ function statusFor(assessment: Assessment): BookingStatus {
   return assessment.approvalRequired ? 'awaiting-approval' : 'requested';
 }
 
-export async function createBooking(db: Db, actor: SessionUser, input: BookingCreateInput, mail: MailContext): Promise<BookingView> {
+export async function createBooking(db: Db, actor: SessionUser, input: BookingCreateInput, mail: MailContext): Promise<Booking> {
   const startsAt = new Date(input.startsAt);
   const endsAt = new Date(input.endsAt);
   checkWindow(startsAt, endsAt);
@@ -367,7 +332,7 @@ export async function createBooking(db: Db, actor: SessionUser, input: BookingCr
   return getBooking(db, actor, id);
 }
 
-export async function updateBooking(db: Db, actor: SessionUser, id: number, input: BookingUpdateInput, mail: MailContext): Promise<BookingView> {
+export async function updateBooking(db: Db, actor: SessionUser, id: number, input: BookingUpdateInput, mail: MailContext): Promise<Booking> {
   await db.transaction(async (trx) => {
     const row = await lockBooking(trx, id);
     if (row.person_id !== actor.id) throw new ForbiddenError('Only the person who booked can change the booking.');
@@ -426,7 +391,7 @@ export async function updateBooking(db: Db, actor: SessionUser, id: number, inpu
   return getBooking(db, actor, id);
 }
 
-export async function cancelBooking(db: Db, actor: SessionUser, id: number): Promise<BookingView> {
+export async function cancelBooking(db: Db, actor: SessionUser, id: number): Promise<Booking> {
   await db.transaction(async (trx) => {
     const row = await lockBooking(trx, id);
     if (!canSee(actor, row)) throw new NotFoundError(`No booking with id ${id}.`);
@@ -445,7 +410,7 @@ export async function decideApproval(
   id: number,
   input: { decision: 'approve' | 'refuse'; conditions?: string; reason?: string },
   mail: MailContext,
-): Promise<BookingView> {
+): Promise<Booking> {
   await db.transaction(async (trx) => {
     const row = await lockBooking(trx, id);
     // Nobody approves their own test, whatever their role.
@@ -481,7 +446,7 @@ function assertCounterAccess(actor: SessionUser, row: BookingRow): void {
   if (!canSee(actor, row)) throw new NotFoundError(`No booking with id ${row.id}.`);
 }
 
-export async function recordScan(db: Db, actor: SessionUser, id: number, tag: string): Promise<BookingView> {
+export async function recordScan(db: Db, actor: SessionUser, id: number, tag: string): Promise<Booking> {
   await db.transaction(async (trx) => {
     const row = await lockBooking(trx, id);
     assertCounterAccess(actor, row);
@@ -499,7 +464,7 @@ export async function recordScan(db: Db, actor: SessionUser, id: number, tag: st
   return getBooking(db, actor, id);
 }
 
-export async function submitChecklist(db: Db, actor: SessionUser, id: number, input: ChecklistSubmitInput): Promise<BookingView> {
+export async function submitChecklist(db: Db, actor: SessionUser, id: number, input: ChecklistSubmitInput): Promise<Booking> {
   await db.transaction(async (trx) => {
     const row = await lockBooking(trx, id);
     assertCounterAccess(actor, row);
@@ -537,7 +502,7 @@ export async function submitChecklist(db: Db, actor: SessionUser, id: number, in
   return getBooking(db, actor, id);
 }
 
-export async function releaseBooking(db: Db, actor: SessionUser, id: number, now = new Date()): Promise<BookingView> {
+export async function releaseBooking(db: Db, actor: SessionUser, id: number, now = new Date()): Promise<Booking> {
   await db.transaction(async (trx) => {
     const row = await lockBooking(trx, id);
     assertCounterAccess(actor, row);
@@ -581,7 +546,7 @@ export async function releaseBooking(db: Db, actor: SessionUser, id: number, now
   return getBooking(db, actor, id);
 }
 
-export async function returnBooking(db: Db, actor: SessionUser, id: number, input: { damagedItemIds: number[]; notes: string }): Promise<BookingView> {
+export async function returnBooking(db: Db, actor: SessionUser, id: number, input: { damagedItemIds: number[]; notes: string }): Promise<Booking> {
   await db.transaction(async (trx) => {
     const row = await lockBooking(trx, id);
     assertCounterAccess(actor, row);
@@ -616,7 +581,7 @@ export async function returnBooking(db: Db, actor: SessionUser, id: number, inpu
 }
 
 /** An item's booking history for its page (newest first). */
-export async function itemBookingHistory(db: Db, itemId: number, limit = 50) {
+export async function itemBookingHistory(db: Db, itemId: number, limit = 50): Promise<ItemBooking[]> {
   const rows = await db('booking_items as bi')
     .join('bookings as b', 'b.id', 'bi.booking_id')
     .join('people as p', 'p.id', 'b.person_id')

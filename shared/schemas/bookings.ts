@@ -1,6 +1,7 @@
 // Booking payloads, lab rules and qualifications: one schema each, for the form and the API.
 import { z } from 'zod';
-import { polaritySchema } from './items';
+import type { Assessment } from '../rules/assessment';
+import { polaritySchema, type ItemSummary } from './items';
 
 export const BOOKING_STATUSES = ['requested', 'awaiting-approval', 'approved', 'refused', 'released', 'returned', 'cancelled'] as const;
 export type BookingStatus = (typeof BOOKING_STATUSES)[number];
@@ -165,4 +166,83 @@ export interface ChecklistEntry {
   min?: number;
   max?: number;
   required: boolean;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Response shapes (the server builds them, the app reads them).
+
+export interface BookingApproval {
+  decision: 'approve' | 'refuse';
+  officerName: string;
+  conditions: string | null;
+  reason: string | null;
+  decidedAt: string;
+  /** False once the plan changed after the decision: it no longer covers the booking. */
+  current: boolean;
+}
+
+export interface ChecklistRunState {
+  completedAt: string;
+  withinLimits: boolean;
+}
+
+export interface Booking {
+  id: number;
+  personId: number;
+  personName: string;
+  status: BookingStatus;
+  overdue: boolean;
+  startsAt: string;
+  endsAt: string;
+  location: string;
+  purpose: string;
+  plan: TestPlan;
+  planVersion: number;
+  itemIds: number[];
+  items: ItemSummary[];
+  assessment: Assessment;
+  approvalRequired: boolean;
+  approval: BookingApproval | null;
+  checklist: { pre: ChecklistEntry[]; return: ChecklistEntry[] };
+  checklistRuns: { pre: ChecklistRunState | null; return: ChecklistRunState | null };
+  scannedItemIds: number[];
+  releasedAt: string | null;
+  returnedAt: string | null;
+  cancelledAt: string | null;
+  createdAt: string;
+}
+
+export interface BookingSummary {
+  id: number;
+  personId: number;
+  personName: string;
+  status: BookingStatus;
+  overdue: boolean;
+  startsAt: string;
+  endsAt: string;
+  location: string;
+  purpose: string;
+  plannedKv: number;
+  approvalRequired: boolean;
+  itemTags: string[];
+}
+
+/** One line of an item's booking history. */
+export interface ItemBooking {
+  bookingId: number;
+  status: BookingStatus;
+  overdue: boolean;
+  startsAt: string;
+  endsAt: string;
+  plannedKv: number;
+  personName: string;
+}
+
+/** A live booking holding an item in a window. */
+export interface BusyWindow {
+  bookingId: number;
+  status: BookingStatus;
+  startsAt: string;
+  endsAt: string;
+  personName: string;
 }

@@ -1,0 +1,5 @@
+import { BookScreen } from '@/components/bookings/book-screen';
+
+export default function NewBookingRoute() {
+  return <BookScreen />;
+}

@@ -1,0 +1,37 @@
+// Display of the assessment's numbers: each one with its unit, rounded for reading at a bench.
+import { formatQuantity, type Marker } from '@/shared/hv';
+
+/** Up to `decimals` places, without trailing zeros: 25 → "25", 27.5 → "27.5". */
+export function trimNumber(value: number, decimals = 2): string {
+  return String(Number(value.toFixed(decimals)));
+}
+
+export function formatKv(kv: number): string {
+  return `${trimNumber(kv, 2)} kV`;
+}
+
+/** SI prefix chosen for the size: 0.0625 J → "62.5 mJ". */
+export function formatSi(value: number, unit: string): string {
+  return Number.isFinite(value) ? formatQuantity({ value, unit }) : `— ${unit}`;
+}
+
+/** 8.4 → "8.4 s"; 125 → "2 min 5 s". */
+export function formatSeconds(seconds: number): string {
+  if (seconds < 60) return `${trimNumber(seconds, 1)} s`;
+  const minutes = Math.floor(seconds / 60);
+  const rest = Math.round(seconds - minutes * 60);
+  return rest === 0 ? `${minutes} min` : `${minutes} min ${rest} s`;
+}
+
+export function formatMetres(metres: number | null, printed: string): string {
+  return metres === null ? printed : `${trimNumber(metres, 2)} m (${printed})`;
+}
+
+/** How far a standard's number can be trusted, in words (shared/hv/data/types.ts). */
+export const markerWords: Record<Marker, string> = {
+  confirmed: 'confirmed against the standard',
+  'partly-confirmed': 'partly confirmed',
+  'from-memory': 'unconfirmed: check against the purchased standard',
+  'common-practice': 'common practice, no single standard',
+  derived: 'derived from confirmed formulas',
+};

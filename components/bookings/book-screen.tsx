@@ -1,0 +1,39 @@
+import { AppText } from '@/components/ui/app-text';
+import { ErrorState } from '@/components/ui/error-state';
+import { LoadingState } from '@/components/ui/loading-state';
+import { Screen } from '@/components/ui/screen';
+import { useBookingQuery } from '@/hooks/use-bookings';
+import { useBreakpoints } from '@/hooks/use-breakpoints';
+
+import { BackLink } from './back-link';
+import { BookForm } from './book-form';
+
+/** A new booking. */
+export function BookScreen() {
+  const { isWide } = useBreakpoints();
+  return (
+    <Screen testID="book-screen" title="Book gear" width={isWide ? 'wide' : 'regular'}>
+      <BackLink href="/bookings" label="Bookings" />
+      <AppText tone="muted">Pick the gear and describe the test: its safety assessment updates as you type.</AppText>
+      <BookForm />
+    </Screen>
+  );
+}
+
+/** Changing a booking's gear, window or plan (before release). */
+export function EditBookingScreen({ id }: { id: number }) {
+  const { isWide } = useBreakpoints();
+  const booking = useBookingQuery(id);
+  return (
+    <Screen testID="edit-booking-screen" title={`Change booking ${id}`} width={isWide ? 'wide' : 'regular'}>
+      <BackLink href={{ pathname: '/bookings/[id]', params: { id: String(id) } }} label={`Booking ${id}`} />
+      {booking.isPending ? (
+        <LoadingState label="Loading the booking" />
+      ) : booking.isError ? (
+        <ErrorState title="The booking did not load" error={booking.error} onRetry={() => void booking.refetch()} retrying={booking.isFetching} />
+      ) : (
+        <BookForm booking={booking.data} />
+      )}
+    </Screen>
+  );
+}

@@ -1,0 +1,60 @@
+import { StyleSheet, View } from 'react-native';
+
+import { trimNumber } from '@/components/assessment/quantities';
+import { borders, spacing } from '@/components/theme/tokens';
+import { useTheme } from '@/components/theme/use-theme';
+import { AppText } from '@/components/ui/app-text';
+import { Card } from '@/components/ui/card';
+import { ErrorState } from '@/components/ui/error-state';
+import { LoadingState } from '@/components/ui/loading-state';
+import { useChecklistTemplatesQuery, type ChecklistTemplate } from '@/hooks/use-checklist-templates';
+import { KIND_LABELS, type ItemKind } from '@/shared/schemas/items';
+
+function conditions(line: ChecklistTemplate): string {
+  const parts: string[] = [];
+  if (line.appliesFromKv !== null) parts.push(`from ${trimNumber(line.appliesFromKv)} kV`);
+  if (line.appliesWithKind !== null) parts.push(`with a ${KIND_LABELS[line.appliesWithKind as ItemKind] ?? line.appliesWithKind}`);
+  const limits =
+    line.kind === 'reading'
+      ? ` · ${line.min ?? '—'} to ${line.maxFromRule === 'safeResidualV' ? "the lab's safe residual voltage" : (line.max ?? '—')} ${line.unit ?? ''}`
+      : '';
+  return `${line.kind === 'confirm' ? 'Confirm' : line.kind === 'reading' ? 'Reading' : 'Photo'}${line.required ? '' : ', optional'} · ${parts.length > 0 ? `applies ${parts.join(' and ')}` : 'always applies'}${limits}`;
+}
+
+/** The checklists the release and the return ask for, as the lab keeps them now. */
+export function ChecklistLines() {
+  const { colors } = useTheme();
+  const templates = useChecklistTemplatesQuery();
+  return (
+    <Card title="Checklist lines" testID="checklist-lines">
+      {templates.isPending ? (
+        <LoadingState label="Loading the checklists" />
+      ) : templates.isError ? (
+        <ErrorState title="The checklists did not load" error={templates.error} onRetry={() => void templates.refetch()} retrying={templates.isFetching} />
+      ) : templates.data.length === 0 ? (
+        <AppText tone="muted">No checklist lines. Releases then ask for no pre-energize checks: add lines before the next test.</AppText>
+      ) : (
+        (['pre', 'return'] as const).map((phase) => (
+          <View key={phase} style={styles.phase}>
+            <AppText variant="bodyStrong">{phase === 'pre' ? 'Pre-energize (at release)' : 'Make-safe (at return)'}</AppText>
+            {templates.data
+              .filter((line) => line.phase === phase)
+              .map((line, index) => (
+                <View key={line.id} style={[styles.line, index > 0 && { borderTopWidth: borders.hairline, borderTopColor: colors.border }]}>
+                  <AppText>{line.text}</AppText>
+                  <AppText variant="small" tone="muted">
+                    {conditions(line)}
+                  </AppText>
+                </View>
+              ))}
+          </View>
+        ))
+      )}
+    </Card>
+  );
+}
+
+const styles = StyleSheet.create({
+  phase: { gap: spacing.xs },
+  line: { gap: spacing.xxs, paddingVertical: spacing.xs },
+});

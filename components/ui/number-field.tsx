@@ -1,0 +1,68 @@
+import { useEffect, useState, type Ref } from 'react';
+import type { TextInput } from 'react-native';
+
+import { TextField } from './text-field';
+
+interface NumberFieldProps {
+  /** The quantity, without its unit: the unit is added to the visible label. */
+  label: string;
+  /** Always shown: a number without its unit means nothing at the bench. */
+  unit: string;
+  value: number | null | undefined;
+  /** `undefined` when empty, `NaN` when the text is not a number (the schema then refuses it). */
+  onChange: (value: number | undefined) => void;
+  onBlur?: () => void;
+  error?: string;
+  hint?: string;
+  /** Whole numbers only (people, minutes). */
+  integer?: boolean;
+  disabled?: boolean;
+  testID?: string;
+  ref?: Ref<TextInput>;
+}
+
+/** Accepts a comma as the decimal mark too: half the lab writes 2,5 kV. */
+export function parseNumber(text: string): number | undefined {
+  const trimmed = text.trim().replace(',', '.');
+  if (trimmed === '') return undefined;
+  return /^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(trimmed) ? Number(trimmed) : Number.NaN;
+}
+
+/** A schema's "expected number" wording, said the way a person would. */
+function friendlyError(error: string | undefined): string | undefined {
+  if (error === undefined) return undefined;
+  return /expected number/i.test(error) ? 'Enter a number' : error;
+}
+
+/** A labelled numeric input that keeps the typed text (so "2." survives) and reports a number. */
+export function NumberField({ label, unit, value, onChange, onBlur, error, hint, integer = false, disabled, testID, ref }: NumberFieldProps) {
+  const [text, setText] = useState(value === undefined || value === null || Number.isNaN(value) ? '' : String(value));
+
+  // Follow outside changes (a reset, a prefilled edit) without fighting the person's typing.
+  useEffect(() => {
+    const typed = parseNumber(text);
+    const same = typed === value || (typed !== undefined && value !== undefined && value !== null && Number.isNaN(typed) && Number.isNaN(value));
+    if (!same) setText(value === undefined || value === null || Number.isNaN(value) ? '' : String(value));
+    // Deliberately keyed on the value only: the person's own typing must not rewrite the text.
+  }, [value]);
+
+  return (
+    <TextField
+      ref={ref}
+      label={`${label} (${unit})`}
+      value={text}
+      onChangeText={(next) => {
+        setText(next);
+        onChange(parseNumber(next));
+      }}
+      onBlur={onBlur}
+      error={friendlyError(error)}
+      hint={hint}
+      disabled={disabled}
+      testID={testID}
+      inputMode={integer ? 'numeric' : 'decimal'}
+      keyboardType={integer ? 'number-pad' : 'decimal-pad'}
+      autoCorrect={false}
+    />
+  );
+}

@@ -1,0 +1,70 @@
+import { useInfiniteQuery, useQuery } from '@tanstack/react-query';
+
+import { apiRequest } from './api-client';
+
+// The server owns this shape (server/services/audit.ts); a shared type can replace it.
+export interface AuditEvent {
+  id: number;
+  at: string;
+  actorId: number | null;
+  actorName: string | null;
+  entity: string;
+  entityId: string;
+  action: string;
+  before: unknown;
+  after: unknown;
+}
+
+export interface AuditPage {
+  events: AuditEvent[];
+  nextCursor: string | null;
+}
+
+export interface AuditFilter {
+  entity?: string;
+  id?: string;
+}
+
+export interface AuditVerification {
+  ok: boolean;
+  checked: number;
+  brokenAtId: number | null;
+}
+
+export const auditKeys = {
+  all: ['audit'] as const,
+  lists: () => [...auditKeys.all, 'list'] as const,
+  list: (filter: AuditFilter) => [...auditKeys.lists(), filter] as const,
+  verify: () => [...auditKeys.all, 'verify'] as const,
+};
+
+const PAGE_SIZE = 30;
+
+function auditPath(filter: AuditFilter, cursor: string | null): string {
+  const params = new URLSearchParams({ limit: String(PAGE_SIZE) });
+  if (filter.entity) params.set('entity', filter.entity);
+  if (filter.id) params.set('id', filter.id);
+  if (cursor) params.set('cursor', cursor);
+  return `/api/audit?${params.toString()}`;
+}
+
+/** Newest first; each page continues below the last id of the one before. */
+export function useAuditInfiniteQuery(filter: AuditFilter) {
+  return useInfiniteQuery({
+    queryKey: auditKeys.list(filter),
+    queryFn: ({ pageParam, signal }) => apiRequest<AuditPage>(auditPath(filter, pageParam), { signal }),
+    initialPageParam: null as string | null,
+    getNextPageParam: (last) => last.nextCursor,
+  });
+}
+
+/** Walks the whole hash chain on the server: run on request only, never in the background. */
+export function useAuditVerificationQuery() {
+  return useQuery({
+    queryKey: auditKeys.verify(),
+    queryFn: ({ signal }) => apiRequest<AuditVerification>('/api/audit/verify', { signal }),
+    enabled: false,
+    staleTime: 0,
+    retry: false,
+  });
+}

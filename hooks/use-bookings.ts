@@ -1,0 +1,325 @@
+// Bookings and the safety gate's steps: list, detail, create/change/cancel, the officer's decision,
+// and the counter steps (scan, checklist, release, return). Every mutation refreshes the bookings
+// cache (and what depends on it) itself, so screens never invalidate anything.
+import { useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+
+import type { Assessment } from '@/shared/rules/assessment';
+import { releaseFailures } from '@/shared/rules/release';
+import type {
+  BookingCreateInput,
+  BookingStatus,
+  BookingUpdateInput,
+  ChecklistEntry,
+  ChecklistSubmitInput,
+  LabRules,
+  TestPlan,
+} from '@/shared/schemas/bookings';
+import type { ItemSummary } from '@/shared/schemas/items';
+
+import { apiRequest, isApiError } from './api-client';
+import { auditKeys } from './use-audit';
+import { bookingGearKeys } from './use-booking-gear';
+
+// The server owns these shapes (server/services/bookings.ts: BookingSummary, BookingView).
+export interface BookingSummary {
+  id: number;
+  personId: number;
+  personName: string;
+  status: BookingStatus;
+  overdue: boolean;
+  startsAt: string;
+  endsAt: string;
+  location: string;
+  purpose: string;
+  plannedKv: number;
+  approvalRequired: boolean;
+  itemTags: string[];
+}
+
+export interface BookingApproval {
+  decision: 'approve' | 'refuse';
+  officerName: string;
+  conditions: string | null;
+  reason: string | null;
+  decidedAt: string;
+  /** False once the plan changed after the decision: it no longer covers the booking. */
+  current: boolean;
+}
+
+export interface ChecklistRunState {
+  completedAt: string;
+  withinLimits: boolean;
+}
+
+export interface Booking {
+  id: number;
+  personId: number;
+  personName: string;
+  status: BookingStatus;
+  overdue: boolean;
+  startsAt: string;
+  endsAt: string;
+  location: string;
+  purpose: string;
+  plan: TestPlan;
+  planVersion: number;
+  itemIds: number[];
+  items: ItemSummary[];
+  assessment: Assessment;
+  approvalRequired: boolean;
+  approval: BookingApproval | null;
+  checklist: { pre: ChecklistEntry[]; return: ChecklistEntry[] };
+  checklistRuns: { pre: ChecklistRunState | null; return: ChecklistRunState | null };
+  scannedItemIds: number[];
+  releasedAt: string | null;
+  returnedAt: string | null;
+  cancelledAt: string | null;
+  createdAt: string;
+}
+
+export type BookingListStatus = BookingStatus | 'overdue' | 'live';
+
+export interface BookingFilters {
+  mine: boolean;
+  status?: BookingListStatus;
+  limit?: number;
+}
+
+export const bookingKeys = {
+  all: ['bookings'] as const,
+  lists: () => [...bookingKeys.all, 'list'] as const,
+  list: (filters: BookingFilters) => [...bookingKeys.lists(), filters] as const,
+  pages: (filters: BookingFilters) => [...bookingKeys.lists(), 'pages', filters] as const,
+  details: () => [...bookingKeys.all, 'detail'] as const,
+  detail: (id: number) => [...bookingKeys.details(), id] as const,
+};
+
+interface BookingPage {
+  bookings: BookingSummary[];
+  nextCursor: string | null;
+}
+
+function listPath(filters: BookingFilters, cursor: string | null): string {
+  const params = new URLSearchParams({ limit: String(filters.limit ?? 20) });
+  // Members always get their own; staff get everyone's unless they ask for their own.
+  if (filters.mine) params.set('mine', '1');
+  if (filters.status) params.set('status', filters.status);
+  if (cursor) params.set('cursor', cursor);
+  return `/api/bookings?${params.toString()}`;
+}
+
+/** One page (newest first): enough for Today's short lists and the approvals count. */
+export function useBookingsQuery(filters: BookingFilters) {
+  return useQuery({
+    queryKey: bookingKeys.list(filters),
+    queryFn: ({ signal }) => apiRequest<BookingPage>(listPath(filters, null), { signal }),
+  });
+}
+
+/** Newest first, a page at a time. */
+export function useBookingsInfiniteQuery(filters: BookingFilters) {
+  return useInfiniteQuery({
+    queryKey: bookingKeys.pages(filters),
+    queryFn: ({ pageParam, signal }) => apiRequest<BookingPage>(listPath(filters, pageParam), { signal }),
+    initialPageParam: null as string | null,
+    getNextPageParam: (last) => last.nextCursor,
+  });
+}
+
+export function useBookingQuery(id: number) {
+  return useQuery({
+    queryKey: bookingKeys.detail(id),
+    queryFn: ({ signal }) => apiRequest<{ booking: Booking }>(`/api/bookings/${id}`, { signal }),
+    select: (data) => data.booking,
+    enabled: Number.isInteger(id) && id > 0,
+  });
+}
+
+/** After any write: the answer is the new detail; lists, availability and the trail follow. */
+function useBookingWritten() {
+  const queryClient = useQueryClient();
+  return async (booking: Booking) => {
+    queryClient.setQueryData(bookingKeys.detail(booking.id), { booking });
+    await Promise.all([
+      queryClient.invalidateQueries({ queryKey: bookingKeys.lists() }),
+      queryClient.invalidateQueries({ queryKey: bookingGearKeys.availabilities() }),
+      queryClient.invalidateQueries({ queryKey: auditKeys.all }),
+    ]);
+  };
+}
+
+const bookingOf = (response: { booking: Booking }) => response.booking;
+
+export function useCreateBookingMutation() {
+  const written = useBookingWritten();
+  return useMutation({
+    mutationFn: (input: BookingCreateInput) => apiRequest<{ booking: Booking }>('/api/bookings', { method: 'POST', body: input }).then(bookingOf),
+    onSuccess: written,
+  });
+}
+
+export function useUpdateBookingMutation(id: number) {
+  const written = useBookingWritten();
+  return useMutation({
+    mutationFn: (input: BookingUpdateInput) => apiRequest<{ booking: Booking }>(`/api/bookings/${id}`, { method: 'PATCH', body: input }).then(bookingOf),
+    onSuccess: written,
+  });
+}
+
+export function useCancelBookingMutation(id: number) {
+  const written = useBookingWritten();
+  return useMutation({
+    mutationFn: () => apiRequest<{ booking: Booking }>(`/api/bookings/${id}/cancel`, { method: 'POST' }).then(bookingOf),
+    onSuccess: written,
+  });
+}
+
+export interface ApprovalDecisionInput {
+  decision: 'approve' | 'refuse';
+  conditions?: string;
+  reason?: string;
+}
+
+export function useApprovalDecisionMutation(id: number) {
+  const written = useBookingWritten();
+  return useMutation({
+    mutationFn: (input: ApprovalDecisionInput) => apiRequest<{ booking: Booking }>(`/api/bookings/${id}/approval`, { method: 'POST', body: input }).then(bookingOf),
+    onSuccess: written,
+  });
+}
+
+export function useScanMutation(id: number) {
+  const written = useBookingWritten();
+  return useMutation({
+    mutationFn: (tag: string) => apiRequest<{ booking: Booking }>(`/api/bookings/${id}/scans`, { method: 'POST', body: { tag } }).then(bookingOf),
+    onSuccess: written,
+  });
+}
+
+export function useChecklistMutation(id: number) {
+  const written = useBookingWritten();
+  return useMutation({
+    mutationFn: (input: ChecklistSubmitInput) => apiRequest<{ booking: Booking }>(`/api/bookings/${id}/checklist`, { method: 'POST', body: input }).then(bookingOf),
+    onSuccess: written,
+  });
+}
+
+export interface RuleFailure {
+  rule: string;
+  message: string;
+}
+
+/**
+ * A release or return the server refused, with every rule that failed. `derived` is true when the
+ * list was worked out here (see `failuresOf`) rather than read from the server's answer.
+ */
+export class GateRefusedError extends Error {
+  readonly code: string;
+  readonly failures: RuleFailure[];
+  readonly derived: boolean;
+
+  constructor(code: string, message: string, failures: RuleFailure[], derived: boolean) {
+    super(message);
+    this.name = 'GateRefusedError';
+    this.code = code;
+    this.failures = failures;
+    this.derived = derived;
+  }
+}
+
+export function isGateRefusedError(error: unknown): error is GateRefusedError {
+  return error instanceof GateRefusedError;
+}
+
+// The server sends `failures` in the error envelope, but ApiError (hooks/api-client.ts) keeps only
+// code, message and fieldErrors. Read them if a later ApiError carries them; otherwise null.
+function failuresOf(error: unknown): RuleFailure[] | null {
+  const failures = (error as { failures?: unknown }).failures;
+  return Array.isArray(failures) ? (failures as RuleFailure[]) : null;
+}
+
+/**
+ * Until the failures reach the client, list them with the same code the server ran
+ * (shared/rules/release.ts), fed with the server's own fresh assessment and the booking as stored.
+ */
+async function explainReleaseRefusal(id: number): Promise<RuleFailure[]> {
+  const [{ booking }, rules] = await Promise.all([
+    apiRequest<{ booking: Booking }>(`/api/bookings/${id}`),
+    apiRequest<LabRules>('/api/lab-rules'),
+  ]);
+  // POST /api/assessments has no side effects: it is the server's assessment of the plan right now.
+  const { assessment } = await apiRequest<{ assessment: Assessment }>('/api/assessments', {
+    method: 'POST',
+    body: { itemIds: booking.itemIds, plan: booking.plan, personId: booking.personId },
+  });
+  return releaseFailures({
+    status: booking.status,
+    approvalRequired: assessment.approvalRequired,
+    approvalCurrent: Boolean(booking.approval?.current && booking.approval.decision === 'approve'),
+    now: new Date(),
+    startsAt: new Date(booking.startsAt),
+    endsAt: new Date(booking.endsAt),
+    earlyPickupMin: rules.earlyPickupMin,
+    itemIds: booking.itemIds,
+    scannedItemIds: booking.scannedItemIds,
+    assessment,
+    // Runs are stored only when complete; the detail shows the latest for the current plan.
+    checklist: booking.checklistRuns.pre ? { complete: true, withinLimits: booking.checklistRuns.pre.withinLimits } : null,
+  });
+}
+
+export function useReleaseMutation(id: number) {
+  const written = useBookingWritten();
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: async () => {
+      try {
+        return bookingOf(await apiRequest<{ booking: Booking }>(`/api/bookings/${id}/release`, { method: 'POST' }));
+      } catch (error) {
+        if (!isApiError(error) || error.code !== 'RELEASE_REFUSED') throw error;
+        const fromServer = failuresOf(error);
+        if (fromServer) throw new GateRefusedError(error.code, error.message, fromServer, false);
+        const derived = await explainReleaseRefusal(id).catch(() => []);
+        throw new GateRefusedError(error.code, error.message, derived, true);
+      }
+    },
+    onSuccess: written,
+    // A refusal may be news (an inspection lapsed, an approval was voided): show the booking as it is.
+    onError: () => queryClient.invalidateQueries({ queryKey: bookingKeys.detail(id) }),
+  });
+}
+
+export interface ReturnInput {
+  damagedItemIds: number[];
+  notes: string;
+}
+
+/** The make-safe checklist, then the return itself: one step for the member at the counter. */
+export function useReturnMutation(id: number) {
+  const written = useBookingWritten();
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: async ({ answers, ...input }: ReturnInput & { answers: ChecklistSubmitInput['answers'] }) => {
+      const checked = bookingOf(await apiRequest<{ booking: Booking }>(`/api/bookings/${id}/checklist`, { method: 'POST', body: { phase: 'return', answers } }));
+      // The run is on record even if the return is refused: keep the detail in step with it.
+      queryClient.setQueryData(bookingKeys.detail(id), { booking: checked });
+      try {
+        return bookingOf(await apiRequest<{ booking: Booking }>(`/api/bookings/${id}/return`, { method: 'POST', body: input }));
+      } catch (error) {
+        if (!isApiError(error) || error.code !== 'RETURN_REFUSED') throw error;
+        const fromServer = failuresOf(error);
+        if (fromServer) throw new GateRefusedError(error.code, error.message, fromServer, false);
+        // Mirrors the server's make-safe rule (server/services/bookings.ts, returnBooking).
+        const run = checked.checklistRuns.return;
+        const derived: RuleFailure[] = !run
+          ? [{ rule: 'make-safe-checklist', message: 'Complete the make-safe checklist first.' }]
+          : run.withinLimits
+            ? []
+            : [{ rule: 'make-safe-checklist', message: 'A make-safe reading is outside its limits (e.g. residual voltage above the safe level): ground the output again and measure.' }];
+        throw new GateRefusedError(error.code, error.message, derived, true);
+      }
+    },
+    onSuccess: written,
+    onError: () => queryClient.invalidateQueries({ queryKey: bookingKeys.all }),
+  });
+}
