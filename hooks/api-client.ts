@@ -111,3 +111,40 @@ function fallbackMessage(status: number): string {
   if (status === 503 || status === 502 || status === 504) return UNREACHABLE_MESSAGE;
   return 'Something went wrong on the server. Try again.';
 }
+
+// ---------------------------------------------------------------------------------------------
+// Multipart uploads (item photos and documents). apiRequest always sends JSON, so files take this
+// one path: same origin, session cookie, CSRF token and error envelope, with a FormData body
+// (the browser sets the multipart boundary itself, so no content-type is given).
+
+/** POSTs a multipart form; failures surface as ApiError exactly as apiRequest's do. */
+export async function apiUpload<T>(path: string, form: FormData): Promise<T> {
+  const post = async (): Promise<T> => {
+    let response: Response;
+    try {
+      response = await fetch(path, {
+        method: 'POST',
+        headers: { accept: 'application/json', 'x-csrf-token': await currentCsrfToken() },
+        credentials: 'same-origin',
+        body: form,
+      });
+    } catch {
+      throw new ApiError(0, ERROR_CODES.unavailable, UNREACHABLE_MESSAGE);
+    }
+    const payload: unknown = await response.json().catch(() => undefined);
+    if (response.ok) return payload as T;
+    if (isErrorBody(payload)) {
+      const { code, message, fieldErrors } = payload.error;
+      throw new ApiError(response.status, code, message, fieldErrors);
+    }
+    throw new ApiError(response.status, fallbackCode(response.status), fallbackMessage(response.status));
+  };
+  try {
+    return await post();
+  } catch (error) {
+    // Same one retry as apiRequest when the token went stale.
+    if (!(isApiError(error) && error.code === ERROR_CODES.csrf)) throw error;
+    forgetCsrfToken();
+    return post();
+  }
+}

@@ -1,5 +1,5 @@
-import { LabelsScreen } from '@/components/labels/labels-screen';
+import { LazyLabelsScreen } from '@/components/labels/lazy-labels-screen';
 
 export default function LabelsRoute() {
-  return <LabelsScreen />;
+  return <LazyLabelsScreen />;
 }

@@ -1,0 +1,5 @@
+import { LazyGearScreen } from '@/components/gear/lazy-gear-screen';
+
+export default function GearRoute() {
+  return <LazyGearScreen />;
+}

@@ -1,0 +1,66 @@
+import { StyleSheet, View } from 'react-native';
+
+import { borders, radii, spacing } from '@/components/theme/tokens';
+import { useTheme } from '@/components/theme/use-theme';
+import { AppText } from '@/components/ui/app-text';
+import { Icon } from '@/components/ui/icon';
+import type { RuleFailure } from '@/hooks/use-bookings';
+
+interface ReleaseFailuresProps {
+  title: string;
+  failures: RuleFailure[];
+  /** True when the list was worked out on this device with the server's rules, not sent by it. */
+  derived: boolean;
+  testID: string;
+}
+
+/** Every rule the gate refused on, each with its own message, so the member knows what to fix. A refusal is an error to fix, not a hazard, so it takes the error style. */
+export function ReleaseFailures({ title, failures, derived, testID }: ReleaseFailuresProps) {
+  const { colors } = useTheme();
+  return (
+    <View testID={testID} accessibilityRole="alert" style={[styles.box, { borderColor: colors.errorText, backgroundColor: colors.surface }]}>
+      <View style={styles.head}>
+        <Icon name="alert-circle" color={colors.errorText} />
+        <AppText variant="bodyStrong" style={styles.title}>
+          {title}
+        </AppText>
+      </View>
+      {failures.map((failure, index) => (
+        <View key={`${failure.rule}-${index}`} style={styles.failure} testID={`${testID}-${failure.rule}`}>
+          <AppText variant="smallStrong" tone="muted">
+            {ruleNames[failure.rule] ?? failure.rule}
+          </AppText>
+          <AppText>{failure.message}</AppText>
+        </View>
+      ))}
+      {derived && failures.length > 0 ? (
+        <AppText variant="small" tone="muted">
+          Source: the release rules (the same code the server runs), applied to the booking and the server&apos;s fresh assessment.
+        </AppText>
+      ) : null}
+    </View>
+  );
+}
+
+const ruleNames: Record<string, string> = {
+  status: 'Booking state',
+  approval: 'Officer approval',
+  window: 'Booking window',
+  scanned: 'Scanning',
+  'in-service': 'Gear in service',
+  inspection: 'Inspections',
+  rating: 'Ratings',
+  'grounding-stick': 'Grounding stick',
+  'isolation-stand': 'Isolation stand',
+  interlock: 'Interlock',
+  checklist: 'Pre-energize checklist',
+  qualification: 'Qualification',
+  'make-safe-checklist': 'Make-safe checklist',
+};
+
+const styles = StyleSheet.create({
+  box: { gap: spacing.sm, padding: spacing.md, borderWidth: borders.control, borderLeftWidth: spacing.xs, borderRadius: radii.md },
+  head: { flexDirection: 'row', alignItems: 'flex-start', gap: spacing.sm },
+  title: { flex: 1 },
+  failure: { gap: spacing.xxs },
+});
