@@ -92,6 +92,8 @@ export async function seed(knex: Knex): Promise<void> {
         last_inspected_on: lastInspected,
         next_inspection_due: lastInspected ? addDaysIso(lastInspected, interval) : null,
         status: demo.fail ? 'out-of-service' : 'in-service',
+        last_inspection_result: lastInspected ? (demo.fail ? 'fail' : 'pass') : null,
+        status_changed_at: demo.fail ? new Date() : null,
         status_reason: demo.fail ? `Failed inspection on ${lastInspected}: ${demo.fail}` : null,
       })) as [number];
       await appendAudit(trx, { actorId: manager.id, entity: 'item', entityId: id, action: 'item.created', after: { tag, kind: demo.kind, name: demo.name } });

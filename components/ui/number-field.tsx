@@ -31,6 +31,13 @@ export function parseNumber(text: string): number | undefined {
 /** A schema's "expected number" wording, said the way a person would. */
 function friendlyError(error: string | undefined): string | undefined {
   if (error === undefined) return undefined;
+  // zod says "Too big: expected number to be <=1000" for limits: only a bare type error becomes
+  // "Enter a number"; limits read as limits.
+  const limit = /^Too (big|small): expected number to be ([<>]=?)\s*(-?[\d.e+]+)/i.exec(error);
+  if (limit) {
+    const words: Record<string, string> = { '<=': 'At most', '<': 'Less than', '>=': 'At least', '>': 'More than' };
+    return `${words[limit[2]!] ?? 'Limit'} ${limit[3]}`;
+  }
   return /expected number/i.test(error) ? 'Enter a number' : error;
 }
 

@@ -3,15 +3,18 @@
 import type { z } from 'zod';
 import { ValidationError } from '../errors';
 
-export function validate<S extends z.ZodType>(schema: S, value: unknown, what = 'request'): z.output<S> {
+/** `prefix` names where the value sits in the request body (e.g. 'ratings'), for field errors. */
+export function validate<S extends z.ZodType>(schema: S, value: unknown, what = 'request', prefix?: string): z.output<S> {
   const result = schema.safeParse(value);
   if (result.success) return result.data;
   const fieldErrors: Record<string, string[]> = {};
   for (const issue of result.error.issues) {
-    const key = issue.path.length > 0 ? issue.path.map(String).join('.') : '_';
+    const path = [...(prefix ? [prefix] : []), ...issue.path.map(String)];
+    const key = path.length > 0 ? path.join('.') : '_';
     (fieldErrors[key] ??= []).push(issue.message);
   }
   const first = result.error.issues[0];
-  const where = first && first.path.length > 0 ? `${first.path.map(String).join('.')}: ` : '';
+  const firstPath = first ? [...(prefix ? [prefix] : []), ...first.path.map(String)] : [];
+  const where = firstPath.length > 0 ? `${firstPath.join('.')}: ` : '';
   throw new ValidationError(`Invalid ${what}. ${where}${first?.message ?? ''}`.trim(), fieldErrors);
 }

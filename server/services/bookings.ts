@@ -588,9 +588,10 @@ export async function itemBookingHistory(db: Db, itemId: number, limit = 50): Pr
     .where('bi.item_id', itemId)
     .orderBy('b.id', 'desc')
     .limit(limit)
-    .select('b.id', 'b.status', 'b.starts_at', 'b.ends_at', 'b.planned_kv', 'p.name as person_name');
+    .select('b.id', 'b.person_id', 'b.status', 'b.starts_at', 'b.ends_at', 'b.planned_kv', 'p.name as person_name');
   return rows.map((r) => ({
     bookingId: r.id,
+    personId: r.person_id as number,
     status: r.status as BookingStatus,
     overdue: isOverdue(r),
     startsAt: timestampToIso(r.starts_at)!,

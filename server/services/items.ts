@@ -43,6 +43,8 @@ export interface ItemRow {
   last_inspected_on: string | null;
   next_inspection_due: string | null;
   photo_file_id: number | null;
+  status_changed_at: Date | null;
+  last_inspection_result: 'pass' | 'fail' | null;
   created_at: Date;
   updated_at: Date;
 }
@@ -86,6 +88,7 @@ export function toItem(row: ItemRow, publicUrl: string): Item {
     ratings: parseRatings(row.ratings),
     inspectionIntervalDays: row.inspection_interval_days,
     lastInspectedOn: dateColumnToIso(row.last_inspected_on),
+    lastInspectionResult: row.last_inspection_result ?? null,
     photoFileId: row.photo_file_id,
     labelUrl: labelUrl(publicUrl, row.tag),
     createdAt: timestampToIso(row.created_at)!,
@@ -180,12 +183,19 @@ export async function updateItem(db: Db, actor: SessionUser, id: number, input: 
       if (before.last_inspected_on) changes.next_inspection_due = addDaysIso(dateColumnToIso(before.last_inspected_on)!, input.inspectionIntervalDays);
     }
     if (input.ratings !== undefined) {
-      const ratings = validate(RATINGS_SCHEMAS[before.kind], input.ratings, `ratings for a ${before.kind}`);
+      const ratings = validate(RATINGS_SCHEMAS[before.kind], input.ratings, `ratings for a ${before.kind}`, 'ratings');
       changes.ratings = JSON.stringify(ratings);
       changes.rated_kv = ratedKvOf({ kind: before.kind, ratings } as ItemRatings);
     }
+    if (input.status === 'in-service' && before.status === 'out-of-service') {
+      // Lockout/tagout practice: a tag comes off after the item is inspected and passes.
+      const since = before.status_changed_at ?? new Date(0);
+      const passed = await trx('inspections').where({ item_id: id, result: 'pass' }).andWhere('created_at', '>=', since).first('id');
+      if (!passed) throw new ConflictError(`${before.tag} is tagged out: record a passing inspection before clearing it.`, 'INSPECTION_REQUIRED');
+    }
     if (input.status !== undefined && input.status !== before.status) {
       changes.status = input.status;
+      changes.status_changed_at = new Date();
       changes.status_reason = input.status === 'in-service' ? null : (input.statusReason ?? null);
     } else if (input.statusReason !== undefined && before.status !== 'in-service') {
       changes.status_reason = input.statusReason;
@@ -203,7 +213,7 @@ export async function updateItem(db: Db, actor: SessionUser, id: number, input: 
 export async function tagOutInTransaction(trx: Trx, actorId: number, id: number, reason: string, action = 'item.tagged-out'): Promise<void> {
   const before = await lockItem(trx, id);
   if (before.status === 'retired') return;
-  await trx('items').where({ id }).update({ status: 'out-of-service', status_reason: reason.slice(0, 500), updated_at: new Date() });
+  await trx('items').where({ id }).update({ status: 'out-of-service', status_reason: reason.slice(0, 500), status_changed_at: new Date(), updated_at: new Date() });
   await appendAudit(trx, {
     actorId,
     entity: 'item',
@@ -234,7 +244,7 @@ export async function recordInspection(db: Db, actor: SessionUser, itemId: numbe
     // A later inspection entered for an earlier date must not move the due date backwards.
     const latest = dateColumnToIso(item.last_inspected_on);
     if (!latest || inspectedOn >= latest) {
-      await trx('items').where({ id: itemId }).update({ last_inspected_on: inspectedOn, next_inspection_due: nextDue, updated_at: new Date() });
+      await trx('items').where({ id: itemId }).update({ last_inspected_on: inspectedOn, next_inspection_due: nextDue, last_inspection_result: input.result, updated_at: new Date() });
     }
     await appendAudit(trx, {
       actorId: actor.id,

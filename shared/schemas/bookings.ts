@@ -230,6 +230,7 @@ export interface BookingSummary {
 /** One line of an item's booking history. */
 export interface ItemBooking {
   bookingId: number;
+  personId: number;
   status: BookingStatus;
   overdue: boolean;
   startsAt: string;

@@ -253,6 +253,7 @@ export interface Item extends ItemSummary {
   ratings: ItemRatings['ratings'];
   inspectionIntervalDays: number;
   lastInspectedOn: string | null;
+  lastInspectionResult: 'pass' | 'fail' | null;
   photoFileId: number | null;
   labelUrl: string;
   createdAt: string;

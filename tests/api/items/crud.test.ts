@@ -93,8 +93,13 @@ describe('PATCH /api/items/:id', () => {
 
     const taggedOut = await patch({ status: 'out-of-service', statusReason: 'Output lead insulation cracked' });
     expect(taggedOut.body.item).toMatchObject({ status: 'out-of-service', statusReason: 'Output lead insulation cracked' });
+    // Lockout/tagout: the tag comes off only after a passing inspection since the tag-out.
+    const tooSoon = await patch({ status: 'in-service' });
+    expect(tooSoon.status).toBe(409);
+    expect(tooSoon.body.error.code).toBe('INSPECTION_REQUIRED');
+    await manager.agent.post(`/api/items/${id}/inspections`).set('x-csrf-token', manager.csrf()).send({ result: 'pass', notes: 'New output lead fitted' }).expect(201);
     const cleared = await patch({ status: 'in-service' });
-    expect(cleared.body.item).toMatchObject({ status: 'in-service', statusReason: null });
+    expect(cleared.body.item).toMatchObject({ status: 'in-service', statusReason: null, lastInspectionResult: 'pass' });
     const retired = await patch({ status: 'retired', statusReason: 'Replaced by a newer supply' });
     expect(retired.body.item.status).toBe('retired');
     const afterRetire = await patch({ name: 'Back from the dead' });
@@ -104,6 +109,7 @@ describe('PATCH /api/items/:id', () => {
     expect(history.body.events.map((e: { action: string }) => e.action)).toEqual([
       'item.retired',
       'item.cleared',
+      'inspection.pass',
       'item.tagged-out',
       'item.updated',
       'item.created',
@@ -117,6 +123,8 @@ describe('PATCH /api/items/:id', () => {
     const { body } = await post(manager, itemBody('grounding-stick', uniqueWord()));
     const res = await manager.agent.patch(`/api/items/${body.item.id}`).set('x-csrf-token', manager.csrf()).send({ ratings: { maxKv: 10 } });
     expect(res.status).toBe(400);
+    // Field errors name the field as the form knows it.
+    expect(Object.keys(res.body.error.fieldErrors).every((k) => k === 'ratings' || k.startsWith('ratings.'))).toBe(true);
     const unchanged = await manager.agent.get(`/api/items/${body.item.id}`);
     expect(unchanged.body.item.ratings).toEqual(body.item.ratings);
   });
