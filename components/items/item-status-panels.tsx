@@ -118,7 +118,7 @@ export function ClearPanel({ item, onDone, onCancel }: PanelProps) {
           Its inspection is not current, so it still cannot be released for a test until one passes.
         </AppText>
       ) : null}
-      {update.isError ? <FormAlert message={applyServerErrors(update.error, () => false) ?? 'The change was refused.'} /> : null}
+      {update.isError ? <FormAlert message={applyServerErrors(update.error, () => false) ?? 'The change was refused.'} testID="clear-error" /> : null}
       <View style={styles.buttons}>
         <Button
           label="Put back in service"

@@ -229,6 +229,17 @@ describe('a manager on an item page', () => {
       await expect(shown(page, 'item-status-reason').textContent()).resolves.toContain('Surface tracking marks on the top plate');
       expect(await server.db('items').where({ id: item.id }).first('status')).toEqual({ status: 'out-of-service' });
 
+      // Lockout/tagout: the tag stays on until an inspection passes after the tag-out.
+      await shown(page, 'item-clear').click();
+      await shown(page, 'clear-submit').click();
+      await expect(shown(page, 'clear-error').textContent({ timeout: 15_000 })).resolves.toMatch(/record a passing inspection/i);
+      expect(await server.db('items').where({ id: item.id }).first('status')).toEqual({ status: 'out-of-service' });
+      await page.goto(`${server.baseUrl}/gear/${item.id}`, { waitUntil: 'load' });
+      await shown(page, 'item-record-inspection').click();
+      await shown(page, 'inspection-result-pass').click();
+      await shown(page, 'inspection-notes').fill('Top plate cleaned and re-tested');
+      await shown(page, 'inspection-submit').click();
+      await shown(page, 'item-action-done').waitFor({ timeout: 15_000 });
       await shown(page, 'item-clear').click();
       await shown(page, 'clear-submit').click();
       await shown(page, 'item-tagged-out').waitFor({ state: 'detached', timeout: 15_000 });

@@ -227,7 +227,7 @@ describe('the object store goes away', () => {
     const bytes = PNG.sync.write(png);
     const upload = async () => {
       const form = new FormData();
-      form.append('file', new Blob([bytes], { type: 'image/png' }), 'photo.png');
+      form.append('file', new Blob([new Uint8Array(bytes)], { type: 'image/png' }), 'photo.png');
       const res = await fetch(`${base}/api/items/${kit.probe.id}/files`, { method: 'POST', headers: { cookie: client.cookie, 'x-csrf-token': client.csrf }, body: form, signal: AbortSignal.timeout(20_000) });
       return { status: res.status, json: (await res.json()) as { error?: { code: string } } };
     };

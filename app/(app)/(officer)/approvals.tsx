@@ -1,4 +1,4 @@
-import { ApprovalsScreen } from '@/components/approvals/approvals-screen';
+import { LazyApprovalsScreen as ApprovalsScreen } from '@/components/bookings/lazy-screens';
 
 export default function ApprovalsRoute() {
   return <ApprovalsScreen />;

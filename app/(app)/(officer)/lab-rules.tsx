@@ -1,4 +1,4 @@
-import { LabRulesScreen } from '@/components/lab-rules/lab-rules-screen';
+import { LazyLabRulesScreen as LabRulesScreen } from '@/components/bookings/lazy-screens';
 
 export default function LabRulesRoute() {
   return <LabRulesScreen />;

@@ -1,4 +1,4 @@
-import { AuditScreen } from '@/components/audit/audit-screen';
+import { LazyAuditScreen as AuditScreen } from '@/components/bookings/lazy-screens';
 
 export default function AuditRoute() {
   return <AuditScreen />;

@@ -1,4 +1,4 @@
-import { BookScreen } from '@/components/bookings/book-screen';
+import { LazyBookScreen as BookScreen } from '@/components/bookings/lazy-screens';
 
 export default function NewBookingRoute() {
   return <BookScreen />;

@@ -1,6 +1,6 @@
 import { useLocalSearchParams } from 'expo-router';
 
-import { EditBookingScreen } from '@/components/bookings/book-screen';
+import { LazyEditBookingScreen as EditBookingScreen } from '@/components/bookings/lazy-screens';
 
 export default function EditBookingRoute() {
   const { id } = useLocalSearchParams<{ id: string }>();

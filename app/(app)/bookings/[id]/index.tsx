@@ -1,6 +1,6 @@
 import { useLocalSearchParams } from 'expo-router';
 
-import { BookingScreen } from '@/components/bookings/booking-screen';
+import { LazyBookingScreen as BookingScreen } from '@/components/bookings/lazy-screens';
 
 export default function BookingRoute() {
   const { id } = useLocalSearchParams<{ id: string }>();

@@ -1,6 +1,6 @@
 import { useLocalSearchParams } from 'expo-router';
 
-import { ReleaseScreen } from '@/components/release/release-screen';
+import { LazyReleaseScreen as ReleaseScreen } from '@/components/bookings/lazy-screens';
 
 export default function ReleaseRoute() {
   const { id } = useLocalSearchParams<{ id: string }>();

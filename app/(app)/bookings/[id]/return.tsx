@@ -1,6 +1,6 @@
 import { useLocalSearchParams } from 'expo-router';
 
-import { ReturnScreen } from '@/components/returns/return-screen';
+import { LazyReturnScreen as ReturnScreen } from '@/components/bookings/lazy-screens';
 
 export default function ReturnRoute() {
   const { id } = useLocalSearchParams<{ id: string }>();
