@@ -7,13 +7,16 @@ export class ApiError extends Error {
   readonly status: number;
   readonly code: string;
   readonly fieldErrors: FieldErrors | undefined;
+  /** Every rule a release or return failed (RELEASE_REFUSED, RETURN_REFUSED). */
+  readonly failures: { rule: string; message: string }[] | undefined;
 
-  constructor(status: number, code: string, message: string, fieldErrors?: FieldErrors) {
+  constructor(status: number, code: string, message: string, fieldErrors?: FieldErrors, failures?: { rule: string; message: string }[]) {
     super(message);
     this.name = 'ApiError';
     this.status = status;
     this.code = code;
     this.fieldErrors = fieldErrors;
+    this.failures = failures;
   }
 }
 
@@ -25,6 +28,7 @@ type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 
 interface RequestOptions {
   method?: Method;
+  /** JSON, or a FormData for file uploads (the browser sets the multipart boundary). */
   body?: unknown;
   signal?: AbortSignal;
 }
@@ -68,7 +72,8 @@ export async function apiRequest<T>(path: string, options: RequestOptions = {}):
 
 async function send<T>(path: string, options: RequestOptions & { csrfToken?: string }): Promise<T> {
   const headers: Record<string, string> = { accept: 'application/json' };
-  if (options.body !== undefined) headers['content-type'] = 'application/json';
+  const isForm = typeof FormData !== 'undefined' && options.body instanceof FormData;
+  if (options.body !== undefined && !isForm) headers['content-type'] = 'application/json';
   if (options.csrfToken !== undefined) headers['x-csrf-token'] = options.csrfToken;
 
   let response: Response;
@@ -77,7 +82,7 @@ async function send<T>(path: string, options: RequestOptions & { csrfToken?: str
       method: options.method ?? 'GET',
       headers,
       credentials: 'same-origin',
-      body: options.body === undefined ? undefined : JSON.stringify(options.body),
+      body: options.body === undefined ? undefined : isForm ? (options.body as FormData) : JSON.stringify(options.body),
       signal: options.signal,
     });
   } catch (error) {
@@ -91,8 +96,8 @@ async function send<T>(path: string, options: RequestOptions & { csrfToken?: str
   if (response.ok) return payload as T;
 
   if (isErrorBody(payload)) {
-    const { code, message, fieldErrors } = payload.error;
-    throw new ApiError(response.status, code, message, fieldErrors);
+    const { code, message, fieldErrors, failures } = payload.error;
+    throw new ApiError(response.status, code, message, fieldErrors, failures);
   }
   throw new ApiError(response.status, fallbackCode(response.status), fallbackMessage(response.status));
 }
@@ -112,39 +117,7 @@ function fallbackMessage(status: number): string {
   return 'Something went wrong on the server. Try again.';
 }
 
-// ---------------------------------------------------------------------------------------------
-// Multipart uploads (item photos and documents). apiRequest always sends JSON, so files take this
-// one path: same origin, session cookie, CSRF token and error envelope, with a FormData body
-// (the browser sets the multipart boundary itself, so no content-type is given).
-
-/** POSTs a multipart form; failures surface as ApiError exactly as apiRequest's do. */
-export async function apiUpload<T>(path: string, form: FormData): Promise<T> {
-  const post = async (): Promise<T> => {
-    let response: Response;
-    try {
-      response = await fetch(path, {
-        method: 'POST',
-        headers: { accept: 'application/json', 'x-csrf-token': await currentCsrfToken() },
-        credentials: 'same-origin',
-        body: form,
-      });
-    } catch {
-      throw new ApiError(0, ERROR_CODES.unavailable, UNREACHABLE_MESSAGE);
-    }
-    const payload: unknown = await response.json().catch(() => undefined);
-    if (response.ok) return payload as T;
-    if (isErrorBody(payload)) {
-      const { code, message, fieldErrors } = payload.error;
-      throw new ApiError(response.status, code, message, fieldErrors);
-    }
-    throw new ApiError(response.status, fallbackCode(response.status), fallbackMessage(response.status));
-  };
-  try {
-    return await post();
-  } catch (error) {
-    // Same one retry as apiRequest when the token went stale.
-    if (!(isApiError(error) && error.code === ERROR_CODES.csrf)) throw error;
-    forgetCsrfToken();
-    return post();
-  }
+/** POSTs a multipart form (item photos and documents) through the same path as every write. */
+export function apiUpload<T>(path: string, form: FormData): Promise<T> {
+  return apiRequest<T>(path, { method: 'POST', body: form });
 }

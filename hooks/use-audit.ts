@@ -1,34 +1,14 @@
 import { useInfiniteQuery, useQuery } from '@tanstack/react-query';
 
+import type { AuditEvent, AuditPage, AuditVerification } from '@/shared/schemas/audit';
+
 import { apiRequest } from './api-client';
 
-// The server owns this shape (server/services/audit.ts); a shared type can replace it.
-export interface AuditEvent {
-  id: number;
-  at: string;
-  actorId: number | null;
-  actorName: string | null;
-  entity: string;
-  entityId: string;
-  action: string;
-  before: unknown;
-  after: unknown;
-}
-
-export interface AuditPage {
-  events: AuditEvent[];
-  nextCursor: string | null;
-}
+export type { AuditEvent, AuditPage, AuditVerification };
 
 export interface AuditFilter {
   entity?: string;
   id?: string;
-}
-
-export interface AuditVerification {
-  ok: boolean;
-  checked: number;
-  brokenAtId: number | null;
 }
 
 export const auditKeys = {

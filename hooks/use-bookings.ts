@@ -3,79 +3,22 @@
 // cache (and what depends on it) itself, so screens never invalidate anything.
 import { useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
-import type { Assessment } from '@/shared/rules/assessment';
-import { releaseFailures } from '@/shared/rules/release';
 import type {
+  Booking,
+  BookingApproval,
   BookingCreateInput,
   BookingStatus,
+  BookingSummary,
   BookingUpdateInput,
-  ChecklistEntry,
+  ChecklistRunState,
   ChecklistSubmitInput,
-  LabRules,
-  TestPlan,
 } from '@/shared/schemas/bookings';
-import type { ItemSummary } from '@/shared/schemas/items';
 
 import { apiRequest, isApiError } from './api-client';
 import { auditKeys } from './use-audit';
 import { bookingGearKeys } from './use-booking-gear';
 
-// The server owns these shapes (server/services/bookings.ts: BookingSummary, BookingView).
-export interface BookingSummary {
-  id: number;
-  personId: number;
-  personName: string;
-  status: BookingStatus;
-  overdue: boolean;
-  startsAt: string;
-  endsAt: string;
-  location: string;
-  purpose: string;
-  plannedKv: number;
-  approvalRequired: boolean;
-  itemTags: string[];
-}
-
-export interface BookingApproval {
-  decision: 'approve' | 'refuse';
-  officerName: string;
-  conditions: string | null;
-  reason: string | null;
-  decidedAt: string;
-  /** False once the plan changed after the decision: it no longer covers the booking. */
-  current: boolean;
-}
-
-export interface ChecklistRunState {
-  completedAt: string;
-  withinLimits: boolean;
-}
-
-export interface Booking {
-  id: number;
-  personId: number;
-  personName: string;
-  status: BookingStatus;
-  overdue: boolean;
-  startsAt: string;
-  endsAt: string;
-  location: string;
-  purpose: string;
-  plan: TestPlan;
-  planVersion: number;
-  itemIds: number[];
-  items: ItemSummary[];
-  assessment: Assessment;
-  approvalRequired: boolean;
-  approval: BookingApproval | null;
-  checklist: { pre: ChecklistEntry[]; return: ChecklistEntry[] };
-  checklistRuns: { pre: ChecklistRunState | null; return: ChecklistRunState | null };
-  scannedItemIds: number[];
-  releasedAt: string | null;
-  returnedAt: string | null;
-  cancelledAt: string | null;
-  createdAt: string;
-}
+export type { Booking, BookingApproval, BookingSummary, ChecklistRunState };
 
 export type BookingListStatus = BookingStatus | 'overdue' | 'live';
 
@@ -209,63 +152,21 @@ export interface RuleFailure {
   message: string;
 }
 
-/**
- * A release or return the server refused, with every rule that failed. `derived` is true when the
- * list was worked out here (see `failuresOf`) rather than read from the server's answer.
- */
+/** A release or return the server refused, with every rule that failed. */
 export class GateRefusedError extends Error {
   readonly code: string;
   readonly failures: RuleFailure[];
-  readonly derived: boolean;
 
-  constructor(code: string, message: string, failures: RuleFailure[], derived: boolean) {
+  constructor(code: string, message: string, failures: RuleFailure[]) {
     super(message);
     this.name = 'GateRefusedError';
     this.code = code;
     this.failures = failures;
-    this.derived = derived;
   }
 }
 
 export function isGateRefusedError(error: unknown): error is GateRefusedError {
   return error instanceof GateRefusedError;
-}
-
-// The server sends `failures` in the error envelope, but ApiError (hooks/api-client.ts) keeps only
-// code, message and fieldErrors. Read them if a later ApiError carries them; otherwise null.
-function failuresOf(error: unknown): RuleFailure[] | null {
-  const failures = (error as { failures?: unknown }).failures;
-  return Array.isArray(failures) ? (failures as RuleFailure[]) : null;
-}
-
-/**
- * Until the failures reach the client, list them with the same code the server ran
- * (shared/rules/release.ts), fed with the server's own fresh assessment and the booking as stored.
- */
-async function explainReleaseRefusal(id: number): Promise<RuleFailure[]> {
-  const [{ booking }, rules] = await Promise.all([
-    apiRequest<{ booking: Booking }>(`/api/bookings/${id}`),
-    apiRequest<LabRules>('/api/lab-rules'),
-  ]);
-  // POST /api/assessments has no side effects: it is the server's assessment of the plan right now.
-  const { assessment } = await apiRequest<{ assessment: Assessment }>('/api/assessments', {
-    method: 'POST',
-    body: { itemIds: booking.itemIds, plan: booking.plan, personId: booking.personId },
-  });
-  return releaseFailures({
-    status: booking.status,
-    approvalRequired: assessment.approvalRequired,
-    approvalCurrent: Boolean(booking.approval?.current && booking.approval.decision === 'approve'),
-    now: new Date(),
-    startsAt: new Date(booking.startsAt),
-    endsAt: new Date(booking.endsAt),
-    earlyPickupMin: rules.earlyPickupMin,
-    itemIds: booking.itemIds,
-    scannedItemIds: booking.scannedItemIds,
-    assessment,
-    // Runs are stored only when complete; the detail shows the latest for the current plan.
-    checklist: booking.checklistRuns.pre ? { complete: true, withinLimits: booking.checklistRuns.pre.withinLimits } : null,
-  });
 }
 
 export function useReleaseMutation(id: number) {
@@ -277,10 +178,7 @@ export function useReleaseMutation(id: number) {
         return bookingOf(await apiRequest<{ booking: Booking }>(`/api/bookings/${id}/release`, { method: 'POST' }));
       } catch (error) {
         if (!isApiError(error) || error.code !== 'RELEASE_REFUSED') throw error;
-        const fromServer = failuresOf(error);
-        if (fromServer) throw new GateRefusedError(error.code, error.message, fromServer, false);
-        const derived = await explainReleaseRefusal(id).catch(() => []);
-        throw new GateRefusedError(error.code, error.message, derived, true);
+        throw new GateRefusedError(error.code, error.message, error.failures ?? []);
       }
     },
     onSuccess: written,
@@ -307,16 +205,7 @@ export function useReturnMutation(id: number) {
         return bookingOf(await apiRequest<{ booking: Booking }>(`/api/bookings/${id}/return`, { method: 'POST', body: input }));
       } catch (error) {
         if (!isApiError(error) || error.code !== 'RETURN_REFUSED') throw error;
-        const fromServer = failuresOf(error);
-        if (fromServer) throw new GateRefusedError(error.code, error.message, fromServer, false);
-        // Mirrors the server's make-safe rule (server/services/bookings.ts, returnBooking).
-        const run = checked.checklistRuns.return;
-        const derived: RuleFailure[] = !run
-          ? [{ rule: 'make-safe-checklist', message: 'Complete the make-safe checklist first.' }]
-          : run.withinLimits
-            ? []
-            : [{ rule: 'make-safe-checklist', message: 'A make-safe reading is outside its limits (e.g. residual voltage above the safe level): ground the output again and measure.' }];
-        throw new GateRefusedError(error.code, error.message, derived, true);
+        throw new GateRefusedError(error.code, error.message, error.failures ?? []);
       }
     },
     onSuccess: written,

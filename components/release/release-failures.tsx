@@ -9,13 +9,11 @@ import type { RuleFailure } from '@/hooks/use-bookings';
 interface ReleaseFailuresProps {
   title: string;
   failures: RuleFailure[];
-  /** True when the list was worked out on this device with the server's rules, not sent by it. */
-  derived: boolean;
   testID: string;
 }
 
 /** Every rule the gate refused on, each with its own message, so the member knows what to fix. A refusal is an error to fix, not a hazard, so it takes the error style. */
-export function ReleaseFailures({ title, failures, derived, testID }: ReleaseFailuresProps) {
+export function ReleaseFailures({ title, failures, testID }: ReleaseFailuresProps) {
   const { colors } = useTheme();
   return (
     <View testID={testID} accessibilityRole="alert" style={[styles.box, { borderColor: colors.errorText, backgroundColor: colors.surface }]}>
@@ -33,11 +31,6 @@ export function ReleaseFailures({ title, failures, derived, testID }: ReleaseFai
           <AppText>{failure.message}</AppText>
         </View>
       ))}
-      {derived && failures.length > 0 ? (
-        <AppText variant="small" tone="muted">
-          Source: the release rules (the same code the server runs), applied to the booking and the server&apos;s fresh assessment.
-        </AppText>
-      ) : null}
     </View>
   );
 }

@@ -27,7 +27,7 @@ export function ReleaseStep({ booking, state }: { booking: Booking; state: StepS
           testID="release-failures"
           title={refusal.failures.length > 0 ? refusal.message : `${refusal.message} Reload the booking to see what changed.`}
           failures={refusal.failures}
-          derived={refusal.derived}
+         
         />
       ) : release.error ? (
         <FormAlert message={describeError(release.error)} testID="release-error" />
