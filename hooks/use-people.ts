@@ -1,10 +1,11 @@
-import { useQuery } from '@tanstack/react-query';
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
+import type { InvitationInput, PersonUpdateInput } from '@/shared/schemas/accounts';
 import type { Role } from '@/shared/schemas/session';
 
 import { apiRequest } from './api-client';
 
-// The server owns this shape; a shared schema can replace it when people gain a write API.
+// The server owns these shapes (server/services/people.ts, server/services/accounts.ts).
 export interface Person {
   id: number;
   email: string;
@@ -13,6 +14,22 @@ export interface Person {
   groupName: string | null;
   active: boolean;
   lastSignInAt: string | null;
+  /** The HV qualification on record; `expiresOn` is a calendar date (YYYY-MM-DD). */
+  qualification: { authorisedKv: number; expiresOn: string } | null;
+}
+
+export interface Group {
+  id: number;
+  name: string;
+}
+
+export interface UpdatedPerson {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+  active: boolean;
+  groupId: number | null;
 }
 
 export const peopleKeys = {
@@ -20,10 +37,45 @@ export const peopleKeys = {
   list: () => [...peopleKeys.all, 'list'] as const,
 };
 
+export const groupKeys = {
+  all: ['groups'] as const,
+  list: () => [...groupKeys.all, 'list'] as const,
+};
+
 export function usePeopleQuery() {
   return useQuery({
     queryKey: peopleKeys.list(),
     queryFn: ({ signal }) => apiRequest<{ people: Person[] }>('/api/people', { signal }),
     select: (data) => data.people,
+  });
+}
+
+export function useGroupsQuery() {
+  return useQuery({
+    queryKey: groupKeys.list(),
+    queryFn: ({ signal }) => apiRequest<{ groups: Group[] }>('/api/groups', { signal }),
+    select: (data) => data.groups,
+    // Groups change rarely (a new research group joins the lab).
+    staleTime: 10 * 60_000,
+  });
+}
+
+/** POST /api/invitations: adds the person and queues the e-mail with their one-time link. */
+export function useInvitePersonMutation() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: InvitationInput) =>
+      apiRequest<{ person: { id: number; email: string; name: string; role: Role } }>('/api/invitations', { method: 'POST', body: input }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: peopleKeys.all }),
+  });
+}
+
+/** PATCH /api/people/:id: role, group, active. A new role or a deactivation ends their sessions. */
+export function useUpdatePersonMutation() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, change }: { id: number; change: PersonUpdateInput }) =>
+      apiRequest<{ person: UpdatedPerson }>(`/api/people/${id}`, { method: 'PATCH', body: change }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: peopleKeys.all }),
   });
 }

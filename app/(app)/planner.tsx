@@ -1,5 +1,8 @@
+import { useLocalSearchParams } from 'expo-router';
+
 import { PlannerScreen } from '@/components/planner/planner-screen';
 
 export default function PlannerRoute() {
-  return <PlannerScreen />;
+  const { tab } = useLocalSearchParams<{ tab?: string }>();
+  return <PlannerScreen tab={tab} />;
 }

@@ -10,6 +10,7 @@ import { Card } from '@/components/ui/card';
 import { FormAlert } from '@/components/ui/form-alert';
 import { Screen } from '@/components/ui/screen';
 import { TextField } from '@/components/ui/text-field';
+import { TextLink } from '@/components/ui/text-link';
 import { VoltcribLockup } from '@/components/ui/voltcrib-mark';
 import { describeError } from '@/components/ui/error-state';
 import { isApiError } from '@/hooks/api-client';
@@ -126,6 +127,7 @@ export function SignInScreen({ next }: SignInScreenProps) {
           loading={isSubmitting}
           onPress={() => void onSubmit()}
         />
+        <TextLink label="Forgot your password?" href="/forgot-password" testID="sign-in-forgot" />
       </Card>
     </Screen>
   );

@@ -1,12 +1,49 @@
-import { PlaceholderScreen } from '@/components/common/placeholder-screen';
+import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
 
+import { spacing } from '@/components/theme/tokens';
+import { AppText } from '@/components/ui/app-text';
+import { Screen } from '@/components/ui/screen';
+import { useBreakpoints } from '@/hooks/use-breakpoints';
+
+import { InspectionsSection } from './inspections-section';
+import { OverdueSection } from './overdue-section';
+import { DEFAULT_PRESET, lastDays } from './period';
+import { UsageSection } from './usage-section';
+
+/** The lab manager's reading: how the gear was used, what is overdue, what needs inspecting. */
 export function ReportsScreen() {
+  const { isWide } = useBreakpoints();
+  const [period, setPeriod] = useState(() => lastDays(Number(DEFAULT_PRESET)));
+
+  const overdueAndInspections = (
+    <>
+      <OverdueSection />
+      <InspectionsSection />
+    </>
+  );
+
   return (
-    <PlaceholderScreen
-      testID="reports-screen"
-      title="Reports"
-      icon="chart-bar"
-      comingWith="Use per group, overdue gear and inspections due arrive with the reports work."
-    />
+    <Screen testID="reports-screen" title="Reports" width={isWide ? 'wide' : 'regular'}>
+      <AppText tone="muted">Use per research group, bookings overdue now and inspections coming due. Each downloads as CSV.</AppText>
+      {isWide ? (
+        <View style={styles.columns}>
+          <View style={styles.column}>
+            <UsageSection period={period} onPeriodChange={setPeriod} />
+          </View>
+          <View style={styles.column}>{overdueAndInspections}</View>
+        </View>
+      ) : (
+        <>
+          {overdueAndInspections}
+          <UsageSection period={period} onPeriodChange={setPeriod} />
+        </>
+      )}
+    </Screen>
   );
 }
+
+const styles = StyleSheet.create({
+  columns: { flexDirection: 'row', alignItems: 'flex-start', gap: spacing.lg },
+  column: { flex: 1, minWidth: 0, gap: spacing.lg },
+});

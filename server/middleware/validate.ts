@@ -2,10 +2,11 @@
 // with field errors the form can map onto its fields.
 import type { z } from 'zod';
 import { ValidationError } from '../errors';
+import { wellFormed } from '../well-formed';
 
 /** `prefix` names where the value sits in the request body (e.g. 'ratings'), for field errors. */
 export function validate<S extends z.ZodType>(schema: S, value: unknown, what = 'request', prefix?: string): z.output<S> {
-  const result = schema.safeParse(value);
+  const result = schema.safeParse(wellFormed(value));
   if (result.success) return result.data;
   const fieldErrors: Record<string, string[]> = {};
   for (const issue of result.error.issues) {

@@ -24,7 +24,8 @@ const windowSchema = z
 const uploadKindSchema = z.object({ kind: z.enum(['photo', 'document']).optional() }).strict();
 
 function receiveUpload(maxBytes: number) {
-  const upload = multer({ storage: multer.memoryStorage(), preservePath: true, limits: { fileSize: maxBytes, files: 1, fields: 4, fieldSize: 1024 } }).single('file');
+  // File names arrive as UTF-8 (multer's default reads them as latin1).
+  const upload = multer({ storage: multer.memoryStorage(), preservePath: true, defParamCharset: 'utf8', limits: { fileSize: maxBytes, files: 1, fields: 4, fieldSize: 1024 } }).single('file');
   return (req: Request) =>
     new Promise<void>((resolve, reject) =>
       upload(req, req.res!, (error: unknown) => {

@@ -4,6 +4,7 @@
 import { createHash } from 'node:crypto';
 import type { AuditEvent, AuditPage, AuditVerification } from '../../shared/schemas/audit';
 import type { Db, Trx } from '../db';
+import { wellFormed } from '../well-formed';
 
 export interface AuditInput {
   actorId: number | null;
@@ -55,8 +56,9 @@ export async function appendAudit(trx: Trx, input: AuditInput): Promise<void> {
     entityId: String(input.entityId),
     action: input.action,
     // Round-trip through JSON so the hash is computed over exactly what is stored (dates as text).
-    before: input.before === undefined ? null : (JSON.parse(JSON.stringify(input.before)) as unknown),
-    after: input.after === undefined ? null : (JSON.parse(JSON.stringify(input.after)) as unknown),
+    // wellFormed: a lone surrogate in stored text would fail MariaDB's JSON check.
+    before: input.before === undefined ? null : wellFormed(JSON.parse(JSON.stringify(input.before)) as unknown),
+    after: input.after === undefined ? null : wellFormed(JSON.parse(JSON.stringify(input.after)) as unknown),
   };
   const hash = entryHash(prevHash, row);
   await trx('audit_events').insert({

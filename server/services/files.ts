@@ -23,7 +23,7 @@ export const ALLOWED_TYPES: Record<string, 'photo' | 'document'> = {
 
 /** Refuses names that look like paths or carry control characters, instead of guessing. */
 export function checkFileName(name: string): string {
-  const trimmed = name.normalize('NFC').trim();
+  const trimmed = name.toWellFormed().normalize('NFC').trim();
   // eslint-disable-next-line no-control-regex
   if (trimmed.length === 0 || trimmed.length > 200 || /[\\/\u0000-\u001f\u007f]/.test(trimmed) || trimmed.split('.').every((p) => p === '')) {
     throw new ValidationError('The file name is not acceptable: use a plain name without folders.', { file: ['Plain file names only'] });
@@ -54,7 +54,8 @@ export async function storeItemFile(
   requestedKind?: 'photo' | 'document',
 ): Promise<ItemFile> {
   const fileName = checkFileName(upload.originalName);
-  const detected = await fromBuffer(upload.buffer);
+  // A truncated file makes the detector throw; it is simply not an allowed type.
+  const detected = await fromBuffer(upload.buffer).catch(() => undefined);
   const kind = detected ? ALLOWED_TYPES[detected.mime] : undefined;
   if (!detected || !kind) {
     throw new AppError(415, 'UNSUPPORTED_FILE_TYPE', 'Only JPEG, PNG or WebP photos and PDF documents can be uploaded; this file is none of those.');

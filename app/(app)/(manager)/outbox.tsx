@@ -1,5 +1,8 @@
-import { OutboxScreen } from '@/components/outbox/outbox-screen';
+import { useLocalSearchParams } from 'expo-router';
+
+import { LazyOutboxScreen } from '@/components/outbox/lazy-outbox-screen';
 
 export default function OutboxRoute() {
-  return <OutboxScreen />;
+  const { message } = useLocalSearchParams<{ message?: string }>();
+  return <LazyOutboxScreen messageId={message} />;
 }

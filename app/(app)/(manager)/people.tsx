@@ -1,5 +1,8 @@
-import { PeopleScreen } from '@/components/people/people-screen';
+import { useLocalSearchParams } from 'expo-router';
+
+import { LazyPeopleScreen } from '@/components/people/lazy-people-screen';
 
 export default function PeopleRoute() {
-  return <PeopleScreen />;
+  const { person } = useLocalSearchParams<{ person?: string }>();
+  return <LazyPeopleScreen personId={person} />;
 }

@@ -1,5 +1,5 @@
-import { ReportsScreen } from '@/components/reports/reports-screen';
+import { LazyReportsScreen } from '@/components/reports/lazy-reports-screen';
 
 export default function ReportsRoute() {
-  return <ReportsScreen />;
+  return <LazyReportsScreen />;
 }

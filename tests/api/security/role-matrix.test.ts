@@ -13,7 +13,8 @@ let world: World;
 const callers = {} as Record<Identity, Caller>;
 
 beforeAll(async () => {
-  // Public token and reset routes share one limiter per app; the matrix must not trip it.
+  // Public token and reset routes share one limiter per app; the matrix must not trip it. Server
+  // errors are logged, so a 500 in the matrix comes with its cause.
   ctx = createSecurityContext({ LOGIN_RATE_LIMIT: '1000', LOG_LEVEL: 'error' });
   world = await World.create(ctx);
   for (const identity of IDENTITIES) callers[identity] = await world.caller(identity);

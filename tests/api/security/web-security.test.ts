@@ -166,6 +166,14 @@ describe('stored uploads', () => {
     expect(decodeURIComponent(quoted![2]!)).toBe(file.fileName);
   });
 
+  it('keep a non-ASCII name as sent (UTF-8 in the multipart header, UTF-8 in filename*)', async () => {
+    const file = await upload('Prüfbericht 🔌.png', pngBytes());
+    expect(file.fileName).toBe('Prüfbericht 🔌.png');
+    const res = await officer.agent.get(`/api/files/${file.id}`).buffer(true);
+    const encoded = /filename\*=UTF-8''([^;\s]+)/.exec(String(res.headers['content-disposition']))?.[1];
+    expect(decodeURIComponent(encoded ?? '')).toBe('Prüfbericht 🔌.png');
+  });
+
   it('are not served to signed-out visitors', async () => {
     const file = await upload('bench.png', pngBytes());
     const res = await request(ctx.app).get(`/api/files/${file.id}`);

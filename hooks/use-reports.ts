@@ -1,0 +1,103 @@
+// The manager's reports: use per group over a period, bookings overdue now, inspections coming
+// due, and where each one's CSV download lives.
+import { keepPreviousData, useQuery } from '@tanstack/react-query';
+
+import type { BookingStatus } from '@/shared/schemas/bookings';
+import type { ItemSummary } from '@/shared/schemas/items';
+
+import { apiRequest } from './api-client';
+
+/** Calendar dates, YYYY-MM-DD, both ends included. */
+export interface ReportPeriod {
+  from: string;
+  to: string;
+}
+
+// The server owns these shapes (GET /api/reports/usage; server/services/bookings.ts BookingSummary).
+export interface GroupUsage {
+  groupName: string;
+  bookings: number;
+  hours: number;
+  people: number;
+}
+
+export interface UsageReport {
+  /** The instants the server counted between (ISO 8601). */
+  from: string;
+  to: string;
+  groups: GroupUsage[];
+}
+
+export interface OverdueBooking {
+  id: number;
+  personId: number;
+  personName: string;
+  status: BookingStatus;
+  overdue: boolean;
+  startsAt: string;
+  endsAt: string;
+  location: string;
+  purpose: string;
+  plannedKv: number;
+  itemTags: string[];
+}
+
+export const INSPECTIONS_DUE_LIMIT = 50;
+const OVERDUE_LIMIT = 100;
+
+export const reportKeys = {
+  all: ['reports'] as const,
+  usage: (period: ReportPeriod) => [...reportKeys.all, 'usage', period.from, period.to] as const,
+  // These two live under the bookings and items list keys on purpose: a return, a cancellation or a
+  // recorded inspection invalidates those lists, and these reports must refresh with them.
+  overdue: () => ['bookings', 'list', 'report', 'overdue'] as const,
+  inspectionsDue: () => ['items', 'list', 'report', 'inspections-due'] as const,
+};
+
+/**
+ * The API takes instants: the period runs from local midnight at the start of `from` to local
+ * midnight after `to`, so "the last 30 days" includes all of today in the lab's own time zone.
+ */
+export function periodToInstants(period: ReportPeriod): { from: string; to: string } {
+  const midnight = (isoDate: string, addDays: number) => {
+    const [year, month, day] = isoDate.split('-').map(Number);
+    return new Date(year ?? 1970, (month ?? 1) - 1, (day ?? 1) + addDays).toISOString();
+  };
+  return { from: midnight(period.from, 0), to: midnight(period.to, 1) };
+}
+
+const periodQuery = (period: ReportPeriod) => new URLSearchParams(periodToInstants(period)).toString();
+
+/** Plain links (text/csv downloads with the session cookie), not fetched as JSON. */
+export const reportUrls = {
+  usageCsv: (period: ReportPeriod) => `/api/reports/usage.csv?${periodQuery(period)}`,
+  overdueCsv: () => '/api/reports/overdue.csv',
+  inspectionsCsv: () => '/api/reports/inspections.csv',
+};
+
+export function useUsageReportQuery(period: ReportPeriod) {
+  return useQuery({
+    queryKey: reportKeys.usage(period),
+    queryFn: ({ signal }) => apiRequest<UsageReport>(`/api/reports/usage?${periodQuery(period)}`, { signal }),
+    // Keep the previous period's table on screen while the next one loads.
+    placeholderData: keepPreviousData,
+  });
+}
+
+/** Every overdue booking (managers see everyone's): released and past its end. */
+export function useOverdueBookingsQuery() {
+  return useQuery({
+    queryKey: reportKeys.overdue(),
+    queryFn: ({ signal }) =>
+      apiRequest<{ bookings: OverdueBooking[]; nextCursor: string | null }>(`/api/bookings?status=overdue&limit=${OVERDUE_LIMIT}`, { signal }),
+  });
+}
+
+/** Items whose inspection is overdue or due soon, soonest first. */
+export function useInspectionsDueQuery() {
+  return useQuery({
+    queryKey: reportKeys.inspectionsDue(),
+    queryFn: ({ signal }) =>
+      apiRequest<{ items: ItemSummary[]; nextCursor: string | null }>(`/api/items?due=soon&sort=nextDue&limit=${INSPECTIONS_DUE_LIMIT}`, { signal }),
+  });
+}
