@@ -2,11 +2,18 @@
 // with field errors the form can map onto its fields.
 import type { z } from 'zod';
 import { ValidationError } from '../errors';
-import { wellFormed } from '../well-formed';
+import { TooDeepError, wellFormed } from '../well-formed';
 
 /** `prefix` names where the value sits in the request body (e.g. 'ratings'), for field errors. */
 export function validate<S extends z.ZodType>(schema: S, value: unknown, what = 'request', prefix?: string): z.output<S> {
-  const result = schema.safeParse(wellFormed(value));
+  let input: unknown;
+  try {
+    input = wellFormed(value);
+  } catch (error) {
+    if (error instanceof TooDeepError) throw new ValidationError(`Invalid ${what}: it is nested too deeply.`);
+    throw error;
+  }
+  const result = schema.safeParse(input);
   if (result.success) return result.data;
   const fieldErrors: Record<string, string[]> = {};
   for (const issue of result.error.issues) {
