@@ -8,7 +8,7 @@ import { CHROMIUM, ensureDebianPackages, MARIADB, POPPLER } from './lib/debian-p
 import { testInstance } from './lib/instances';
 import { startFakeS3 } from '../server/storage/fake-s3';
 import { startInstance, stopInstance } from './lib/mariadb';
-import { recreateDatabase } from './lib/test-database';
+import { recreateDatabase, recreateMailDatabase } from './lib/test-database';
 
 const ROOT = path.resolve(__dirname, '..');
 
@@ -28,6 +28,7 @@ async function main(): Promise<number> {
   const s3 = await startFakeS3({ directory: path.join(ROOT, '.data', 'test-s3'), port: 0, bucket: 'voltcrib-test' });
   try {
     await recreateDatabase(options);
+    await recreateMailDatabase(options);
     buildWebIfStale();
     mkdirSync(path.join(ROOT, '.data'), { recursive: true });
     const resultsFile = path.join(ROOT, '.data', 'jest-results.json');

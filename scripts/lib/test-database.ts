@@ -13,3 +13,13 @@ export async function recreateDatabase(options: InstanceOptions): Promise<void> 
     await db.destroy();
   }
 }
+
+/**
+ * The mail suites count messages in the fake SMTP server, so they get a database of their own:
+ * approval requests from every other suite (one per officer) would otherwise queue ahead of theirs.
+ */
+export const MAIL_TEST_DATABASE = 'voltcrib_test_mail';
+
+export async function recreateMailDatabase(options: InstanceOptions): Promise<void> {
+  await recreateDatabase({ ...options, database: MAIL_TEST_DATABASE });
+}

@@ -7,6 +7,7 @@ import { OutboxWorker } from '../../../server/mail/outbox';
 import { createTransport } from '../../../server/mail/transport';
 import { post } from '../../helpers/booking-flow';
 import { insertKit, plan, qualify, windowFromNow } from '../../helpers/gear';
+import { MAIL_TEST_DATABASE } from '../../../scripts/lib/test-database';
 import { anonymousAgent, createPerson, createTestContext, signedInAgent, signedInAs, type TestContext } from '../../helpers/test-app';
 
 let ctx: TestContext;
@@ -14,7 +15,7 @@ let smtp: FakeSmtp;
 let worker: OutboxWorker;
 
 beforeAll(async () => {
-  ctx = createTestContext();
+  ctx = createTestContext({ DB_NAME: MAIL_TEST_DATABASE });
   smtp = await startFakeSmtp();
   // The app under test, with the fake's mailbox wired in.
   ctx.app = createApp({ db: ctx.db, config: ctx.config, logger: createLogger('silent'), mailbox: smtp });
@@ -187,7 +188,7 @@ describe('GET /api/mailbox', () => {
   });
 
   it('answers 404 when no local fake is in use', async () => {
-    const plain = createTestContext();
+    const plain = createTestContext({ DB_NAME: MAIL_TEST_DATABASE });
     try {
       const manager = await signedInAs(plain, 'manager');
       expect((await manager.agent.get('/api/mailbox')).status).toBe(404);

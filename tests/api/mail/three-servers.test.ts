@@ -3,6 +3,7 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
 import { startFakeSmtp, type FakeSmtp } from '../../../server/mail/fake-smtp';
+import { MAIL_TEST_DATABASE } from '../../../scripts/lib/test-database';
 import { insertKit } from '../../helpers/gear';
 import { createPerson, createTestContext, testConfig, type TestContext } from '../../helpers/test-app';
 
@@ -12,7 +13,7 @@ let smtp: FakeSmtp;
 const servers: ChildProcess[] = [];
 
 function startServerProcess(): Promise<ChildProcess> {
-  const config = testConfig();
+  const config = testConfig({ DB_NAME: MAIL_TEST_DATABASE });
   const child = spawn(path.join(ROOT, 'node_modules/.bin/tsx'), ['server/index.ts'], {
     cwd: ROOT,
     env: {
@@ -45,7 +46,7 @@ function startServerProcess(): Promise<ChildProcess> {
 }
 
 beforeAll(async () => {
-  ctx = createTestContext();
+  ctx = createTestContext({ DB_NAME: MAIL_TEST_DATABASE });
   smtp = await startFakeSmtp();
 });
 afterAll(async () => {
