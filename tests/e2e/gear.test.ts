@@ -39,6 +39,12 @@ async function openGear(page: Page): Promise<void> {
   await shown(page, 'gear-screen').waitFor();
 }
 
+/** Polls until the locator matches exactly `n` elements (lists update after a debounce). */
+async function waitForCount(locator: Locator, n: number, timeoutMs = 15_000): Promise<void> {
+  const deadline = Date.now() + timeoutMs;
+  while ((await locator.count()) !== n && Date.now() < deadline) await new Promise((r) => setTimeout(r, 100));
+}
+
 async function search(page: Page, text: string): Promise<void> {
   await shown(page, 'gear-search').fill(text);
 }
@@ -84,6 +90,9 @@ it('a manager registers a multiplier, finds it, fails its inspection and sees it
     await search(page, word);
     const row = rows(page, { hasText: tag });
     await row.waitFor({ timeout: 15_000 });
+    // The search is debounced: in a fresh database the new item is also on the unfiltered first
+    // page, so wait for the list to narrow down before counting.
+    await waitForCount(rows(page), 1);
     expect(await rows(page).count()).toBe(1);
     await row.click();
     await shown(page, 'item-screen').waitFor();
@@ -155,6 +164,7 @@ describe('the gear list filters', () => {
       await openGear(page);
       await search(page, word);
       await shown(page, `gear-row-${stick.id}`).waitFor({ timeout: 15_000 });
+      await waitForCount(rows(page), 3);
       expect(await rows(page).count()).toBe(3);
       if (name === 'wide') await shown(page, 'gear-table').waitFor();
 
@@ -168,6 +178,7 @@ describe('the gear list filters', () => {
       await shown(page, 'gear-filter-kind-probe').click();
       await shown(page, `gear-row-${stick.id}`).waitFor({ state: 'detached', timeout: 15_000 });
       expect(await visible(page, probe.id)).toBe(1);
+      await waitForCount(rows(page), 1);
       expect(await rows(page).count()).toBe(1);
       await page.screenshot({ path: path.join(SCREENSHOT_DIR, `gear-list-filtered-${name}.png`), fullPage: true });
 
@@ -177,6 +188,7 @@ describe('the gear list filters', () => {
 
       await shown(page, 'gear-filters-clear').click();
       await shown(page, `gear-row-${supply.id}`).waitFor({ timeout: 15_000 });
+      await waitForCount(rows(page), 3);
       expect(await rows(page).count()).toBe(3);
     } finally {
       await context.close();
