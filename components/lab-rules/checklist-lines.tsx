@@ -7,7 +7,10 @@ import { AppText } from '@/components/ui/app-text';
 import { Card } from '@/components/ui/card';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
-import { useChecklistTemplatesQuery, type ChecklistTemplate } from '@/hooks/use-checklist-templates';
+import { Button } from '@/components/ui/button';
+import { useChecklistTemplatesQuery, useRetireChecklistTemplateMutation, type ChecklistTemplate } from '@/hooks/use-checklist-templates';
+
+import { ChecklistLineForm } from './checklist-line-form';
 import { KIND_LABELS, type ItemKind } from '@/shared/schemas/items';
 
 function conditions(line: ChecklistTemplate): string {
@@ -25,6 +28,7 @@ function conditions(line: ChecklistTemplate): string {
 export function ChecklistLines() {
   const { colors } = useTheme();
   const templates = useChecklistTemplatesQuery();
+  const retire = useRetireChecklistTemplateMutation();
   return (
     <Card title="Checklist lines" testID="checklist-lines">
       {templates.isPending ? (
@@ -45,11 +49,21 @@ export function ChecklistLines() {
                   <AppText variant="small" tone="muted">
                     {conditions(line)}
                   </AppText>
+                  <Button
+                    label="Retire this line"
+                    variant="secondary"
+                    icon="close"
+                    onPress={() => retire.mutate(line.id)}
+                    loading={retire.isPending && retire.variables === line.id}
+                    testID={`checklist-line-retire-${line.id}`}
+                  />
                 </View>
               ))}
           </View>
         ))
       )}
+      <AppText variant="bodyStrong">Add a line</AppText>
+      <ChecklistLineForm />
     </Card>
   );
 }
