@@ -192,7 +192,10 @@ export async function listBookings(
   query: { mine?: string; status?: string; itemId?: number; cursor?: string; limit: number },
 ): Promise<{ bookings: BookingSummary[]; nextCursor: string | null }> {
   const mine = query.mine === '1' || query.mine === 'true' || !STAFF.includes(actor.role);
-  const builder = db('bookings as b').join('people as p', 'p.id', 'b.person_id').select('b.*', 'p.name as person_name');
+  // Only the summary's columns: the stored assessment JSON is kilobytes a row and not needed here.
+  const builder = db('bookings as b')
+    .join('people as p', 'p.id', 'b.person_id')
+    .select('b.id', 'b.person_id', 'b.status', 'b.starts_at', 'b.ends_at', 'b.location', 'b.purpose', 'b.planned_kv', 'b.approval_required', 'p.name as person_name');
   if (mine) builder.where('b.person_id', actor.id);
   if (query.status === 'overdue') builder.where('b.status', 'released').andWhere('b.ends_at', '<', new Date());
   else if (query.status === 'live') builder.whereIn('b.status', LIVE_STATUSES);
