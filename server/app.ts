@@ -25,7 +25,7 @@ import { createObjectStore, type ObjectStore } from './storage/object-store';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { serverTiming } from './middleware/server-timing';
 import { healthRouter } from './routes/health';
-import { groupsRouter, peopleRouter } from './routes/people';
+import { groupsRouter, peopleRouter, qualificationsRouter } from './routes/people';
 import { sessionRouter } from './routes/session';
 import { webRouter } from './web';
 
@@ -95,6 +95,7 @@ export function createApp({ db, config, logger, objectStore, mailbox }: AppDeps)
   app.use('/api/session', sessionRouter(db, passport, config));
   app.use('/api/people', peopleRouter(db));
   app.use('/api/groups', groupsRouter(db));
+  app.use('/api/qualifications', qualificationsRouter(db));
   app.use('/api/calc', calcRouter());
   app.use('/api/items', itemsRouter(db, config, store));
   app.use('/api/files', filesRouter(db, store));

@@ -10,3 +10,4 @@ export const LazyReturnScreen = lazyScreen(() => import('@/components/returns/re
 export const LazyApprovalsScreen = lazyScreen(() => import('@/components/approvals/approvals-screen').then((m) => m.ApprovalsScreen), { title: 'Approvals', label: 'Loading the approval queue' });
 export const LazyLabRulesScreen = lazyScreen(() => import('@/components/lab-rules/lab-rules-screen').then((m) => m.LabRulesScreen), { title: 'Lab rules', label: 'Loading the lab rules' });
 export const LazyAuditScreen = lazyScreen(() => import('@/components/audit/audit-screen').then((m) => m.AuditScreen), { title: 'Audit trail', label: 'Loading the audit trail' });
+export const LazyQualificationsScreen = lazyScreen(() => import('@/components/qualifications/qualifications-screen').then((m) => m.QualificationsScreen), { title: 'Qualifications', label: 'Loading qualifications' });

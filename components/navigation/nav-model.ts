@@ -43,6 +43,7 @@ const extraEntries: readonly NavEntry[] = [
   { name: 'planner', label: 'Planner', href: '/planner', icon: 'calculator-variant', area: 'everyone' },
   { name: 'approvals', label: 'Approvals', href: '/approvals', icon: 'clipboard-check', area: 'officer' },
   { name: 'lab-rules', label: 'Lab rules', href: '/lab-rules', icon: 'book-cog', area: 'officer' },
+  { name: 'qualifications', label: 'Qualifications', href: '/qualifications', icon: 'badge-account', area: 'officer' },
   { name: 'people', label: 'People', href: '/people', icon: 'account-group', area: 'manager' },
   { name: 'labels', label: 'Labels', href: '/labels', icon: 'label-multiple', area: 'manager' },
   { name: 'reports', label: 'Reports', href: '/reports', icon: 'chart-bar', area: 'manager' },

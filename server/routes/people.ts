@@ -45,3 +45,13 @@ export function groupsRouter(db: Db): Router {
   });
   return router;
 }
+
+/** Everyone's HV qualification, for the safety officer who records them (and the lab manager). */
+export function qualificationsRouter(db: Db): Router {
+  const router = Router();
+  router.get('/', requireRole('officer', 'manager'), async (_req, res) => {
+    const people = await listPeople(db);
+    res.json({ people: people.filter((p) => p.active).map(({ id, name, email, role, groupName, qualification }) => ({ id, name, email, role, groupName, qualification })) });
+  });
+  return router;
+}

@@ -372,6 +372,7 @@ export const ROUTES: Record<string, RouteFixture> = {
   },
 
   'GET /api/groups': { access: 'signed-in', build: ok() },
+  'GET /api/qualifications': { access: STAFF, build: ok() },
 
   'POST /api/calc/energy': calc({ capacitanceF: 1e-9, voltageV: 10_000 }),
   'POST /api/calc/discharge': calc({ resistanceOhm: 1e8, capacitanceF: 1e-9, initialV: 30_000, safeV: 50 }),

@@ -1,0 +1,5 @@
+import { LazyQualificationsScreen as QualificationsScreen } from '@/components/bookings/lazy-screens';
+
+export default function QualificationsRoute() {
+  return <QualificationsScreen />;
+}
