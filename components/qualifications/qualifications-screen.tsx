@@ -2,7 +2,6 @@ import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { describeQualification, localToday, qualificationState } from '@/components/people/qualification';
-import { QualificationBadge } from '@/components/people/qualification-badge';
 import { spacing } from '@/components/theme/tokens';
 import { AppText } from '@/components/ui/app-text';
 import { Badge } from '@/components/ui/badge';
@@ -49,20 +48,19 @@ export function QualificationsScreen() {
             {people.data.map((person, index) => {
               const state = qualificationState(person.qualification, today);
               return (
-                <View key={person.id}>
-                  <ListRow
-                    title={person.name}
-                    subtitle={`${describeQualification(state)}${person.groupName ? ` · ${person.groupName}` : ''}`}
-                    icon="badge-account"
-                    divided={index > 0}
-                    onPress={() => {
-                      setSaved(null);
-                      setEditing(person);
-                    }}
-                    testID={`qualification-person-${person.id}`}
-                  />
-                  <QualificationBadge state={state} />
-                </View>
+                <ListRow
+                  key={person.id}
+                  title={person.name}
+                  subtitle={`${describeQualification(state)}${person.groupName ? ` · ${person.groupName}` : ''}`}
+                  icon="badge-account"
+                  divided={index > 0}
+                  onPress={() => {
+                    setSaved(null);
+                    setEditing(person);
+                  }}
+                  testID={`qualification-person-${person.id}`}
+                  tone={state.kind === 'current' ? 'default' : 'danger'}
+                />
               );
             })}
           </View>
