@@ -1,26 +1,12 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
-import type { ChecklistTemplateItemInput } from '@/shared/schemas/bookings';
+import type { ChecklistTemplate, ChecklistTemplateItemInput } from '@/shared/schemas/bookings';
 
 import { apiRequest } from './api-client';
 import { auditKeys } from './use-audit';
 import { bookingKeys } from './use-bookings';
 
-// The server owns this shape (server/services/checklists.ts); a shared type can replace it.
-export interface ChecklistTemplate {
-  id: number;
-  phase: 'pre' | 'return';
-  kind: 'confirm' | 'reading' | 'photo';
-  text: string;
-  unit: string | null;
-  min: number | null;
-  max: number | null;
-  maxFromRule: 'safeResidualV' | null;
-  required: boolean;
-  appliesFromKv: number | null;
-  appliesWithKind: string | null;
-  position: number;
-}
+export type { ChecklistTemplate };
 
 export const checklistTemplateKeys = {
   all: ['checklist-templates'] as const,

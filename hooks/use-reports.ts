@@ -2,7 +2,8 @@
 // due, and where each one's CSV download lives.
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
 
-import type { BookingStatus } from '@/shared/schemas/bookings';
+import type { BookingSummary } from '@/shared/schemas/bookings';
+import type { GroupUsage, UsageReport } from '@/shared/schemas/reports';
 import type { ItemSummary } from '@/shared/schemas/items';
 
 import { apiRequest } from './api-client';
@@ -13,34 +14,9 @@ export interface ReportPeriod {
   to: string;
 }
 
-// The server owns these shapes (GET /api/reports/usage; server/services/bookings.ts BookingSummary).
-export interface GroupUsage {
-  groupName: string;
-  bookings: number;
-  hours: number;
-  people: number;
-}
-
-export interface UsageReport {
-  /** The instants the server counted between (ISO 8601). */
-  from: string;
-  to: string;
-  groups: GroupUsage[];
-}
-
-export interface OverdueBooking {
-  id: number;
-  personId: number;
-  personName: string;
-  status: BookingStatus;
-  overdue: boolean;
-  startsAt: string;
-  endsAt: string;
-  location: string;
-  purpose: string;
-  plannedKv: number;
-  itemTags: string[];
-}
+/** An overdue booking is a booking summary (GET /api/bookings?status=overdue). */
+export type OverdueBooking = BookingSummary;
+export type { GroupUsage, UsageReport };
 
 export const INSPECTIONS_DUE_LIMIT = 50;
 const OVERDUE_LIMIT = 100;

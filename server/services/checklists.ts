@@ -1,6 +1,6 @@
 // Checklist templates and the answers to them. A template line applies to a booking when its
 // conditions hold (planned kV at or above a value, an item of a kind in the set).
-import type { ChecklistEntry, ChecklistSubmitInput, LabRules } from '../../shared/schemas/bookings';
+import type { ChecklistEntry, ChecklistSubmitInput, ChecklistTemplate, LabRules } from '../../shared/schemas/bookings';
 import { checklistTemplateItemSchema, type ChecklistTemplateItemInput } from '../../shared/schemas/bookings';
 import type { SessionUser } from '../../shared/schemas/session';
 import type { Db, Trx } from '../db';
@@ -83,7 +83,7 @@ export function evaluateAnswers(entries: ChecklistEntry[], answers: ChecklistSub
   return { complete: true, withinLimits, snapshot };
 }
 
-function toTemplate(row: TemplateRow) {
+function toTemplate(row: TemplateRow): ChecklistTemplate {
   return {
     id: row.id,
     phase: row.phase,

@@ -1,14 +1,9 @@
 // Reports for the lab manager: use per group, overdue gear, inspections due. JSON for the screen,
 // CSV for spreadsheets.
+import type { GroupUsage } from '../../shared/schemas/reports';
 import type { Db } from '../db';
 import { addDaysIso, timestampToIso, todayIso } from './dates';
 
-export interface GroupUsage {
-  groupName: string;
-  bookings: number;
-  hours: number;
-  people: number;
-}
 
 /** Released or returned bookings overlapping the period; hours are clipped to it. */
 export async function usageByGroup(db: Db, from: Date, to: Date): Promise<GroupUsage[]> {

@@ -247,3 +247,19 @@ export interface BusyWindow {
   endsAt: string;
   personName: string;
 }
+
+/** A checklist line as officers keep it (GET /api/checklist-templates). */
+export interface ChecklistTemplate {
+  id: number;
+  phase: 'pre' | 'return';
+  kind: 'confirm' | 'reading' | 'photo';
+  text: string;
+  unit: string | null;
+  min: number | null;
+  max: number | null;
+  maxFromRule: 'safeResidualV' | null;
+  required: boolean;
+  appliesFromKv: number | null;
+  appliesWithKind: string | null;
+  position: number;
+}
