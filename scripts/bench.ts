@@ -3,17 +3,14 @@
 // primary-key SELECT through the same knex pool, no session), because the machine is shared and
 // absolute numbers swing between runs. Results: stdout table + bench/results/<time>.json.
 import autocannon from 'autocannon';
-import express from 'express';
-import { mkdirSync, readdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
-import type { AddressInfo } from 'node:net';
+import { fork, type ChildProcess } from 'node:child_process';
+import { mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { gzipSync } from 'node:zlib';
-import { createApp } from '../server/app';
 import { loadConfig } from '../server/config';
-import { createDb, type Db } from '../server/db';
-import { createLogger } from '../server/logger';
-import { startFakeS3 } from '../server/storage/fake-s3';
+import { createDb } from '../server/db';
+import type { BenchServerMessage, ExplainRow } from './bench-server';
 import { benchInstance, dbEnv } from './lib/instances';
 import { BENCH_PASSWORD, KITS, seedBench } from './lib/bench-seed';
 import { startInstance } from './lib/mariadb';
@@ -22,6 +19,9 @@ import { migrateLatest } from './lib/migrate';
 const ROOT = path.resolve(__dirname, '..');
 const DURATION_S = Number(process.env.BENCH_SECONDS ?? 10);
 const CONNECTIONS = 50;
+/** BENCH_ONLY=session,search measures just the routes whose key is listed (the reference always). */
+const ONLY = process.env.BENCH_ONLY?.split(',').filter(Boolean) ?? null;
+const LIST_URLS = ['/api/items?q=corona&kind=probe&minKv=50', '/api/items', '/api/items?kind=probe&minKv=50&sort=ratedKv', '/api/items?due=overdue&sort=nextDue', '/api/bookings?mine=1', '/api/bookings?status=overdue', '/api/audit?limit=50'];
 
 interface Row {
   route: string;
@@ -31,6 +31,8 @@ interface Row {
   ratio: number;
   statuses: Record<string, number>;
   serverMsMedian?: number;
+  /** Server process CPU time per request, microseconds. */
+  serverCpuUs?: number;
 }
 
 function mainBundle(): { file: string; rawBytes: number; gzipBytes: number } | null {
@@ -82,9 +84,12 @@ async function serverTime(base: string, url: string, headers: Record<string, str
 /** The counter loop: book a kit, scan its five items, pre-energize checklist, release, make safe, return. */
 async function releaseLoop(base: string, auth: { cookie: string; csrf: string }, kits: string[][], kitIds: number[][]) {
   const headers = { cookie: auth.cookie, 'x-csrf-token': auth.csrf, 'content-type': 'application/json' };
+  const requestLatencies: number[] = [];
   const call = async (method: string, url: string, body?: unknown) => {
+    const t0 = performance.now();
     const res = await fetch(`${base}${url}`, { method, headers, body: body === undefined ? undefined : JSON.stringify(body) });
     const json = (await res.json()) as Record<string, unknown>;
+    requestLatencies.push(performance.now() - t0);
     return { status: res.status, json };
   };
   const latencies: number[] = [];
@@ -114,25 +119,47 @@ async function releaseLoop(base: string, auth: { cookie: string; csrf: string },
       }
     }),
   );
-  latencies.sort((a, b) => a - b);
-  return { loopsPerSec: loops / DURATION_S, p50: latencies[Math.floor(latencies.length * 0.5)] ?? NaN, p99: latencies[Math.floor(latencies.length * 0.99)] ?? NaN, statuses };
+  const at = (list: number[], q: number) => list.sort((a, b) => a - b)[Math.floor(list.length * q)] ?? NaN;
+  return {
+    loopsPerSec: loops / DURATION_S,
+    p50: at(latencies, 0.5),
+    p99: at(latencies, 0.99),
+    requestsPerSec: requestLatencies.length / DURATION_S,
+    requestP50: at(requestLatencies, 0.5),
+    requestP99: at(requestLatencies, 0.99),
+    statuses,
+  };
 }
 
-async function explainLists(db: Db, base: string, headers: Record<string, string>): Promise<{ url: string; sql: string; scans: string[] }[]> {
-  const urls = ['/api/items?q=corona&kind=probe&minKv=50', '/api/items', '/api/items?kind=probe&minKv=50&sort=ratedKv', '/api/items?due=overdue&sort=nextDue', '/api/bookings?mine=1', '/api/bookings?status=overdue', '/api/audit?limit=50'];
-  const out: { url: string; sql: string; scans: string[] }[] = [];
-  for (const url of urls) {
-    const captured: { sql: string; bindings: unknown[] }[] = [];
-    const listener = (q: { sql: string; bindings: unknown[] }) => captured.push(q);
-    db.on('query', listener);
-    await (await fetch(`${base}${url}`, { headers })).arrayBuffer();
-    db.removeListener('query', listener);
-    for (const q of captured.filter((c) => /^select/i.test(c.sql) && !/from `sessions`/i.test(c.sql))) {
-      const [rows] = (await db.raw(`EXPLAIN ${q.sql}`, q.bindings as never)) as [{ table: string; type: string; key: string | null; rows: number }[]];
-      out.push({ url, sql: q.sql.slice(0, 160), scans: rows.map((r) => `${r.table}:${r.type}${r.key ? `(${r.key})` : ''}~${r.rows}`) });
-    }
-  }
-  return out;
+/** Starts scripts/bench-server.ts in its own process and waits for its address. */
+function startBenchServer(): Promise<{ child: ChildProcess; base: string }> {
+  // BENCH_CPU_PROF=<dir> writes a V8 CPU profile of the server process there, to see where time goes.
+  const profile = process.env.BENCH_CPU_PROF ? ['--cpu-prof', `--cpu-prof-dir=${process.env.BENCH_CPU_PROF}`] : [];
+  const child = fork(path.join(__dirname, 'bench-server.ts'), [], { execArgv: ['--import', 'tsx', ...profile], env: process.env });
+  return new Promise((resolve, reject) => {
+    child.once('exit', (code) => reject(new Error(`bench server exited with ${code}`)));
+    child.once('message', (message: BenchServerMessage) => {
+      if (message.type === 'ready') resolve({ child, base: message.base });
+    });
+  });
+}
+
+function serverCpuMicros(child: ChildProcess): Promise<number> {
+  return new Promise((resolve) => {
+    child.once('message', (message: BenchServerMessage) => {
+      if (message.type === 'cpu') resolve(message.micros);
+    });
+    child.send({ type: 'cpu' });
+  });
+}
+
+function explainLists(child: ChildProcess, urls: string[], headers: Record<string, string>): Promise<ExplainRow[]> {
+  return new Promise((resolve) => {
+    child.once('message', (message: BenchServerMessage) => {
+      if (message.type === 'explains') resolve(message.explains);
+    });
+    child.send({ type: 'explain', urls, headers });
+  });
 }
 
 async function main(): Promise<void> {
@@ -142,19 +169,7 @@ async function main(): Promise<void> {
   const db = createDb(config);
   await migrateLatest(db);
   if (Number((await db('items').count({ n: '*' }).first())?.n) < 50_000) await seedBench(db);
-  const s3 = await startFakeS3({ directory: path.join(ROOT, '.data', 'bench-s3'), port: 0, bucket: config.s3.bucket });
-  const app = createApp({ db, config: { ...config, s3: { ...config.s3, endpoint: s3.endpoint } }, logger: createLogger('silent') });
-
-  // The reference: one primary-key SELECT through the same pool, mounted only here.
-  const outer = express();
-  const maxId = Number((await db('items').max({ m: 'id' }).first())?.m);
-  outer.get('/bench/reference', async (_req, res) => {
-    res.json(await db('items').where({ id: 1 + Math.floor(Math.random() * maxId) }).first('id', 'tag', 'name'));
-  });
-  outer.use(app);
-  const server = outer.listen(0, '127.0.0.1');
-  await new Promise((r) => server.once('listening', r));
-  const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+  const { child, base } = await startBenchServer();
 
   const member = await signIn(base, 'bench-10@voltcrib.example');
   const headers = { cookie: member.cookie };
@@ -170,44 +185,54 @@ async function main(): Promise<void> {
   await db('booking_items').whereIn('item_id', kitRows.map((r) => r.id)).update({ live: false });
 
   const rows: Row[] = [];
-  const measure = async (route: string, opts: autocannon.Options, serverUrl?: string) => {
+  const measure = async (key: string, route: string, opts: autocannon.Options, serverUrl?: string) => {
+    if (ONLY && key !== 'reference' && !ONLY.includes(key)) return;
+    const cpuBefore = await serverCpuMicros(child);
     const result = await run(opts);
-    const row: Row = { route, reqPerSec: result.requests.average, p50Ms: result.latency.p50, p99Ms: result.latency.p99, ratio: 0, statuses: statusCounts(result) };
+    const cpuPerRequest = (await serverCpuMicros(child)) - cpuBefore;
+    const row: Row = { route, reqPerSec: result.requests.average, p50Ms: result.latency.p50, p99Ms: result.latency.p99, ratio: 0, statuses: statusCounts(result), serverCpuUs: cpuPerRequest / Math.max(1, (result.requests as unknown as { total: number }).total) };
     if (serverUrl) row.serverMsMedian = await serverTime(base, serverUrl, headers);
     rows.push(row);
-    console.log(`[bench] ${route}: ${row.reqPerSec.toFixed(0)} req/s, p50 ${row.p50Ms} ms, p99 ${row.p99Ms} ms`);
+    console.log(`[bench] ${route}: ${row.reqPerSec.toFixed(0)} req/s, p50 ${row.p50Ms} ms, p99 ${row.p99Ms} ms, server CPU ${row.serverCpuUs?.toFixed(0)} µs/request`);
   };
 
   const lastKit = KITS - 1;
-  await measure('reference: primary-key SELECT, no session', { url: `${base}/bench/reference` });
-  await measure('GET /api/session (signed in)', { url: `${base}/api/session`, headers });
-  await measure('GET /api/items?q=corona&kind=probe&minKv=50', { url: `${base}/api/items?q=corona&kind=probe&minKv=50`, headers }, '/api/items?q=corona&kind=probe&minKv=50');
-  await measure('GET /api/bookings?mine=1', { url: `${base}/api/bookings?mine=1`, headers }, '/api/bookings?mine=1');
-  await measure('POST /api/assessments', {
+  await measure('reference', 'reference: primary-key SELECT, no session (behind the app\'s headers and log)', { url: `${base}/api/bench/reference` });
+  await measure('bare', 'same SELECT on a bare Express app (no headers, log or timing)', { url: `${base}/bench/bare` });
+  await measure('session', 'GET /api/session (signed in)', { url: `${base}/api/session`, headers });
+  await measure('search', 'GET /api/items?q=corona&kind=probe&minKv=50', { url: `${base}/api/items?q=corona&kind=probe&minKv=50`, headers }, '/api/items?q=corona&kind=probe&minKv=50');
+  await measure('bookings', 'GET /api/bookings?mine=1', { url: `${base}/api/bookings?mine=1`, headers }, '/api/bookings?mine=1');
+  await measure('assessments', 'POST /api/assessments', {
     url: `${base}/api/assessments`,
     method: 'POST',
     headers: { ...headers, 'x-csrf-token': member.csrf, 'content-type': 'application/json' },
     body: JSON.stringify({ itemIds: kitIds[lastKit], plan: { plannedKv: 10, polarity: 'negative', maxCurrentMa: 1, peoplePresent: 2 } }),
   });
   const contention = new Date(Date.now() + 30 * 24 * 3600_000);
-  await measure('POST /api/bookings (50 clients, same items)', {
+  await measure('contention', 'POST /api/bookings (50 clients, same items)', {
     url: `${base}/api/bookings`,
     method: 'POST',
     headers: { ...headers, 'x-csrf-token': member.csrf, 'content-type': 'application/json' },
     body: JSON.stringify({ itemIds: kitIds[lastKit - 1], startsAt: contention.toISOString(), endsAt: new Date(contention.getTime() + 3600_000).toISOString(), location: 'Bench bay', purpose: 'Contention', plan: { plannedKv: 10, polarity: 'negative', maxCurrentMa: 1, peoplePresent: 2 } }),
   });
-  const loop = await releaseLoop(base, member, kits, kitIds);
-  rows.push({ route: 'release loop (book, 5 scans, checklist, release) per loop', reqPerSec: loop.loopsPerSec, p50Ms: Math.round(loop.p50), p99Ms: Math.round(loop.p99), ratio: 0, statuses: loop.statuses });
+  if (!ONLY || ONLY.includes('release')) {
+    const cpuBefore = await serverCpuMicros(child);
+    const loop = await releaseLoop(base, member, kits, kitIds);
+    const serverCpuUs = ((await serverCpuMicros(child)) - cpuBefore) / Math.max(1, loop.requestsPerSec * DURATION_S);
+    rows.push({ route: 'release loop, each request (book, 5 scans, checklists, release, return)', reqPerSec: loop.requestsPerSec, p50Ms: Math.round(loop.requestP50), p99Ms: Math.round(loop.requestP99), ratio: 0, statuses: loop.statuses, serverCpuUs });
+    rows.push({ route: 'release loop, whole loop (book to release)', reqPerSec: loop.loopsPerSec, p50Ms: Math.round(loop.p50), p99Ms: Math.round(loop.p99), ratio: 0, statuses: {} });
+  }
 
   const reference = rows[0]!.reqPerSec;
-  for (const row of rows) row.ratio = row.reqPerSec / reference;
-  const explains = await explainLists(db, base, headers);
+  // A whole loop is eight requests; a ratio of loops to single requests would mean nothing.
+  for (const row of rows) row.ratio = row.route.includes('whole loop') ? NaN : row.reqPerSec / reference;
+  const explains = await explainLists(child, LIST_URLS, headers);
   const bundle = mainBundle();
 
   const table = [
-    '| route | req/s | ratio to reference | p50 ms | p99 ms | server ms (median) | statuses |',
-    '| --- | --- | --- | --- | --- | --- | --- |',
-    ...rows.map((r) => `| ${r.route} | ${r.reqPerSec.toFixed(r.reqPerSec < 10 ? 2 : 0)} | ${r.ratio.toFixed(2)} | ${r.p50Ms} | ${r.p99Ms} | ${r.serverMsMedian?.toFixed(1) ?? ''} | ${Object.entries(r.statuses).filter(([, v]) => v).map(([k, v]) => `${k}:${v}`).join(' ')} |`),
+    '| route | req/s | ratio to reference | p50 ms | p99 ms | server ms (median) | server CPU µs/request | statuses |',
+    '| --- | --- | --- | --- | --- | --- | --- | --- |',
+    ...rows.map((r) => `| ${r.route} | ${r.reqPerSec.toFixed(r.reqPerSec < 10 ? 2 : 0)} | ${Number.isNaN(r.ratio) ? '' : r.ratio.toFixed(2)} | ${r.p50Ms} | ${r.p99Ms} | ${r.serverMsMedian?.toFixed(1) ?? ''} | ${r.serverCpuUs?.toFixed(0) ?? ''} | ${Object.entries(r.statuses).filter(([, v]) => v).map(([k, v]) => `${k}:${v}`).join(' ')} |`),
   ].join('\n');
   const machine = `${os.cpus().length} × ${os.cpus()[0]?.model ?? 'cpu'}, ${(os.totalmem() / 2 ** 30).toFixed(0)} GiB, Node ${process.version}, ${DURATION_S} s per route, ${CONNECTIONS} connections`;
   console.log(`\n${machine}\n\n${table}\n`);
@@ -220,8 +245,7 @@ async function main(): Promise<void> {
   const json = { at: new Date().toISOString(), machine, rows, bundle, explains, table };
   writeFileSync(path.join(ROOT, 'bench', 'results', `${stamp}.json`), JSON.stringify(json, null, 2));
   writeFileSync(path.join(ROOT, 'bench', 'results', 'latest.json'), JSON.stringify(json, null, 2));
-  server.close();
-  await s3.close();
+  child.send({ type: 'stop' });
   await db.destroy();
 }
 

@@ -2,7 +2,6 @@
 import express, { type Express } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
-import { pinoHttp } from 'pino-http';
 import type { Logger } from 'pino';
 import { createPassport } from './auth/passport';
 import { SessionStore } from './auth/session-store';
@@ -23,6 +22,7 @@ import { itemsRouter } from './routes/items';
 import { labelsRouter } from './routes/labels';
 import { createObjectStore, type ObjectStore } from './storage/object-store';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { requestLog } from './middleware/request-log';
 import { serverTiming } from './middleware/server-timing';
 import { healthRouter } from './routes/health';
 import { groupsRouter, peopleRouter, qualificationsRouter } from './routes/people';
@@ -37,9 +37,14 @@ export interface AppDeps {
   objectStore?: ObjectStore;
   /** The local fake SMTP server's mailbox, when it is in use (development, tests). */
   mailbox?: Mailbox;
+  /**
+   * Routes to mount behind the security headers, request log and body parser but ahead of the
+   * session: the bench's reference route, so it differs from a signed-in read only by session work.
+   */
+  mountBeforeSession?: (app: Express) => void;
 }
 
-export function createApp({ db, config, logger, objectStore, mailbox }: AppDeps): Express {
+export function createApp({ db, config, logger, objectStore, mailbox, mountBeforeSession }: AppDeps): Express {
   const app = express();
   const store = objectStore ?? createObjectStore(config);
   app.disable('x-powered-by');
@@ -67,12 +72,12 @@ export function createApp({ db, config, logger, objectStore, mailbox }: AppDeps)
       crossOriginEmbedderPolicy: false,
     }),
   );
-  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
-  app.use('/api', serverTiming);
+  app.use('/api', requestLog(logger), serverTiming);
   app.use('/api/health', healthRouter(db));
 
   const passport = createPassport(db);
   app.use('/api', express.json({ limit: '100kb' }));
+  mountBeforeSession?.(app);
   app.use(
     '/api',
     session({
@@ -112,6 +117,6 @@ export function createApp({ db, config, logger, objectStore, mailbox }: AppDeps)
 
   app.use('/api', apiNotFound);
   app.use(webRouter(config.webDir));
-  app.use(errorHandler);
+  app.use(errorHandler(logger));
   return app;
 }

@@ -13,6 +13,7 @@ const envSchema = z.object({
   PUBLIC_URL: z.string().url().optional(),
   DB_HOST: z.string().min(1).default('127.0.0.1'),
   DB_PORT: z.coerce.number().int().min(1).max(65535).default(3307),
+  DB_SOCKET: z.string().min(1).max(107, 'Unix socket paths are at most 107 bytes').optional(),
   DB_NAME: z.string().regex(/^[A-Za-z0-9_]+$/, 'letters, digits and _ only').default('voltcrib_dev'),
   DB_USER: z.string().min(1).default('voltcrib'),
   DB_PASSWORD: z.string().default('voltcrib-local-only'),
@@ -43,7 +44,8 @@ export interface Config {
   host: string;
   port: number;
   publicUrl: string;
-  db: { host: string; port: number; database: string; user: string; password: string; poolMax: number };
+  /** socketPath, when set, is used instead of host and port (a database on the same machine). */
+  db: { host: string; port: number; socketPath: string | null; database: string; user: string; password: string; poolMax: number };
   session: { secret: string; maxAgeMs: number; secureCookies: boolean };
   trustProxy: boolean;
   logLevel: string;
@@ -78,6 +80,7 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     db: {
       host: e.DB_HOST,
       port: e.DB_PORT,
+      socketPath: e.DB_SOCKET ?? null,
       database: e.DB_NAME,
       user: e.DB_USER,
       password: e.DB_PASSWORD,

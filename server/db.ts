@@ -13,8 +13,9 @@ export function createDb(config: Pick<Config, 'db'>): Db {
   return knex({
     client: 'mysql2',
     connection: {
-      host: config.db.host,
-      port: config.db.port,
+      // A Unix socket skips the loopback TCP stack: each query's write costs a fraction of the
+      // CPU (the bench profile spent a third of a list request's time in loopback socket writes).
+      ...(config.db.socketPath ? { socketPath: config.db.socketPath } : { host: config.db.host, port: config.db.port }),
       user: config.db.user,
       password: config.db.password,
       database: config.db.database,
@@ -53,6 +54,8 @@ export function isDatabaseUnavailable(error: unknown): boolean {
   if (fatal === true) return true;
   return [
     'ECONNREFUSED',
+    // A Unix socket whose server is gone: the file may be missing while MariaDB restarts.
+    'ENOENT',
     'ECONNRESET',
     'EPIPE',
     'ETIMEDOUT',

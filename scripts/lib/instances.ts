@@ -1,6 +1,6 @@
 // The database instances the scripts start. Each has its own folder, port and database, so the
 // dev instance, the test instance and the bench instance can run side by side.
-import type { InstanceOptions } from './mariadb';
+import { describeInstance, type InstanceOptions } from './mariadb';
 
 const credentials = { user: 'voltcrib', password: 'voltcrib-local-only' };
 
@@ -20,9 +20,10 @@ export function testInstance(env: NodeJS.ProcessEnv = process.env): InstanceOpti
 }
 
 export function benchInstance(env: NodeJS.ProcessEnv = process.env): InstanceOptions {
+  const port = Number(env.BENCH_DB_PORT ?? 3309);
   return {
-    name: 'bench',
-    port: Number(env.BENCH_DB_PORT ?? 3309),
+    name: folder('bench', port, 3309),
+    port,
     database: 'voltcrib_bench',
     bufferPool: '256M',
     ...credentials,
@@ -34,6 +35,7 @@ export function dbEnv(options: InstanceOptions): Record<string, string> {
   return {
     DB_HOST: '127.0.0.1',
     DB_PORT: String(options.port),
+    DB_SOCKET: describeInstance(options).socket,
     DB_NAME: options.database,
     DB_USER: options.user,
     DB_PASSWORD: options.password,

@@ -157,11 +157,18 @@ export async function startInstance(options: InstanceOptions): Promise<{ instanc
     instance,
     [
       `CREATE DATABASE IF NOT EXISTS \`${db}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`,
-      `CREATE USER IF NOT EXISTS '${instance.user}'@'127.0.0.1' IDENTIFIED BY '${instance.password}'`,
-      `GRANT ALL PRIVILEGES ON \`${db}\`.* TO '${instance.user}'@'127.0.0.1'`,
+      ...APP_HOSTS.map((host) => `CREATE USER IF NOT EXISTS '${instance.user}'@'${host}' IDENTIFIED BY '${instance.password}'`),
+      ...grantsOn(instance, db),
     ].join(';'),
   );
   return { instance, started };
+}
+
+/** The app connects over loopback TCP (127.0.0.1) or over the instance's Unix socket (localhost). */
+const APP_HOSTS = ['127.0.0.1', 'localhost'];
+
+function grantsOn(instance: Instance, db: string): string[] {
+  return APP_HOSTS.map((host) => `GRANT ALL PRIVILEGES ON \`${db}\`.* TO '${instance.user}'@'${host}'`);
 }
 
 export async function stopInstance(options: InstanceOptions): Promise<boolean> {
@@ -191,7 +198,7 @@ export function resetDatabase(options: InstanceOptions): void {
     [
       `DROP DATABASE IF EXISTS \`${db}\``,
       `CREATE DATABASE \`${db}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`,
-      `GRANT ALL PRIVILEGES ON \`${db}\`.* TO '${instance.user}'@'127.0.0.1'`,
+      ...grantsOn(instance, db),
     ].join(';'),
   );
 }

@@ -1,8 +1,10 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
+import type { Logger } from 'pino';
 import { ERROR_CODES, type ErrorBody } from '../../shared/errors';
 import { HvInputError } from '../../shared/hv';
 import { isDatabaseUnavailable } from '../db';
 import { AppError, NotFoundError, UnavailableError } from '../errors';
+import { requestContext } from './request-log';
 
 export const apiNotFound: RequestHandler = (req, _res, next) => {
   next(new NotFoundError(`No API route for ${req.method} ${req.path}.`));
@@ -13,7 +15,7 @@ function bodyFor(error: AppError): ErrorBody {
 }
 
 /** The one place errors become responses. Stacks and SQL never leave the server. */
-export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
+export const errorHandler = (logger: Logger): ErrorRequestHandler => (err, req, res, _next) => {
   let error: AppError;
   if (err instanceof AppError) {
     error = err;
@@ -31,10 +33,9 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     const code = err.code === ERROR_CODES.csrf ? ERROR_CODES.csrf : err.status === 403 ? ERROR_CODES.forbidden : ERROR_CODES.validation;
     error = new AppError(err.status, code, String(err.message ?? 'Bad request.'));
   } else {
-    req.log?.error({ err }, 'unhandled error');
     error = new AppError(500, ERROR_CODES.internal, 'Something went wrong on the server. It has been logged.');
   }
-  if (error.status >= 500 && error.status !== 503) req.log?.error({ err }, 'server error');
+  if (error.status >= 500 && error.status !== 503) logger.error({ err, ...requestContext(req) }, 'server error');
   if (res.headersSent) return;
   res.status(error.status).json(bodyFor(error));
 };

@@ -268,22 +268,29 @@ async function notifyOfficers(trx: Trx, bookingId: number, planVersion: number, 
   }
 }
 
-/** Refuses when any item is held by another live booking overlapping the window. Items must be locked. */
-async function assertItemsFree(trx: Trx, items: ItemRow[], startsAt: Date, endsAt: Date, exceptBookingId?: number): Promise<void> {
-  const clashes = await trx('booking_items as bi')
+/** Tags of the items held by another live booking overlapping the window. */
+async function clashingTags(q: Db | Trx, itemIds: number[], startsAt: Date, endsAt: Date, exceptBookingId?: number): Promise<string[]> {
+  const clashes = await q('booking_items as bi')
     .join('items as i', 'i.id', 'bi.item_id')
-    .whereIn('bi.item_id', items.map((i) => i.id))
+    .whereIn('bi.item_id', itemIds)
     .andWhere('bi.live', true)
     .andWhere('bi.starts_at', '<', endsAt)
     .andWhere('bi.ends_at', '>', startsAt)
-    .modify((q) => {
-      if (exceptBookingId) q.andWhereNot('bi.booking_id', exceptBookingId);
+    .modify((b) => {
+      if (exceptBookingId) b.andWhereNot('bi.booking_id', exceptBookingId);
     })
-    .select('i.tag', 'bi.booking_id');
-  if (clashes.length > 0) {
-    const tags = [...new Set(clashes.map((c: { tag: string }) => c.tag))];
-    throw new ConflictError(`Already booked in that window: ${tags.join(', ')}. Pick another time or other gear.`, 'ITEM_TAKEN');
-  }
+    .select<{ tag: string }[]>('i.tag');
+  return [...new Set(clashes.map((c) => c.tag))];
+}
+
+function itemTaken(tags: string[]): ConflictError {
+  return new ConflictError(`Already booked in that window: ${tags.join(', ')}. Pick another time or other gear.`, 'ITEM_TAKEN');
+}
+
+/** Refuses when any item is held by another live booking overlapping the window. Items must be locked. */
+async function assertItemsFree(trx: Trx, items: ItemRow[], startsAt: Date, endsAt: Date, exceptBookingId?: number): Promise<void> {
+  const tags = await clashingTags(trx, items.map((i) => i.id), startsAt, endsAt, exceptBookingId);
+  if (tags.length > 0) throw itemTaken(tags);
   const retired = items.filter((i) => i.status === 'retired').map((i) => i.tag);
   if (retired.length > 0) throw new ConflictError(`Retired gear cannot be booked: ${retired.join(', ')}.`, 'ITEM_RETIRED');
 }
@@ -302,6 +309,11 @@ export async function createBooking(db: Db, actor: SessionUser, input: BookingCr
   const startsAt = new Date(input.startsAt);
   const endsAt = new Date(input.endsAt);
   checkWindow(startsAt, endsAt);
+  // A clash already committed is refused without a transaction or a lock: when many people
+  // reach for the same gear at once, the losers no longer queue behind the item locks.
+  // The check under lock below still decides every race this one cannot see.
+  const taken = await clashingTags(db, input.itemIds, startsAt, endsAt);
+  if (taken.length > 0) throw itemTaken(taken);
   const id = await db.transaction(async (trx) => {
     const items = await loadItems(trx, [...input.itemIds].sort((a, b) => a - b), true);
     await assertItemsFree(trx, items, startsAt, endsAt);

@@ -71,4 +71,19 @@ describe('queries per request', () => {
     const big = await post(member, '/api/bookings', { itemIds: [kit.supply.id, kit.stand.id, kit.interlock.id, kit.probe.id], startsAt: new Date(Date.now() + 91 * 86400_000).toISOString(), endsAt: new Date(Date.now() + 91 * 86400_000 + 3600_000).toISOString(), location: 'Bay', purpose: 'Four items', plan: plan(5) });
     expect(await queriesFor(member.agent, `/api/bookings/${big.body.booking.id}`)).toBe(await queriesFor(member.agent, `/api/bookings/${small.body.booking.id}`));
   });
+
+  it('a signed-in read loads its session in one statement and writes nothing back', async () => {
+    const seen: string[] = [];
+    const listener = (q: { sql: string }) => seen.push(q.sql);
+    ctx.db.on('query', listener);
+    try {
+      for (let i = 0; i < 3; i += 1) expect((await member.agent.get('/api/session')).status).toBe(200);
+    } finally {
+      ctx.db.removeListener('query', listener);
+    }
+    // One read of the session row per request; the user comes from the session's snapshot, and
+    // the expiry is only rewritten when it would move by minutes (server/auth/session-store.ts).
+    expect(seen).toHaveLength(3);
+    expect(seen.every((sql) => /^select .* from `sessions`/i.test(sql))).toBe(true);
+  });
 });

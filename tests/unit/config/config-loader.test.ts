@@ -17,6 +17,13 @@ describe('loadConfig', () => {
     expect(config.db.port).toBe(3317);
   });
 
+  it('uses a Unix socket for the database only when DB_SOCKET names one', () => {
+    expect(loadConfig({}).db.socketPath).toBeNull();
+    expect(loadConfig({ DB_SOCKET: '/run/voltcrib/mariadb.sock' }).db.socketPath).toBe('/run/voltcrib/mariadb.sock');
+    // The kernel's limit for a socket path (sun_path) is 108 bytes with the terminating NUL.
+    expect(() => loadConfig({ DB_SOCKET: `/${'x'.repeat(120)}` })).toThrow(ConfigError);
+  });
+
   it('turns on Secure cookies when the public URL is HTTPS', () => {
     const config = loadConfig({ PUBLIC_URL: 'https://hv.example.org/', SESSION_SECRET: 'x'.repeat(32) });
     expect(config.session.secureCookies).toBe(true);
