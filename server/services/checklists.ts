@@ -7,6 +7,7 @@ import type { Db, Trx } from '../db';
 import { NotFoundError, ValidationError } from '../errors';
 import { validate } from '../middleware/validate';
 import { appendAudit } from './audit';
+import { sharedRead } from './shared-read';
 
 export interface TemplateRow {
   id: number;
@@ -24,11 +25,17 @@ export interface TemplateRow {
   active: boolean;
 }
 
-export async function activeTemplates(db: Db | Trx): Promise<TemplateRow[]> {
-  return db<TemplateRow>('checklist_templates').where({ active: true }).orderBy([{ column: 'phase' }, { column: 'position' }, { column: 'id' }]);
+const templates = sharedRead(
+  async (db): Promise<readonly TemplateRow[]> =>
+    Object.freeze(await db<TemplateRow>('checklist_templates').where({ active: true }).orderBy([{ column: 'phase' }, { column: 'position' }, { column: 'id' }])),
+);
+
+/** Inside a transaction, the rows themselves; otherwise a copy at most a few seconds old (shared-read.ts). */
+export function activeTemplates(db: Db | Trx): Promise<readonly TemplateRow[]> {
+  return templates.read(db);
 }
 
-export function applicableEntries(templates: TemplateRow[], phase: 'pre' | 'return', plannedKv: number, kinds: string[], rules: LabRules): ChecklistEntry[] {
+export function applicableEntries(templates: readonly TemplateRow[], phase: 'pre' | 'return', plannedKv: number, kinds: string[], rules: LabRules): ChecklistEntry[] {
   return templates
     .filter((t) => t.phase === phase)
     .filter((t) => t.applies_from_kv === null || plannedKv >= Number(t.applies_from_kv))
@@ -122,22 +129,26 @@ function toColumns(input: ReturnType<typeof checklistTemplateItemSchema.parse>) 
 
 export async function createTemplate(db: Db, actor: SessionUser, body: ChecklistTemplateItemInput | unknown) {
   const input = validate(checklistTemplateItemSchema, body, 'checklist line');
-  return db.transaction(async (trx) => {
+  const created = await db.transaction(async (trx) => {
     const [id] = (await trx('checklist_templates').insert(toColumns(input))) as [number];
     await appendAudit(trx, { actorId: actor.id, entity: 'checklist-template', entityId: id, action: 'checklist-template.created', after: input });
     return toTemplate((await trx<TemplateRow>('checklist_templates').where({ id }).first())!);
   });
+  templates.forget(db);
+  return created;
 }
 
 export async function replaceTemplate(db: Db, actor: SessionUser, id: number, body: unknown) {
   const input = validate(checklistTemplateItemSchema, body, 'checklist line');
-  return db.transaction(async (trx) => {
+  const replaced = await db.transaction(async (trx) => {
     const before = await trx<TemplateRow>('checklist_templates').where({ id, active: true }).forUpdate().first();
     if (!before) throw new NotFoundError(`No checklist line with id ${id}.`);
     await trx('checklist_templates').where({ id }).update({ ...toColumns(input), updated_at: new Date() });
     await appendAudit(trx, { actorId: actor.id, entity: 'checklist-template', entityId: id, action: 'checklist-template.updated', before: toTemplate(before), after: input });
     return toTemplate((await trx<TemplateRow>('checklist_templates').where({ id }).first())!);
   });
+  templates.forget(db);
+  return replaced;
 }
 
 /** Lines are retired, not deleted: past checklist runs keep pointing at them. */
@@ -148,4 +159,5 @@ export async function retireTemplate(db: Db, actor: SessionUser, id: number): Pr
     await trx('checklist_templates').where({ id }).update({ active: false, updated_at: new Date() });
     await appendAudit(trx, { actorId: actor.id, entity: 'checklist-template', entityId: id, action: 'checklist-template.retired', before: toTemplate(before) });
   });
+  templates.forget(db);
 }

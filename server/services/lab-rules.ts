@@ -2,6 +2,7 @@ import type { LabRules } from '../../shared/schemas/bookings';
 import type { SessionUser } from '../../shared/schemas/session';
 import type { Db, Trx } from '../db';
 import { appendAudit } from './audit';
+import { sharedRead } from './shared-read';
 
 function toLabRules(row: Record<string, unknown>): LabRules {
   return {
@@ -15,13 +16,15 @@ function toLabRules(row: Record<string, unknown>): LabRules {
   };
 }
 
-export async function getLabRules(db: Db | Trx): Promise<LabRules> {
-  const row = await db('lab_rules').where({ id: 1 }).first();
-  return toLabRules(row);
+const labRules = sharedRead(async (db) => Object.freeze(toLabRules(await db('lab_rules').where({ id: 1 }).first())));
+
+/** Inside a transaction, the row itself; otherwise a copy at most a few seconds old (shared-read.ts). */
+export function getLabRules(db: Db | Trx): Promise<LabRules> {
+  return labRules.read(db);
 }
 
 export async function updateLabRules(db: Db, actor: SessionUser, input: LabRules): Promise<LabRules> {
-  return db.transaction(async (trx) => {
+  const saved = await db.transaction(async (trx) => {
     const before = toLabRules(await trx('lab_rules').where({ id: 1 }).forUpdate().first());
     await trx('lab_rules').where({ id: 1 }).update({
       approval_kv: input.approvalKv,
@@ -37,4 +40,6 @@ export async function updateLabRules(db: Db, actor: SessionUser, input: LabRules
     await appendAudit(trx, { actorId: actor.id, entity: 'lab-rules', entityId: 1, action: 'lab-rules.updated', before, after: input });
     return input;
   });
+  labRules.forget(db);
+  return saved;
 }

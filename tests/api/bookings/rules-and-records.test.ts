@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { createTestContext, signedInAs, type TestContext } from '../../helpers/test-app';
+import { put } from '../../helpers/booking-flow';
 
 let ctx: TestContext;
 let officer: Awaited<ReturnType<typeof signedInAs>>;
@@ -11,7 +12,6 @@ beforeAll(async () => {
 });
 afterAll(() => ctx.close());
 
-const put = (who: typeof officer, path: string, body: unknown) => who.agent.put(path).set('x-csrf-token', who.csrf()).send(body as object);
 
 describe('GET/PUT /api/lab-rules', () => {
   it('returns the lab rules with their documented defaults', async () => {
