@@ -131,22 +131,34 @@ async function currentApproval(db: Db | Trx, row: BookingRow) {
   };
 }
 
-async function latestRun(db: Db | Trx, row: BookingRow, phase: 'pre' | 'return') {
-  const run = await db('checklist_runs').where({ booking_id: row.id, phase, plan_version: row.plan_version }).orderBy('id', 'desc').first('complete', 'within_limits', 'completed_at');
-  return run ? { complete: Boolean(run.complete), withinLimits: Boolean(run.within_limits), completedAt: timestampToIso(run.completed_at)! } : null;
+type RunSummary = { complete: boolean; withinLimits: boolean; completedAt: string } | null;
+
+/** The latest checklist run of each phase for the booking's current plan, in one query. */
+async function latestRuns(db: Db | Trx, row: BookingRow): Promise<{ pre: RunSummary; return: RunSummary }> {
+  const runs = await db('checklist_runs').where({ booking_id: row.id, plan_version: row.plan_version }).orderBy('id', 'desc').select('phase', 'complete', 'within_limits', 'completed_at');
+  const latest = (phase: 'pre' | 'return'): RunSummary => {
+    const run = runs.find((r: { phase: string }) => r.phase === phase);
+    return run ? { complete: Boolean(run.complete), withinLimits: Boolean(run.within_limits), completedAt: timestampToIso(run.completed_at)! } : null;
+  };
+  return { pre: latest('pre'), return: latest('return') };
 }
 
 export async function bookingView(db: Db | Trx, row: BookingRow): Promise<Booking> {
-  const [person, itemRows, scans, approval, pre, ret, templates, rules] = await Promise.all([
+  const [person, itemRows, approval, runs, templates, rules] = await Promise.all([
     db('people').where({ id: row.person_id }).first('name'),
-    db('booking_items as bi').join('items as i', 'i.id', 'bi.item_id').where('bi.booking_id', row.id).orderBy('i.tag').select('i.*'),
-    db('booking_scans').where({ booking_id: row.id }).select('item_id'),
+    // Items with whether each has been scanned for this booking (booking_scans' key is booking + item).
+    db('booking_items as bi')
+      .join('items as i', 'i.id', 'bi.item_id')
+      .leftJoin('booking_scans as bs', (j) => j.on('bs.booking_id', 'bi.booking_id').andOn('bs.item_id', 'bi.item_id'))
+      .where('bi.booking_id', row.id)
+      .orderBy('i.tag')
+      .select('i.*', 'bs.item_id as scanned_item_id'),
     currentApproval(db, row),
-    latestRun(db, row, 'pre'),
-    latestRun(db, row, 'return'),
+    latestRuns(db, row),
     activeTemplates(db),
     getLabRules(db),
   ]);
+  const { pre, return: ret } = runs;
   const plan = planOf(row);
   const kinds = [...new Set((itemRows as ItemRow[]).map((i) => i.kind as string))];
   return {
@@ -171,7 +183,7 @@ export async function bookingView(db: Db | Trx, row: BookingRow): Promise<Bookin
       pre: pre ? { completedAt: pre.completedAt, withinLimits: pre.withinLimits } : null,
       return: ret ? { completedAt: ret.completedAt, withinLimits: ret.withinLimits } : null,
     },
-    scannedItemIds: scans.map((s: { item_id: number }) => s.item_id),
+    scannedItemIds: (itemRows as (ItemRow & { scanned_item_id: number | null })[]).flatMap((i) => (i.scanned_item_id === null ? [] : [i.id])),
     releasedAt: timestampToIso(row.released_at),
     returnedAt: timestampToIso(row.returned_at),
     cancelledAt: timestampToIso(row.cancelled_at),
@@ -530,7 +542,7 @@ export async function releaseBooking(db: Db, actor: SessionUser, id: number, now
     const [scans, approval, pre] = await Promise.all([
       trx('booking_scans').where({ booking_id: id }).select('item_id'),
       currentApproval(trx, row),
-      latestRun(trx, row, 'pre'),
+      latestRuns(trx, row).then((runs) => runs.pre),
     ]);
     const failures = releaseFailures({
       status: row.status,
@@ -569,7 +581,7 @@ export async function returnBooking(db: Db, actor: SessionUser, id: number, inpu
     const itemIds = (await trx('booking_items').where({ booking_id: id }).orderBy('item_id').select('item_id')).map((r) => r.item_id as number);
     const stray = input.damagedItemIds.filter((d) => !itemIds.includes(d));
     if (stray.length > 0) throw new ValidationError(`Items ${stray.join(', ')} are not part of this booking.`, { damagedItemIds: ['Only items of this booking'] });
-    const run = await latestRun(trx, row, 'return');
+    const run = (await latestRuns(trx, row)).return;
     const failures: { rule: string; message: string }[] = [];
     if (!run) failures.push({ rule: 'make-safe-checklist', message: 'Complete the make-safe checklist first.' });
     else if (!run.withinLimits) failures.push({ rule: 'make-safe-checklist', message: 'A make-safe reading is outside its limits (e.g. residual voltage above the safe level): ground the output again and measure.' });
