@@ -44,10 +44,13 @@ function entryHash(prevHash: string, row: { at: string; actorId: number | null; 
     .digest('hex');
 }
 
-/** Appends one entry. Call inside the transaction that makes the change; takes the chain lock last. */
+/**
+ * Appends one entry. Call inside the transaction that makes the change, as its last write: the
+ * chain's lock is held from here to the commit. The database chains the entry (migration
+ * 20261202001000): its hash is SHA-256 of `canonical({ ...entry, prevHash })`, and since
+ * "prevHash" sorts after every other key, everything before the previous hash is sent as a prefix.
+ */
 export async function appendAudit(trx: Trx, input: AuditInput): Promise<void> {
-  const head = await trx('audit_head').where({ id: 1 }).forUpdate().first<{ hash: string }>();
-  const prevHash = head?.hash ?? '0'.repeat(64);
   const at = new Date().toISOString();
   const row = {
     at,
@@ -60,19 +63,21 @@ export async function appendAudit(trx: Trx, input: AuditInput): Promise<void> {
     before: input.before === undefined ? null : wellFormed(JSON.parse(JSON.stringify(input.before)) as unknown),
     after: input.after === undefined ? null : wellFormed(JSON.parse(JSON.stringify(input.after)) as unknown),
   };
-  const hash = entryHash(prevHash, row);
-  await trx('audit_events').insert({
-    at: new Date(at),
-    actor_id: row.actorId,
-    entity: row.entity,
-    entity_id: row.entityId,
-    action: row.action,
-    before: row.before === null ? null : JSON.stringify(row.before),
-    after: row.after === null ? null : JSON.stringify(row.after),
-    prev_hash: prevHash,
-    hash,
-  });
-  await trx('audit_head').where({ id: 1 }).update({ hash });
+  await trx.raw('CALL audit_append(?, ?, ?, ?, ?, ?, ?, ?)', [
+    new Date(at),
+    row.actorId,
+    row.entity,
+    row.entityId,
+    row.action,
+    row.before === null ? null : JSON.stringify(row.before),
+    row.after === null ? null : JSON.stringify(row.after),
+    hashPrefix(row),
+  ]);
+}
+
+/** `canonical({ ...row, prevHash })` up to the previous hash itself; the database appends it and `"}`. */
+export function hashPrefix(row: Parameters<typeof entryHash>[1]): string {
+  return `${canonical(row).slice(0, -1)},"prevHash":"`;
 }
 
 export interface AuditFilter {

@@ -239,6 +239,19 @@ describe('the audit chain', () => {
     return Number(row.id);
   }
 
+  it('chains entries in the database exactly as the verifier recomputes them, whatever the text', async () => {
+    // The database hashes the UTF-8 bytes (migration 20261202001000); Node's verifier must agree
+    // for accents, symbols outside the BMP, quotes and backslashes alike.
+    const manager = await signedInAs(ctx, 'manager');
+    const name = 'Prüfspitze “Ω” ⚡ 𝛀 \\ "quoted" 探针';
+    const res = await manager.agent.post('/api/items').set('x-csrf-token', manager.csrf()).send({ kind: 'meter', name, location: 'Bay 1', ratings: { maxKv: null } });
+    expect(res.status).toBe(201);
+    const row = await ctx.db('audit_events').where({ entity: 'item', entity_id: String(res.body.item.id), action: 'item.created' }).first('after', 'hash');
+    expect((typeof row.after === 'string' ? JSON.parse(row.after) : row.after).name).toBe(name);
+    expect(row.hash).toMatch(/^[0-9a-f]{64}$/);
+    expect((await verifyAuditChain(ctx.db)).ok).toBe(true);
+  });
+
   it('finds an entry edited behind the application’s back', async () => {
     const id = await auditIdOfNewItem();
     const trx = await ctx.db.transaction();
