@@ -3,7 +3,7 @@
 // to 60-100 kV, flyback drivers of 10-20 kV, probes to 40-100 kV, stands and sticks rated above
 // the lab's highest voltage), so the demo's safety assessments read like real ones.
 import type { Knex } from 'knex';
-import { appendAudit } from '../server/services/audit';
+import { appendAudit, auditedTransaction } from '../server/services/audit';
 import { addDaysIso, todayIso } from '../server/services/dates';
 import { DEFAULT_INSPECTION_DAYS, KIND_TAG_CODES, ratedKvOf, type ItemKind, type ItemRatings } from '../shared/schemas/items';
 
@@ -76,7 +76,7 @@ export async function seed(knex: Knex): Promise<void> {
     const tag = `${code}-${String(n).padStart(4, '0')}`;
     const interval = DEFAULT_INSPECTION_DAYS[demo.kind];
     const lastInspected = demo.inspectedDaysAgo === null ? null : addDaysIso(today, -demo.inspectedDaysAgo);
-    await knex.transaction(async (trx) => {
+    await auditedTransaction(knex, async (trx) => {
       const [id] = (await trx('items').insert({
         tag,
         kind: demo.kind,

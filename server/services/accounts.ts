@@ -8,7 +8,7 @@ import { isDuplicateKey, type Db, type Trx } from '../db';
 import { AppError, ConflictError, ForbiddenError, NotFoundError } from '../errors';
 import { messages } from '../mail/messages';
 import { enqueueMail } from '../mail/outbox';
-import { appendAudit } from './audit';
+import { appendAudit, auditedTransaction } from './audit';
 import { endSessionsOf } from './people';
 
 const INVITATION_HOURS = 7 * 24;
@@ -26,7 +26,7 @@ async function issueToken(trx: Trx, personId: number, purpose: 'invitation' | 'p
 }
 
 export async function invitePerson(db: Db, actor: SessionUser, input: InvitationInput, publicUrl: string) {
-  return db.transaction(async (trx) => {
+  return auditedTransaction(db, async (trx) => {
     let personId: number;
     try {
       [personId] = (await trx('people').insert({ email: input.email, name: input.name, role: input.role, group_id: input.groupId ?? null, password_hash: null, active: true })) as [number];
@@ -44,7 +44,7 @@ export async function invitePerson(db: Db, actor: SessionUser, input: Invitation
 /** Uses a token once: sets the password, marks the token used, ends the person's other sessions. */
 async function redeem(db: Db, token: string, purpose: 'invitation' | 'password-reset', password: string): Promise<void> {
   const hash = await hashPassword(password);
-  const personId = await db.transaction(async (trx) => {
+  const personId = await auditedTransaction(db, async (trx) => {
     const row = await trx('person_tokens').where({ token_hash: sha256(token), purpose }).forUpdate().first();
     if (!row || row.used_at !== null) throw new AppError(410, 'LINK_USED_OR_INVALID', 'This link is not valid or has already been used. Ask for a new one.');
     if (new Date(row.expires_at).getTime() < Date.now()) throw new AppError(410, 'LINK_EXPIRED', 'This link has expired. Ask for a new one.');
@@ -64,7 +64,7 @@ export const completePasswordReset = (db: Db, token: string, password: string) =
 
 /** Always succeeds from the caller's view: whether the e-mail exists is never revealed. */
 export async function requestPasswordReset(db: Db, email: string, publicUrl: string): Promise<void> {
-  await db.transaction(async (trx) => {
+  await auditedTransaction(db, async (trx) => {
     const person = await trx('people').where({ email: email.trim().toLowerCase(), active: true }).whereNotNull('password_hash').forUpdate().first('id', 'name', 'email');
     if (!person) return;
     const { token, expiresAt } = await issueToken(trx, person.id, 'password-reset', RESET_MINUTES * 60_000);
@@ -77,7 +77,7 @@ export async function updatePerson(db: Db, actor: SessionUser, personId: number,
   if (personId === actor.id && (input.active === false || (input.role && input.role !== actor.role))) {
     throw new ForbiddenError('You cannot deactivate yourself or change your own role; ask another manager.');
   }
-  const result = await db.transaction(async (trx) => {
+  const result = await auditedTransaction(db, async (trx) => {
     const before = await trx('people').where({ id: personId }).forUpdate().first('id', 'email', 'name', 'role', 'active', 'group_id');
     if (!before) throw new NotFoundError(`No person with id ${personId}.`);
     if (input.groupId) {

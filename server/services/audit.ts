@@ -44,16 +44,21 @@ function entryHash(prevHash: string, row: { at: string; actorId: number | null; 
     .digest('hex');
 }
 
+type ChainRow = Parameters<typeof entryHash>[1];
+
+/** Entries waiting for their transaction's end; only transactions from auditedTransaction() are here. */
+const queued = new WeakMap<Trx, ChainRow[]>();
+
 /**
- * Appends one entry. Call inside the transaction that makes the change, as its last write: the
- * chain's lock is held from here to the commit. The database chains the entry (migration
- * 20261202001000): its hash is SHA-256 of `canonical({ ...entry, prevHash })`, and since
- * "prevHash" sorts after every other key, everything before the previous hash is sent as a prefix.
+ * Records one entry of the change the transaction makes. It is chained when the transaction ends
+ * (auditedTransaction), so it may be called anywhere in the transaction's body.
  */
-export async function appendAudit(trx: Trx, input: AuditInput): Promise<void> {
-  const at = new Date().toISOString();
-  const row = {
-    at,
+export function appendAudit(trx: Trx, input: AuditInput): Promise<void> {
+  const entries = queued.get(trx);
+  // An entry outside auditedTransaction would never be written: refuse loudly instead.
+  if (!entries) throw new Error('appendAudit needs a transaction from auditedTransaction()');
+  entries.push({
+    at: new Date().toISOString(),
     actorId: input.actorId,
     entity: input.entity,
     entityId: String(input.entityId),
@@ -62,21 +67,49 @@ export async function appendAudit(trx: Trx, input: AuditInput): Promise<void> {
     // wellFormed: a lone surrogate in stored text would fail MariaDB's JSON check.
     before: input.before === undefined ? null : wellFormed(JSON.parse(JSON.stringify(input.before)) as unknown),
     after: input.after === undefined ? null : wellFormed(JSON.parse(JSON.stringify(input.after)) as unknown),
-  };
-  await trx.raw('CALL audit_append(?, ?, ?, ?, ?, ?, ?, ?)', [
-    new Date(at),
-    row.actorId,
-    row.entity,
-    row.entityId,
-    row.action,
-    row.before === null ? null : JSON.stringify(row.before),
-    row.after === null ? null : JSON.stringify(row.after),
-    hashPrefix(row),
-  ]);
+  });
+  return Promise.resolve();
+}
+
+/**
+ * Runs `body` in a transaction and then chains its audit entries through the audit_append
+ * procedure (migration 20261202001000), whose last call also commits inside MariaDB: the chain's
+ * lock is taken and released within that one round trip. Each entry's hash is SHA-256 of
+ * `canonical({ ...entry, prevHash })`; "prevHash" sorts after every other key, so the app sends
+ * everything before the previous hash as a prefix and the database completes it.
+ */
+export async function auditedTransaction<T>(db: Db, body: (trx: Trx) => Promise<T>): Promise<T> {
+  const trx = await db.transaction();
+  queued.set(trx, []);
+  try {
+    const result = await body(trx);
+    const entries = queued.get(trx)!;
+    queued.delete(trx);
+    for (const [index, row] of entries.entries()) {
+      await trx.raw('CALL audit_append(?, ?, ?, ?, ?, ?, ?, ?, ?)', [
+        new Date(row.at),
+        row.actorId,
+        row.entity,
+        row.entityId,
+        row.action,
+        row.before === null ? null : JSON.stringify(row.before),
+        row.after === null ? null : JSON.stringify(row.after),
+        hashPrefix(row),
+        index === entries.length - 1,
+      ]);
+    }
+    // After the procedure's own COMMIT this is a no-op for MariaDB; it closes knex's transaction.
+    await trx.commit();
+    return result;
+  } catch (error) {
+    queued.delete(trx);
+    if (!trx.isCompleted()) await trx.rollback().catch(() => undefined);
+    throw error;
+  }
 }
 
 /** `canonical({ ...row, prevHash })` up to the previous hash itself; the database appends it and `"}`. */
-export function hashPrefix(row: Parameters<typeof entryHash>[1]): string {
+export function hashPrefix(row: ChainRow): string {
   return `${canonical(row).slice(0, -1)},"prevHash":"`;
 }
 

@@ -23,7 +23,7 @@ import type { Db, Trx } from '../db';
 import { AppError, ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../errors';
 import { messages, type BookingFacts } from '../mail/messages';
 import { enqueueMail } from '../mail/outbox';
-import { appendAudit } from './audit';
+import { appendAudit, auditedTransaction } from './audit';
 import { activeTemplates, applicableEntries, evaluateAnswers } from './checklists';
 import { timestampToIso, todayIso } from './dates';
 import { inspectionStateOf, tagOutInTransaction, toItemSummary, type ItemRow } from './items';
@@ -326,7 +326,7 @@ export async function createBooking(db: Db, actor: SessionUser, input: BookingCr
   // The check under lock below still decides every race this one cannot see.
   const taken = await clashingTags(db, input.itemIds, startsAt, endsAt);
   if (taken.length > 0) throw itemTaken(taken);
-  const id = await db.transaction(async (trx) => {
+  const id = await auditedTransaction(db, async (trx) => {
     const items = await loadItems(trx, [...input.itemIds].sort((a, b) => a - b), true);
     await assertItemsFree(trx, items, startsAt, endsAt);
     const assessment = await assess(trx, items, input.plan, actor.id);
@@ -360,7 +360,7 @@ export async function createBooking(db: Db, actor: SessionUser, input: BookingCr
 }
 
 export async function updateBooking(db: Db, actor: SessionUser, id: number, input: BookingUpdateInput, mail: MailContext): Promise<Booking> {
-  await db.transaction(async (trx) => {
+  await auditedTransaction(db, async (trx) => {
     const row = await lockBooking(trx, id);
     if (row.person_id !== actor.id) throw new ForbiddenError('Only the person who booked can change the booking.');
     if (!EDITABLE.includes(row.status)) throw new ConflictError(`A ${row.status} booking cannot be changed.`, 'BOOKING_LOCKED');
@@ -419,7 +419,7 @@ export async function updateBooking(db: Db, actor: SessionUser, id: number, inpu
 }
 
 export async function cancelBooking(db: Db, actor: SessionUser, id: number): Promise<Booking> {
-  await db.transaction(async (trx) => {
+  await auditedTransaction(db, async (trx) => {
     const row = await lockBooking(trx, id);
     if (!canSee(actor, row)) throw new NotFoundError(`No booking with id ${id}.`);
     if (row.person_id !== actor.id && !STAFF.includes(actor.role)) throw new ForbiddenError();
@@ -438,7 +438,7 @@ export async function decideApproval(
   input: { decision: 'approve' | 'refuse'; conditions?: string; reason?: string },
   mail: MailContext,
 ): Promise<Booking> {
-  await db.transaction(async (trx) => {
+  await auditedTransaction(db, async (trx) => {
     const row = await lockBooking(trx, id);
     // Nobody approves their own test, whatever their role.
     if (row.person_id === actor.id) throw new ForbiddenError('You cannot decide on your own booking; another officer must.');
@@ -474,7 +474,7 @@ function assertCounterAccess(actor: SessionUser, row: BookingRow): void {
 }
 
 export async function recordScan(db: Db, actor: SessionUser, id: number, tag: string): Promise<Booking> {
-  await db.transaction(async (trx) => {
+  await auditedTransaction(db, async (trx) => {
     const row = await lockBooking(trx, id);
     assertCounterAccess(actor, row);
     if (!PRE_RELEASE.includes(row.status)) throw new ConflictError(`Scanning is for release; this booking is ${row.status}.`, 'BOOKING_LOCKED');
@@ -492,7 +492,7 @@ export async function recordScan(db: Db, actor: SessionUser, id: number, tag: st
 }
 
 export async function submitChecklist(db: Db, actor: SessionUser, id: number, input: ChecklistSubmitInput): Promise<Booking> {
-  await db.transaction(async (trx) => {
+  await auditedTransaction(db, async (trx) => {
     const row = await lockBooking(trx, id);
     assertCounterAccess(actor, row);
     if (input.phase === 'pre' && !PRE_RELEASE.includes(row.status)) throw new ConflictError(`The pre-energize checklist is for release; this booking is ${row.status}.`, 'BOOKING_LOCKED');
@@ -530,7 +530,7 @@ export async function submitChecklist(db: Db, actor: SessionUser, id: number, in
 }
 
 export async function releaseBooking(db: Db, actor: SessionUser, id: number, now = new Date()): Promise<Booking> {
-  await db.transaction(async (trx) => {
+  await auditedTransaction(db, async (trx) => {
     const row = await lockBooking(trx, id);
     assertCounterAccess(actor, row);
     const itemIds = (await trx('booking_items').where({ booking_id: id }).orderBy('item_id').select('item_id')).map((r) => r.item_id as number);
@@ -574,7 +574,7 @@ export async function releaseBooking(db: Db, actor: SessionUser, id: number, now
 }
 
 export async function returnBooking(db: Db, actor: SessionUser, id: number, input: { damagedItemIds: number[]; notes: string }): Promise<Booking> {
-  await db.transaction(async (trx) => {
+  await auditedTransaction(db, async (trx) => {
     const row = await lockBooking(trx, id);
     assertCounterAccess(actor, row);
     if (row.status !== 'released') throw new ConflictError(`Only released gear can be returned; this booking is ${row.status}.`, 'BOOKING_LOCKED');

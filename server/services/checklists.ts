@@ -6,7 +6,7 @@ import type { SessionUser } from '../../shared/schemas/session';
 import type { Db, Trx } from '../db';
 import { NotFoundError, ValidationError } from '../errors';
 import { validate } from '../middleware/validate';
-import { appendAudit } from './audit';
+import { appendAudit, auditedTransaction } from './audit';
 import { sharedRead } from './shared-read';
 
 export interface TemplateRow {
@@ -129,7 +129,7 @@ function toColumns(input: ReturnType<typeof checklistTemplateItemSchema.parse>) 
 
 export async function createTemplate(db: Db, actor: SessionUser, body: ChecklistTemplateItemInput | unknown) {
   const input = validate(checklistTemplateItemSchema, body, 'checklist line');
-  const created = await db.transaction(async (trx) => {
+  const created = await auditedTransaction(db, async (trx) => {
     const [id] = (await trx('checklist_templates').insert(toColumns(input))) as [number];
     await appendAudit(trx, { actorId: actor.id, entity: 'checklist-template', entityId: id, action: 'checklist-template.created', after: input });
     return toTemplate((await trx<TemplateRow>('checklist_templates').where({ id }).first())!);
@@ -140,7 +140,7 @@ export async function createTemplate(db: Db, actor: SessionUser, body: Checklist
 
 export async function replaceTemplate(db: Db, actor: SessionUser, id: number, body: unknown) {
   const input = validate(checklistTemplateItemSchema, body, 'checklist line');
-  const replaced = await db.transaction(async (trx) => {
+  const replaced = await auditedTransaction(db, async (trx) => {
     const before = await trx<TemplateRow>('checklist_templates').where({ id, active: true }).forUpdate().first();
     if (!before) throw new NotFoundError(`No checklist line with id ${id}.`);
     await trx('checklist_templates').where({ id }).update({ ...toColumns(input), updated_at: new Date() });
@@ -153,7 +153,7 @@ export async function replaceTemplate(db: Db, actor: SessionUser, id: number, bo
 
 /** Lines are retired, not deleted: past checklist runs keep pointing at them. */
 export async function retireTemplate(db: Db, actor: SessionUser, id: number): Promise<void> {
-  await db.transaction(async (trx) => {
+  await auditedTransaction(db, async (trx) => {
     const before = await trx<TemplateRow>('checklist_templates').where({ id, active: true }).forUpdate().first();
     if (!before) throw new NotFoundError(`No checklist line with id ${id}.`);
     await trx('checklist_templates').where({ id }).update({ active: false, updated_at: new Date() });

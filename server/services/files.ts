@@ -7,7 +7,7 @@ import type { SessionUser } from '../../shared/schemas/session';
 import type { Db } from '../db';
 import { AppError, ConflictError, NotFoundError, ValidationError } from '../errors';
 import type { ObjectStore } from '../storage/object-store';
-import { appendAudit } from './audit';
+import { appendAudit, auditedTransaction } from './audit';
 import { timestampToIso } from './dates';
 
 // file-type 16 is the last CommonJS release; it reads magic numbers, not names.
@@ -70,7 +70,7 @@ export async function storeItemFile(
   const key = `items/${itemId}/${randomUUID()}`;
   await store.put(key, upload.buffer, detected.mime);
   try {
-    return await db.transaction(async (trx) => {
+    return await auditedTransaction(db, async (trx) => {
       const record = {
         item_id: itemId,
         kind: requestedKind ?? kind,

@@ -22,7 +22,7 @@ import type { SessionUser } from '../../shared/schemas/session';
 import { isDuplicateKey, type Db, type Trx } from '../db';
 import { ConflictError, NotFoundError, ValidationError } from '../errors';
 import { validate } from '../middleware/validate';
-import { appendAudit } from './audit';
+import { appendAudit, auditedTransaction } from './audit';
 import { addDaysIso, dateColumnToIso, timestampToIso, todayIso } from './dates';
 
 export interface ItemRow {
@@ -127,7 +127,7 @@ export async function getItemByTag(db: Db, tag: string): Promise<ItemRow> {
 }
 
 export async function createItem(db: Db, actor: SessionUser, input: ItemCreateInput & { kind: ItemKind; ratings: ItemRatings['ratings'] }): Promise<ItemRow> {
-  return db.transaction(async (trx) => {
+  return auditedTransaction(db, async (trx) => {
     const tag = input.tag ?? (await issueTag(trx, input.kind));
     const record = {
       tag,
@@ -171,7 +171,7 @@ function auditView(row: ItemRow) {
 }
 
 export async function updateItem(db: Db, actor: SessionUser, id: number, input: ItemUpdateInput): Promise<ItemRow> {
-  return db.transaction(async (trx) => {
+  return auditedTransaction(db, async (trx) => {
     const before = await lockItem(trx, id);
     if (before.status === 'retired') throw new ConflictError(`${before.tag} is retired; retired gear cannot be changed.`, 'ITEM_RETIRED');
     const changes: Partial<ItemRow> & { ratings?: string; updated_at: Date } = { updated_at: new Date() };
@@ -228,7 +228,7 @@ export async function recordInspection(db: Db, actor: SessionUser, itemId: numbe
   const input = validate(inspectionCreateSchema, body, 'inspection');
   const inspectedOn = input.inspectedOn ?? todayIso();
   if (inspectedOn > todayIso()) throw new ValidationError('An inspection cannot be dated in the future.', { inspectedOn: ['Pick today or an earlier date'] });
-  return db.transaction(async (trx) => {
+  return auditedTransaction(db, async (trx) => {
     const item = await lockItem(trx, itemId);
     if (item.status === 'retired') throw new ConflictError(`${item.tag} is retired.`, 'ITEM_RETIRED');
     const nextDue = addDaysIso(inspectedOn, item.inspection_interval_days);

@@ -1,7 +1,7 @@
 import type { LabRules } from '../../shared/schemas/bookings';
 import type { SessionUser } from '../../shared/schemas/session';
 import type { Db, Trx } from '../db';
-import { appendAudit } from './audit';
+import { appendAudit, auditedTransaction } from './audit';
 import { sharedRead } from './shared-read';
 
 function toLabRules(row: Record<string, unknown>): LabRules {
@@ -24,7 +24,7 @@ export function getLabRules(db: Db | Trx): Promise<LabRules> {
 }
 
 export async function updateLabRules(db: Db, actor: SessionUser, input: LabRules): Promise<LabRules> {
-  const saved = await db.transaction(async (trx) => {
+  const saved = await auditedTransaction(db, async (trx) => {
     const before = toLabRules(await trx('lab_rules').where({ id: 1 }).forUpdate().first());
     await trx('lab_rules').where({ id: 1 }).update({
       approval_kv: input.approvalKv,

@@ -2,7 +2,7 @@ import type { Qualification, QualificationInput } from '../../shared/schemas/boo
 import type { SessionUser } from '../../shared/schemas/session';
 import type { Db, Trx } from '../db';
 import { NotFoundError } from '../errors';
-import { appendAudit } from './audit';
+import { appendAudit, auditedTransaction } from './audit';
 import { dateColumnToIso, timestampToIso } from './dates';
 
 export async function getQualification(db: Db | Trx, personId: number): Promise<Qualification | null> {
@@ -19,7 +19,7 @@ export async function getQualification(db: Db | Trx, personId: number): Promise<
 }
 
 export async function setQualification(db: Db, actor: SessionUser, personId: number, input: QualificationInput): Promise<Qualification> {
-  await db.transaction(async (trx) => {
+  await auditedTransaction(db, async (trx) => {
     const person = await trx('people').where({ id: personId }).forUpdate().first('id');
     if (!person) throw new NotFoundError(`No person with id ${personId}.`);
     const before = await getQualification(trx, personId);
