@@ -398,8 +398,9 @@ function applyListing(builder: Knex.QueryBuilder, query: ItemListQuery, cursor: 
  * status and the other words. Two branches, merged by one UNION ALL:
  *  - the word itself as a term: an equality, so the (term, tag) and (term, kind, tag) indexes
  *    give tag order and MariaDB stops after a page (a whole typed word is the common case);
- *  - longer terms starting with the word ("corona" → "coronal"): a range, sorted. An item with
- *    several such terms, or with the word itself too, is taken once, at its smallest term.
+ *  - longer terms starting with the word ("corona" → "coronal"), for items without the word
+ *    itself: a range, sorted; an item with several such terms is taken once.
+ * The branches carry only the id and the sort key; the page's rows are read from items last.
  */
 function wordSearch(db: Db, query: ItemListQuery, cursor: Cursor | null, sort: Sort, words: string[]): Knex.QueryBuilder {
   const driver = words.reduce((best, w) => (Array.from(w).length > Array.from(best).length ? w : best));
@@ -410,11 +411,16 @@ function wordSearch(db: Db, query: ItemListQuery, cursor: Cursor | null, sort: S
     // would otherwise scan items and sort them all.
     const b = db({ t: 'item_terms' })
       .joinRaw('STRAIGHT_JOIN items AS i ON i.id = t.item_id')
-      .select(...SUMMARY_COLUMNS.map((col) => `i.${col}`));
+      .select({ id: 't.item_id', [sort.column]: sort.term.column });
     if (exact) b.where('t.term', driver);
     else {
       b.where('t.term', 'like', likePrefix(driver)).andWhere('t.term', '>', driver);
-      b.whereRaw('NOT EXISTS (SELECT 1 FROM item_terms AS d WHERE d.item_id = i.id AND d.term LIKE ? AND d.term < t.term)', [likePrefix(driver)]);
+      // Items with the word itself are listed by the first branch. Checked before sorting (one
+      // primary-key probe), so a word that most items have ("m") does not sort them all.
+      b.whereRaw('NOT EXISTS (SELECT 1 FROM item_terms AS x WHERE x.term = ? AND x.item_id = t.item_id)', [driver]);
+      // Once per item: at its smallest longer term (any term between the word and this one
+      // starts with the word too). Checked after sorting, only on rows that reach the page.
+      b.whereRaw('NOT EXISTS (SELECT 1 FROM item_terms AS d WHERE d.item_id = i.id AND d.term > ? AND d.term < t.term)', [driver]);
     }
     // A scalar subquery, not EXISTS: MariaDB turns EXISTS into a semi-join that reads every
     // term of the other word first; this is checked only on rows that reach the page.
@@ -422,8 +428,13 @@ function wordSearch(db: Db, query: ItemListQuery, cursor: Cursor | null, sort: S
     applyListing(b, query, cursor, sort, TERM_COLUMNS(sort));
     return b;
   };
-  const outer = sort.unique ? [{ column: sort.column, order: sort.order }] : [{ column: sort.column, order: sort.order }, { column: 'id', order: sort.order }];
-  return db.queryBuilder().unionAll([branch(true), branch(false)], true).orderBy(outer).limit(query.limit + 1);
+  const order = sort.unique ? [{ column: `p.${sort.column}`, order: sort.order }] : [{ column: `p.${sort.column}`, order: sort.order }, { column: 'p.id', order: sort.order }];
+  return db
+    .from(db.queryBuilder().unionAll([branch(true), branch(false)], true).as('p'))
+    .joinRaw('STRAIGHT_JOIN items AS i ON i.id = p.id')
+    .select(...SUMMARY_COLUMNS.map((col) => `i.${col}`))
+    .orderBy(order)
+    .limit(query.limit + 1);
 }
 
 async function listPage(db: Db, query: ItemListQuery, cursor: Cursor | null, match: TextMatch): Promise<{ items: ItemSummary[]; nextCursor: string | null }> {
