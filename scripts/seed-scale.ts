@@ -4,6 +4,7 @@
 import { loadConfig } from '../server/config';
 import { createDb, type Db } from '../server/db';
 import { addDaysIso, todayIso } from '../server/services/dates';
+import { TERM_SOURCE_COLUMNS, writeItemTerms, type TermSource } from '../server/services/item-terms';
 import { DEFAULT_INSPECTION_DAYS, ITEM_KINDS, KIND_TAG_CODES, ratedKvOf, type ItemKind, type ItemRatings } from '../shared/schemas/items';
 import { benchInstance, dbEnv, devInstance } from './lib/instances';
 import { startInstance } from './lib/mariadb';
@@ -42,6 +43,20 @@ function ratingsFor(kind: ItemKind, r: () => number): Record<string, unknown> {
   }
 }
 
+/** Inserts items and their search terms (what createItem does for one item, for a batch). */
+export async function insertSearchable(db: Db, rows: { tag: string }[]): Promise<void> {
+  await db.transaction(async (trx) => {
+    await trx('items').insert(rows);
+    const inserted = (await trx('items')
+      .whereIn(
+        'tag',
+        rows.map((r) => r.tag),
+      )
+      .select(...TERM_SOURCE_COLUMNS)) as TermSource[];
+    await writeItemTerms(trx, inserted);
+  });
+}
+
 export async function seedItems(db: Db, count: number): Promise<void> {
   const r = random(20261202);
   const start = Date.now();
@@ -76,7 +91,7 @@ export async function seedItems(db: Db, count: number): Promise<void> {
         status_reason: null,
       });
     }
-    await db('items').insert(batch);
+    await insertSearchable(db, batch);
   }
   for (const [code, last] of sequences) {
     await db.raw('INSERT INTO tag_sequences (code, last_value) VALUES (?, ?) ON DUPLICATE KEY UPDATE last_value = GREATEST(last_value, VALUES(last_value))', [code, last]);

@@ -5,6 +5,7 @@
 import type { Knex } from 'knex';
 import { appendAudit, auditedTransaction } from '../server/services/audit';
 import { addDaysIso, todayIso } from '../server/services/dates';
+import { writeItemTerms } from '../server/services/item-terms';
 import { DEFAULT_INSPECTION_DAYS, KIND_TAG_CODES, ratedKvOf, type ItemKind, type ItemRatings } from '../shared/schemas/items';
 
 type Demo = { kind: ItemKind; name: string; make: string; model: string; location: string; ratings: Record<string, unknown>; inspectedDaysAgo: number | null; fail?: string; notes?: string };
@@ -77,7 +78,7 @@ export async function seed(knex: Knex): Promise<void> {
     const interval = DEFAULT_INSPECTION_DAYS[demo.kind];
     const lastInspected = demo.inspectedDaysAgo === null ? null : addDaysIso(today, -demo.inspectedDaysAgo);
     await auditedTransaction(knex, async (trx) => {
-      const [id] = (await trx('items').insert({
+      const record = {
         tag,
         kind: demo.kind,
         name: demo.name,
@@ -95,7 +96,9 @@ export async function seed(knex: Knex): Promise<void> {
         last_inspection_result: lastInspected ? (demo.fail ? 'fail' : 'pass') : null,
         status_changed_at: demo.fail ? new Date() : null,
         status_reason: demo.fail ? `Failed inspection on ${lastInspected}: ${demo.fail}` : null,
-      })) as [number];
+      };
+      const [id] = (await trx('items').insert(record)) as [number];
+      await writeItemTerms(trx, { id, ...record });
       await appendAudit(trx, { actorId: manager.id, entity: 'item', entityId: id, action: 'item.created', after: { tag, kind: demo.kind, name: demo.name } });
       if (lastInspected) {
         await trx('inspections').insert({

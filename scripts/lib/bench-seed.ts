@@ -4,7 +4,7 @@
 import bcrypt from 'bcrypt';
 import type { Db } from '../../server/db';
 import { addDaysIso, todayIso } from '../../server/services/dates';
-import { seedItems } from '../seed-scale';
+import { insertSearchable, seedItems } from '../seed-scale';
 
 export const BENCH_PASSWORD = 'voltcrib-bench';
 export const KITS = 60;
@@ -39,7 +39,8 @@ export async function seedBench(db: Db, scale = { items: 50_000, people: 300, bo
       { kind: 'interlock', ratings: { ratedKv: 60 }, rated: 60 },
       { kind: 'probe', ratings: { maxKv: 40, ratio: 1000, inputResistanceMohm: 1000 }, rated: 40 },
     ];
-    await db('items').insert(
+    await insertSearchable(
+      db,
       kit.map((p, j) => ({
         tag: `BK-${String(k).padStart(3, '0')}-${j}`,
         kind: p.kind,
@@ -91,6 +92,6 @@ export async function seedBench(db: Db, scale = { items: 50_000, people: 300, bo
     });
     await db('booking_items').insert(links);
   }
-  await db.raw('ANALYZE TABLE items, bookings, booking_items, people');
+  await db.raw('ANALYZE TABLE items, item_terms, bookings, booking_items, people');
   console.log(`[bench] seeded ${scale.items} items, ${scale.people} people, ${scale.bookings} bookings in ${((Date.now() - started) / 1000).toFixed(0)} s`);
 }

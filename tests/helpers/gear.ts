@@ -1,6 +1,7 @@
 // Test gear written straight into the database (the registry API has its own tests).
 import type { Db } from '../../server/db';
 import { addDaysIso, todayIso } from '../../server/services/dates';
+import { writeItemTerms } from '../../server/services/item-terms';
 import { ratedKvOf, type ItemKind, type ItemRatings } from '../../shared/schemas/items';
 import { itemBody, uniqueWord } from './test-app';
 
@@ -16,7 +17,7 @@ export async function insertItem(
   const ratings = options.ratings ?? (body.ratings as Record<string, unknown>);
   const tag = `T${process.pid.toString(36).toUpperCase()}-${Date.now().toString(36).toUpperCase()}${serial}`.slice(0, 30);
   const nextDue = options.nextDue === undefined ? addDaysIso(todayIso(), 120) : options.nextDue;
-  const [id] = (await db('items').insert({
+  const record = {
     tag,
     kind,
     name: String(body.name),
@@ -29,7 +30,10 @@ export async function insertItem(
     next_inspection_due: nextDue,
     status: options.status ?? 'in-service',
     status_reason: options.status === 'out-of-service' ? 'Test: tagged out' : null,
-  })) as [number];
+  };
+  const [id] = (await db('items').insert(record)) as [number];
+  // Searchable like gear made through the API.
+  await writeItemTerms(db, { id, make: '', model: '', serial: '', ...record });
   return { id, tag };
 }
 

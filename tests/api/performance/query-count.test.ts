@@ -43,6 +43,10 @@ describe('queries per request', () => {
   it.each([
     ['/api/items?limit=1', '/api/items?limit=100'],
     ['/api/items?sort=ratedKv&limit=1', '/api/items?sort=ratedKv&limit=100'],
+    // Word search: one query whatever the page size, the sort or the number of words.
+    ['/api/items?q=unit&limit=1', '/api/items?q=unit&limit=100'],
+    ['/api/items?q=uni%20probe&sort=name&limit=1', '/api/items?q=unit%20pro&sort=name&limit=100'],
+    ['/api/items?q=unit&kind=probe&minKv=10&sort=nextDue&limit=1', '/api/items?q=unit&kind=probe&minKv=10&sort=nextDue&limit=100'],
     ['/api/bookings?limit=1', '/api/bookings?limit=100'],
     ['/api/audit?limit=1', '/api/audit?limit=200'],
   ])('%s and %s need the same number of queries', async (small, large) => {
