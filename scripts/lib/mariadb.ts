@@ -67,9 +67,10 @@ function writeConfig(instance: Instance): void {
     `innodb_buffer_pool_size=${instance.bufferPool ?? '64M'}`,
     'innodb_log_file_size=48M',
     'max_connections=400',
-    // Gear search uses a FULLTEXT index; tag parts such as "KV" or "01" are two characters long.
+    // Gear search has its own word table now (item_terms); these two matter only if its migration
+    // is rolled back to the FULLTEXT index: tag parts such as "KV" or "01" are two characters
+    // long, and words such as "for" or "on" are legitimate parts of gear names.
     'innodb_ft_min_token_size=2',
-    // Words such as "for" or "on" are legitimate parts of gear names; do not drop them.
     'innodb_ft_enable_stopword=OFF',
     // mariadbd refuses to run as root unless told to; running as `mysql` fails on private parents.
     ...(isRoot ? ['user=root'] : []),
