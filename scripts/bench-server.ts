@@ -35,7 +35,7 @@ async function explainLists(db: Db, base: string, urls: string[], headers: Recor
     db.on('query', listener);
     await (await fetch(`${base}${url}`, { headers })).arrayBuffer();
     db.removeListener('query', listener);
-    for (const q of captured.filter((c) => /^select/i.test(c.sql) && !/from `sessions`/i.test(c.sql))) {
+    for (const q of captured.filter((c) => /^select/i.test(c.sql) && !/from `?sessions`?/i.test(c.sql))) {
       const [rows] = (await db.raw(`EXPLAIN ${q.sql}`, q.bindings as never)) as [{ table: string; type: string; key: string | null; rows: number }[]];
       out.push({ url, sql: q.sql.slice(0, 160), scans: rows.map((r) => `${r.table}:${r.type}${r.key ? `(${r.key})` : ''}~${r.rows}`) });
     }

@@ -22,11 +22,10 @@ export class SessionStore extends ConnectSessionKnexStore {
   /** Reads the row's expiry too, so `touch` can tell whether a write is worth it. */
   override async get(sid: string, callback: Callback<SessionData | null>): Promise<SessionData | null> {
     try {
-      const row = await this.db('sessions')
-        .select('sess', 'expired')
-        .where('sid', sid)
-        .andWhere('expired', '>', new Date())
-        .first<{ sess: unknown; expired: Date } | undefined>();
+      // Raw SQL: this runs on every signed-in request, and the query builder's work showed up in the
+      // bench profile next to the query itself.
+      const [rows] = (await this.db.raw('SELECT sess, expired FROM sessions WHERE sid = ? AND expired > ? LIMIT 1', [sid, new Date()])) as [{ sess: unknown; expired: Date }[]];
+      const row = rows[0];
       if (!row) {
         callback(null, null);
         return null;

@@ -5,7 +5,7 @@ import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import type { Locator, Page } from 'playwright-core';
 import { PNG } from 'pngjs';
-import { insertItem } from '../helpers/gear';
+import { insertItem, renameItem } from '../helpers/gear';
 import { createPerson, uniqueWord } from '../helpers/test-app';
 import { launchBrowser, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, startE2eServer, WIDE, type BrowserHandle, type E2eServer } from '../helpers/e2e';
 
@@ -147,7 +147,7 @@ describe('the gear list filters', () => {
       [supply, 'supply'],
       [stick, 'stick'],
     ] as const) {
-      await server.db('items').where({ id: item.id }).update({ name: `Filter ${word} ${label}` });
+      await renameItem(server.db, item.id, `Filter ${word} ${label}`);
     }
   });
 
@@ -298,7 +298,7 @@ describe('a manager on an item page', () => {
     const word = uniqueWord();
     const first = await insertItem(server.db, 'probe');
     const second = await insertItem(server.db, 'interlock');
-    for (const item of [first, second]) await server.db('items').where({ id: item.id }).update({ name: `Label ${word} ${item.tag}` });
+    for (const item of [first, second]) await renameItem(server.db, item.id, `Label ${word} ${item.tag}`);
     const { context, page } = await newPage(browser.browser, PHONE);
     try {
       await signInThroughUi(page, server.baseUrl, manager.email, manager.password);

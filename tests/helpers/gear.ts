@@ -37,6 +37,12 @@ export async function insertItem(
   return { id, tag };
 }
 
+/** Renames test gear in place and rewrites its search words, as an edit through the API would. */
+export async function renameItem(db: Db, id: number, name: string): Promise<void> {
+  await db('items').where({ id }).update({ name });
+  await writeItemTerms(db, await db('items').where({ id }).first('id', 'kind', 'tag', 'rated_kv', 'name', 'make', 'model', 'serial', 'location'));
+}
+
 /** A complete 30 kV kit: supply with bleeder, grounding stick, stand, interlock and probe. */
 export async function insertKit(db: Db) {
   const supply = await insertItem(db, 'hv-supply', { ratings: { maxKv: 30, maxMa: 2, polarity: 'negative', outputCapacitanceNf: 5, bleederMohm: 300, hasInterlockInput: true } });
