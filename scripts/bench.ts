@@ -1,7 +1,8 @@
-// `npm run bench`: the product at scale on its own database, driven over loopback by autocannon.
-// Every figure is also given as a ratio to a reference route measured in the same run (one
-// primary-key SELECT through the same knex pool, no session), because the machine is shared and
-// absolute numbers swing between runs. Results: stdout table + bench/results/<time>.json.
+// `npm run bench`: the product at scale on its own database, driven over loopback by autocannon
+// from this process, while the server runs in a process of its own (scripts/bench-server.ts).
+// Every figure is also given as a ratio to a reference route (one primary-key SELECT through the
+// same knex pool, no session) measured just before it, because the machine is shared and absolute
+// numbers swing between and within runs. Results: stdout table + bench/results/<time>.json.
 import autocannon from 'autocannon';
 import { fork, type ChildProcess } from 'node:child_process';
 import { mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
@@ -19,6 +20,8 @@ import { migrateLatest } from './lib/migrate';
 const ROOT = path.resolve(__dirname, '..');
 const DURATION_S = Number(process.env.BENCH_SECONDS ?? 10);
 const CONNECTIONS = 50;
+/** How long the reference runs before each route. */
+const REFERENCE_S = Math.max(3, Math.round(DURATION_S / 2));
 /** BENCH_ONLY=session,search measures just the routes whose key is listed (the reference always). */
 const ONLY = process.env.BENCH_ONLY?.split(',').filter(Boolean) ?? null;
 const LIST_URLS = ['/api/items?q=corona&kind=probe&minKv=50', '/api/items', '/api/items?kind=probe&minKv=50&sort=ratedKv', '/api/items?due=overdue&sort=nextDue', '/api/bookings?mine=1', '/api/bookings?status=overdue', '/api/audit?limit=50'];
@@ -33,6 +36,8 @@ interface Row {
   serverMsMedian?: number;
   /** Server process CPU time per request, microseconds. */
   serverCpuUs?: number;
+  /** The reference's req/s measured just before this route; the ratio's denominator. */
+  referenceReqPerSec?: number;
 }
 
 function mainBundle(): { file: string; rawBytes: number; gzipBytes: number } | null {
@@ -185,19 +190,29 @@ async function main(): Promise<void> {
   await db('booking_items').whereIn('item_id', kitRows.map((r) => r.id)).update({ live: false });
 
   const rows: Row[] = [];
+  // Each route is paired with a run of the reference just before it: the shared machine drifts
+  // by half or more within one bench run, so only neighbouring measurements compare.
+  const referenceUrl = `${base}/api/bench/reference`;
+  const referenceNow = async () => (await run({ url: referenceUrl, duration: REFERENCE_S })).requests.average;
   const measure = async (key: string, route: string, opts: autocannon.Options, serverUrl?: string) => {
     if (ONLY && key !== 'reference' && !ONLY.includes(key)) return;
+    const referenceReqPerSec = key === 'reference' ? undefined : await referenceNow();
     const cpuBefore = await serverCpuMicros(child);
     const result = await run(opts);
     const cpuPerRequest = (await serverCpuMicros(child)) - cpuBefore;
-    const row: Row = { route, reqPerSec: result.requests.average, p50Ms: result.latency.p50, p99Ms: result.latency.p99, ratio: 0, statuses: statusCounts(result), serverCpuUs: cpuPerRequest / Math.max(1, (result.requests as unknown as { total: number }).total) };
+    const row: Row = { route, reqPerSec: result.requests.average, p50Ms: result.latency.p50, p99Ms: result.latency.p99, ratio: 0, statuses: statusCounts(result), serverCpuUs: cpuPerRequest / Math.max(1, (result.requests as unknown as { total: number }).total), referenceReqPerSec };
     if (serverUrl) row.serverMsMedian = await serverTime(base, serverUrl, headers);
     rows.push(row);
     console.log(`[bench] ${route}: ${row.reqPerSec.toFixed(0)} req/s, p50 ${row.p50Ms} ms, p99 ${row.p99Ms} ms, server CPU ${row.serverCpuUs?.toFixed(0)} µs/request`);
   };
 
   const lastKit = KITS - 1;
-  await measure('reference', 'reference: primary-key SELECT, no session (behind the app\'s headers and log)', { url: `${base}/api/bench/reference` });
+  // Warm-up, not recorded: JIT, the pool's connections and MariaDB's buffer pool would otherwise
+  // all be charged to whichever route runs first.
+  for (const url of [`${base}/api/bench/reference`, `${base}/api/session`, `${base}/api/items?q=corona&kind=probe&minKv=50`, `${base}/api/bookings?mine=1`]) {
+    await run({ url, headers, duration: 3 });
+  }
+  await measure('reference', 'reference: primary-key SELECT, no session (behind the app\'s headers and log)', { url: referenceUrl });
   await measure('bare', 'same SELECT on a bare Express app (no headers, log or timing)', { url: `${base}/bench/bare` });
   await measure('session', 'GET /api/session (signed in)', { url: `${base}/api/session`, headers });
   await measure('search', 'GET /api/items?q=corona&kind=probe&minKv=50', { url: `${base}/api/items?q=corona&kind=probe&minKv=50`, headers }, '/api/items?q=corona&kind=probe&minKv=50');
@@ -216,25 +231,28 @@ async function main(): Promise<void> {
     body: JSON.stringify({ itemIds: kitIds[lastKit - 1], startsAt: contention.toISOString(), endsAt: new Date(contention.getTime() + 3600_000).toISOString(), location: 'Bench bay', purpose: 'Contention', plan: { plannedKv: 10, polarity: 'negative', maxCurrentMa: 1, peoplePresent: 2 } }),
   });
   if (!ONLY || ONLY.includes('release')) {
+    const referenceReqPerSec = await referenceNow();
     const cpuBefore = await serverCpuMicros(child);
     const loop = await releaseLoop(base, member, kits, kitIds);
     const serverCpuUs = ((await serverCpuMicros(child)) - cpuBefore) / Math.max(1, loop.requestsPerSec * DURATION_S);
-    rows.push({ route: 'release loop, each request (book, 5 scans, checklists, release, return)', reqPerSec: loop.requestsPerSec, p50Ms: Math.round(loop.requestP50), p99Ms: Math.round(loop.requestP99), ratio: 0, statuses: loop.statuses, serverCpuUs });
+    rows.push({ route: 'release loop, each request (book, 5 scans, checklists, release, return)', reqPerSec: loop.requestsPerSec, p50Ms: Math.round(loop.requestP50), p99Ms: Math.round(loop.requestP99), ratio: 0, statuses: loop.statuses, serverCpuUs, referenceReqPerSec });
     rows.push({ route: 'release loop, whole loop (book to release)', reqPerSec: loop.loopsPerSec, p50Ms: Math.round(loop.p50), p99Ms: Math.round(loop.p99), ratio: 0, statuses: {} });
   }
 
-  const reference = rows[0]!.reqPerSec;
   // A whole loop is eight requests; a ratio of loops to single requests would mean nothing.
-  for (const row of rows) row.ratio = row.route.includes('whole loop') ? NaN : row.reqPerSec / reference;
+  for (const row of rows) {
+    if (row.route.includes('whole loop')) row.ratio = NaN;
+    else row.ratio = row.reqPerSec / (row.referenceReqPerSec ?? rows[0]!.reqPerSec);
+  }
   // An officer sees every list, the staff-only ones (all bookings, audit) included.
   const officer = await signIn(base, 'bench-1@voltcrib.example');
   const explains = await explainLists(child, LIST_URLS, { cookie: officer.cookie });
   const bundle = mainBundle();
 
   const table = [
-    '| route | req/s | ratio to reference | p50 ms | p99 ms | server ms (median) | server CPU µs/request | statuses |',
-    '| --- | --- | --- | --- | --- | --- | --- | --- |',
-    ...rows.map((r) => `| ${r.route} | ${r.reqPerSec.toFixed(r.reqPerSec < 10 ? 2 : 0)} | ${Number.isNaN(r.ratio) ? '' : r.ratio.toFixed(2)} | ${r.p50Ms} | ${r.p99Ms} | ${r.serverMsMedian?.toFixed(1) ?? ''} | ${r.serverCpuUs?.toFixed(0) ?? ''} | ${Object.entries(r.statuses).filter(([, v]) => v).map(([k, v]) => `${k}:${v}`).join(' ')} |`),
+    '| route | req/s | reference req/s just before | ratio to reference | p50 ms | p99 ms | server ms (median) | server CPU µs/request | statuses |',
+    '| --- | --- | --- | --- | --- | --- | --- | --- | --- |',
+    ...rows.map((r) => `| ${r.route} | ${r.reqPerSec.toFixed(r.reqPerSec < 10 ? 2 : 0)} | ${r.referenceReqPerSec?.toFixed(0) ?? ''} | ${Number.isNaN(r.ratio) ? '' : r.ratio.toFixed(2)} | ${r.p50Ms} | ${r.p99Ms} | ${r.serverMsMedian?.toFixed(1) ?? ''} | ${r.serverCpuUs?.toFixed(0) ?? ''} | ${Object.entries(r.statuses).filter(([, v]) => v).map(([k, v]) => `${k}:${v}`).join(' ')} |`),
   ].join('\n');
   const machine = `${os.cpus().length} × ${os.cpus()[0]?.model ?? 'cpu'}, ${(os.totalmem() / 2 ** 30).toFixed(0)} GiB, Node ${process.version}, ${DURATION_S} s per route, ${CONNECTIONS} connections`;
   console.log(`\n${machine}\n\n${table}\n`);
