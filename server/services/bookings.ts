@@ -207,7 +207,14 @@ export async function listBookings(
   // Only the summary's columns: the stored assessment JSON is kilobytes a row and not needed here.
   const builder = db('bookings as b')
     .join('people as p', 'p.id', 'b.person_id')
-    .select('b.id', 'b.person_id', 'b.status', 'b.starts_at', 'b.ends_at', 'b.location', 'b.purpose', 'b.planned_kv', 'b.approval_required', 'p.name as person_name');
+    .select('b.id', 'b.person_id', 'b.status', 'b.starts_at', 'b.ends_at', 'b.location', 'b.purpose', 'b.planned_kv', 'b.approval_required', 'p.name as person_name')
+    // Each booking's tags with its row: a per-row lookup on booking_items' key, one round trip for
+    // the page instead of two (every round trip costs a context switch on a small server).
+    .select(
+      db.raw(
+        '(SELECT JSON_ARRAYAGG(i.tag ORDER BY i.tag) FROM booking_items AS bi JOIN items AS i ON i.id = bi.item_id WHERE bi.booking_id = b.id) AS item_tags',
+      ),
+    );
   if (mine) builder.where('b.person_id', actor.id);
   if (query.status === 'overdue') builder.where('b.status', 'released').andWhere('b.ends_at', '<', new Date());
   else if (query.status === 'live') builder.whereIn('b.status', LIVE_STATUSES);
@@ -220,10 +227,6 @@ export async function listBookings(
   }
   const rows = await builder.orderBy('b.id', 'desc').limit(query.limit + 1);
   const page = rows.slice(0, query.limit);
-  // One query for every tag on the page, whatever the page size.
-  const tags = page.length
-    ? await db('booking_items as bi').join('items as i', 'i.id', 'bi.item_id').whereIn('bi.booking_id', page.map((r) => r.id)).orderBy('i.tag').select('bi.booking_id', 'i.tag')
-    : [];
   return {
     bookings: page.map((r) => ({
       id: r.id,
@@ -237,7 +240,7 @@ export async function listBookings(
       purpose: r.purpose,
       plannedKv: Number(r.planned_kv),
       approvalRequired: Boolean(r.approval_required),
-      itemTags: tags.filter((t) => t.booking_id === r.id).map((t) => t.tag),
+      itemTags: (typeof r.item_tags === 'string' ? JSON.parse(r.item_tags) : (r.item_tags ?? [])) as string[],
     })),
     nextCursor: rows.length > query.limit ? String(page[page.length - 1]!.id) : null,
   };

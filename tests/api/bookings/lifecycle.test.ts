@@ -148,6 +148,8 @@ describe('cancel, list and visibility', () => {
     const mine = await member.agent.get('/api/bookings?mine=1&limit=5').expect(200);
     expect(mine.body.bookings[0].id).toBe(booking.id);
     expect(mine.body.bookings[0].itemTags).toHaveLength(5);
+    // The booking's own tags, in tag order.
+    expect(mine.body.bookings[0].itemTags).toEqual(booking.items.map((i: { tag: string }) => i.tag).sort());
     const other = await signedInAs(ctx, 'member');
     expect((await other.agent.get(`/api/bookings/${booking.id}`)).status).toBe(404);
     const theirs = await other.agent.get('/api/bookings').expect(200);
