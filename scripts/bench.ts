@@ -11,7 +11,7 @@ import path from 'node:path';
 import { gzipSync } from 'node:zlib';
 import { loadConfig } from '../server/config';
 import { createDb } from '../server/db';
-import type { BenchServerMessage, ExplainRow } from './bench-server';
+import type { BenchServerMessage } from './bench-server';
 import { benchInstance, dbEnv } from './lib/instances';
 import { BENCH_PASSWORD, KITS, seedBench } from './lib/bench-seed';
 import { startInstance } from './lib/mariadb';
@@ -149,23 +149,21 @@ function startBenchServer(): Promise<{ child: ChildProcess; base: string }> {
   });
 }
 
-function serverCpuMicros(child: ChildProcess): Promise<number> {
+/** Sends the bench server a request and waits for its answer of the given type. */
+function ask<K extends BenchServerMessage['type']>(child: ChildProcess, request: Record<string, unknown>, answer: K): Promise<Extract<BenchServerMessage, { type: K }>> {
   return new Promise((resolve) => {
-    child.once('message', (message: BenchServerMessage) => {
-      if (message.type === 'cpu') resolve(message.micros);
-    });
-    child.send({ type: 'cpu' });
+    const listener = (message: BenchServerMessage) => {
+      if (message.type !== answer) return;
+      child.off('message', listener);
+      resolve(message as Extract<BenchServerMessage, { type: K }>);
+    };
+    child.on('message', listener);
+    child.send(request);
   });
 }
 
-function explainLists(child: ChildProcess, urls: string[], headers: Record<string, string>): Promise<ExplainRow[]> {
-  return new Promise((resolve) => {
-    child.once('message', (message: BenchServerMessage) => {
-      if (message.type === 'explains') resolve(message.explains);
-    });
-    child.send({ type: 'explain', urls, headers });
-  });
-}
+const serverCpuMicros = async (child: ChildProcess) => (await ask(child, { type: 'cpu' }, 'cpu')).micros;
+const explainLists = async (child: ChildProcess, urls: string[], headers: Record<string, string>) => (await ask(child, { type: 'explain', urls, headers }, 'explains')).explains;
 
 async function main(): Promise<void> {
   const options = benchInstance();
