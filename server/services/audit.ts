@@ -3,7 +3,8 @@
 // edit or removal made behind the application's back.
 import { createHash } from 'node:crypto';
 import type { AuditEvent, AuditPage, AuditVerification } from '../../shared/schemas/audit';
-import type { Db, Trx } from '../db';
+import { isDatabaseUnavailable, type Db, type Trx } from '../db';
+import { AppError, UnavailableError } from '../errors';
 import { wellFormed } from '../well-formed';
 
 export interface AuditInput {
@@ -103,8 +104,14 @@ export async function auditedTransaction<T>(db: Db, body: (trx: Trx) => Promise<
     return result;
   } catch (error) {
     queued.delete(trx);
-    if (!trx.isCompleted()) await trx.rollback().catch(() => undefined);
-    throw error;
+    if (!trx.isCompleted()) {
+      await trx.rollback().catch(() => undefined);
+      throw error;
+    }
+    // Knex ends a transaction by itself when its connection dies; the body's next query then
+    // fails with "Transaction query already complete". Report the outage, not that symptom.
+    if (error instanceof AppError || isDatabaseUnavailable(error)) throw error;
+    throw new UnavailableError();
   }
 }
 

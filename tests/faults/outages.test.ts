@@ -162,7 +162,8 @@ describe('the database is killed mid-load', () => {
     // During the outage: clear 503 JSON answers, each within a second, none hanging.
     const failedDuring = outage.answers.filter((a) => a.status >= 500 || a.status === 0);
     expect(failedDuring.length).toBeGreaterThan(0);
-    expect(failedDuring.every((a) => a.status === 503)).toBe(true);
+    // Listed, not just counted, so a failure says which answers were not a clean 503.
+    expect(failedDuring.filter((a) => a.status !== 503)).toEqual([]);
     expect(Math.max(...failedDuring.map((a) => a.ms))).toBeLessThan(1000);
     expect(outage.answers.filter((a) => a.code).every((a) => a.code === 'SERVICE_UNAVAILABLE' || a.status < 500)).toBe(true);
     expect(firstAfter.status).toBe(200);
