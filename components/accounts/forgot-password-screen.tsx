@@ -1,5 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { Controller, useForm } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import type { z } from 'zod';
 
@@ -11,7 +11,7 @@ import { Card } from '@/components/ui/card';
 import { FormAlert } from '@/components/ui/form-alert';
 import { Icon } from '@/components/ui/icon';
 import { Screen } from '@/components/ui/screen';
-import { TextField } from '@/components/ui/text-field';
+import { EMAIL_INPUT, FormTextField } from '@/components/ui/form-text-field';
 import { TextLink } from '@/components/ui/text-link';
 import { useRequestPasswordResetMutation } from '@/hooks/use-accounts';
 import { passwordResetRequestSchema } from '@/shared/schemas/accounts';
@@ -60,28 +60,16 @@ export function ForgotPasswordScreen() {
         <Card>
           <AppText tone="muted">Enter the e-mail you sign in with. We send a link to choose a new password.</AppText>
           <View style={styles.fields}>
-            <Controller
+            <FormTextField
               control={control}
               name="email"
-              render={({ field: { ref, value, onChange, onBlur } }) => (
-                <TextField
-                  ref={ref}
-                  label="E-mail"
-                  testID="forgot-password-email"
-                  value={value}
-                  onChangeText={onChange}
-                  onBlur={onBlur}
-                  error={errors.email?.message}
-                  autoComplete="email"
-                  textContentType="username"
-                  inputMode="email"
-                  keyboardType="email-address"
-                  autoCapitalize="none"
-                  autoCorrect={false}
-                  returnKeyType="send"
-                  onSubmitEditing={() => void submit()}
-                />
-              )}
+              label="E-mail"
+              testID="forgot-password-email"
+              {...EMAIL_INPUT}
+              autoComplete="email"
+              textContentType="username"
+              returnKeyType="send"
+              onSubmitEditing={() => void submit()}
             />
             {errors.root?.server?.message ? <FormAlert testID="forgot-password-error" message={errors.root.server.message} /> : null}
             <Button

@@ -1,12 +1,12 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { Controller, useForm } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import { z } from 'zod';
 
 import { spacing } from '@/components/theme/tokens';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
-import { TextField } from '@/components/ui/text-field';
+import { FormTextField, PASSWORD_INPUT } from '@/components/ui/form-text-field';
 import { setPasswordSchema } from '@/shared/schemas/accounts';
 
 import { showServerErrors } from './server-field-errors';
@@ -47,49 +47,27 @@ export function SetPasswordForm({ testIdPrefix, submitLabel, submittingLabel, on
 
   return (
     <View style={styles.form}>
-      <Controller
+      <FormTextField
         control={control}
         name="password"
-        render={({ field: { ref, value, onChange, onBlur } }) => (
-          <TextField
-            ref={ref}
-            label="New password"
-            hint="At least 10 characters. A few unrelated words are easy to remember and hard to guess."
-            testID={`${testIdPrefix}-password`}
-            value={value}
-            onChangeText={onChange}
-            onBlur={onBlur}
-            error={errors.password?.message}
-            secureTextEntry
-            autoComplete="new-password"
-            textContentType="newPassword"
-            autoCapitalize="none"
-            autoCorrect={false}
-            returnKeyType="next"
-          />
-        )}
+        label="New password"
+        hint="At least 10 characters. A few unrelated words are easy to remember and hard to guess."
+        testID={`${testIdPrefix}-password`}
+        {...PASSWORD_INPUT}
+        autoComplete="new-password"
+        textContentType="newPassword"
+        returnKeyType="next"
       />
-      <Controller
+      <FormTextField
         control={control}
         name="confirm"
-        render={({ field: { ref, value, onChange, onBlur } }) => (
-          <TextField
-            ref={ref}
-            label="Same password again"
-            testID={`${testIdPrefix}-confirm`}
-            value={value}
-            onChangeText={onChange}
-            onBlur={onBlur}
-            error={errors.confirm?.message}
-            secureTextEntry
-            autoComplete="new-password"
-            textContentType="newPassword"
-            autoCapitalize="none"
-            autoCorrect={false}
-            returnKeyType="go"
-            onSubmitEditing={() => void submit()}
-          />
-        )}
+        label="Same password again"
+        testID={`${testIdPrefix}-confirm`}
+        {...PASSWORD_INPUT}
+        autoComplete="new-password"
+        textContentType="newPassword"
+        returnKeyType="go"
+        onSubmitEditing={() => void submit()}
       />
       {errors.root?.server?.message ? <FormAlert testID={`${testIdPrefix}-error`} message={errors.root.server.message} /> : null}
       <Button label={submitLabel} loadingLabel={submittingLabel} testID={`${testIdPrefix}-submit`} icon="login" block loading={isSubmitting} onPress={() => void submit()} />

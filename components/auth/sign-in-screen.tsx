@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { router, type Href } from 'expo-router';
-import { Controller, useForm } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 
 import { layout, spacing } from '@/components/theme/tokens';
@@ -9,7 +9,7 @@ import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { FormAlert } from '@/components/ui/form-alert';
 import { Screen } from '@/components/ui/screen';
-import { TextField } from '@/components/ui/text-field';
+import { EMAIL_INPUT, FormTextField, PASSWORD_INPUT } from '@/components/ui/form-text-field';
 import { TextLink } from '@/components/ui/text-link';
 import { VoltcribLockup } from '@/components/ui/voltcrib-mark';
 import { describeError } from '@/components/ui/error-state';
@@ -72,49 +72,26 @@ export function SignInScreen({ next }: SignInScreenProps) {
           Sign in
         </AppText>
         <View style={styles.fields}>
-          <Controller
+          <FormTextField
             control={control}
             name="email"
-            render={({ field: { ref, value, onChange, onBlur } }) => (
-              <TextField
-                ref={ref}
-                label="E-mail"
-                testID="sign-in-email"
-                value={value}
-                onChangeText={onChange}
-                onBlur={onBlur}
-                error={errors.email?.message}
-                autoComplete="email"
-                textContentType="username"
-                inputMode="email"
-                keyboardType="email-address"
-                autoCapitalize="none"
-                autoCorrect={false}
-                returnKeyType="next"
-              />
-            )}
+            label="E-mail"
+            testID="sign-in-email"
+            {...EMAIL_INPUT}
+            autoComplete="email"
+            textContentType="username"
+            returnKeyType="next"
           />
-          <Controller
+          <FormTextField
             control={control}
             name="password"
-            render={({ field: { ref, value, onChange, onBlur } }) => (
-              <TextField
-                ref={ref}
-                label="Password"
-                testID="sign-in-password"
-                value={value}
-                onChangeText={onChange}
-                onBlur={onBlur}
-                error={errors.password?.message}
-                secureTextEntry
-                autoComplete="current-password"
-                textContentType="password"
-                autoCapitalize="none"
-                autoCorrect={false}
-                returnKeyType="go"
-                onSubmitEditing={() => void onSubmit()}
-              />
-            )}
+            label="Password"
+            testID="sign-in-password"
+            {...PASSWORD_INPUT}
+            autoComplete="current-password"
+            textContentType="password"
+            returnKeyType="go"
+            onSubmitEditing={() => void onSubmit()}
           />
         </View>
         {errors.root?.server?.message ? <FormAlert testID="sign-in-error" message={errors.root.server.message} /> : null}

@@ -9,7 +9,7 @@ import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { FormAlert } from '@/components/ui/form-alert';
 import { SegmentedControl } from '@/components/ui/segmented-control';
-import { TextField } from '@/components/ui/text-field';
+import { EMAIL_INPUT, FormTextField } from '@/components/ui/form-text-field';
 import { isApiError } from '@/hooks/api-client';
 import { useGroupsQuery, useInvitePersonMutation } from '@/hooks/use-people';
 import { invitationSchema, type InvitationInput } from '@/shared/schemas/accounts';
@@ -55,33 +55,8 @@ export function InviteForm({ onSent, onCancel }: InviteFormProps) {
     <Card title="Invite a person" testID="people-invite-form">
       <AppText tone="muted">They get an e-mail with a link to set their password. The link works once.</AppText>
       <View style={styles.fields}>
-        <Controller
-          control={control}
-          name="name"
-          render={({ field: { ref, value, onChange, onBlur } }) => (
-            <TextField ref={ref} label="Name" testID="invite-name" value={value} onChangeText={onChange} onBlur={onBlur} error={errors.name?.message} autoComplete="off" returnKeyType="next" />
-          )}
-        />
-        <Controller
-          control={control}
-          name="email"
-          render={({ field: { ref, value, onChange, onBlur } }) => (
-            <TextField
-              ref={ref}
-              label="E-mail"
-              testID="invite-email"
-              value={value}
-              onChangeText={onChange}
-              onBlur={onBlur}
-              error={errors.email?.message}
-              inputMode="email"
-              keyboardType="email-address"
-              autoCapitalize="none"
-              autoCorrect={false}
-              autoComplete="off"
-            />
-          )}
-        />
+        <FormTextField control={control} name="name" label="Name" testID="invite-name" autoComplete="off" returnKeyType="next" />
+        <FormTextField control={control} name="email" label="E-mail" testID="invite-email" {...EMAIL_INPUT} autoComplete="off" />
         <Controller
           control={control}
           name="role"

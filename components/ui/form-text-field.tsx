@@ -1,0 +1,31 @@
+import type { ComponentProps } from 'react';
+import { Controller, type Control, type FieldPath, type FieldValues } from 'react-hook-form';
+
+import { TextField } from './text-field';
+
+type FormTextFieldProps<T extends FieldValues> = Omit<ComponentProps<typeof TextField>, 'value' | 'onChangeText' | 'onBlur' | 'ref' | 'error'> & {
+  control: Control<T>;
+  name: FieldPath<T>;
+};
+
+/**
+ * A TextField bound to one react-hook-form field: its value, changes, blur, the field's message,
+ * and the ref a failed submit focuses.
+ */
+export function FormTextField<T extends FieldValues>({ control, name, ...fieldProps }: FormTextFieldProps<T>) {
+  return (
+    <Controller
+      control={control}
+      name={name}
+      render={({ field: { ref, value, onChange, onBlur }, fieldState }) => (
+        <TextField {...fieldProps} ref={ref} value={value} onChangeText={onChange} onBlur={onBlur} error={fieldState.error?.message} />
+      )}
+    />
+  );
+}
+
+/** How an e-mail address is typed: the right keyboard, no capitals or autocorrect. */
+export const EMAIL_INPUT = { inputMode: 'email', keyboardType: 'email-address', autoCapitalize: 'none', autoCorrect: false } as const;
+
+/** How a password is typed: hidden, no capitals or autocorrect. */
+export const PASSWORD_INPUT = { secureTextEntry: true, autoCapitalize: 'none', autoCorrect: false } as const;
