@@ -194,7 +194,8 @@ describe('the Planner on a phone', () => {
       await type(page, 'voltage', '10');
       await type(page, 'bleeder', '100');
       await page.getByTestId('planner-copy').click();
-      await expect(page.getByTestId('planner-copy').textContent()).resolves.toBe('Copied');
+      // The label changes once the clipboard write has finished, which may take a moment.
+      await page.getByTestId('planner-copy').getByText('Copied', { exact: true }).waitFor({ timeout: 10_000 });
       const copied = await page.evaluate(() => navigator.clipboard.readText());
       expect(copied).toContain('Capacitance: 1 µF');
       expect(copied).toContain('Stored energy: 50 J   [E = ½CV²]');
