@@ -11,7 +11,7 @@ import { Card } from '@/components/ui/card';
 import { FormAlert } from '@/components/ui/form-alert';
 import { Icon } from '@/components/ui/icon';
 import { Screen } from '@/components/ui/screen';
-import { EMAIL_INPUT, FormTextField } from '@/components/ui/form-text-field';
+import { EMAIL_INPUT, FormTextField } from '@/components/ui/form-fields';
 import { TextLink } from '@/components/ui/text-link';
 import { useRequestPasswordResetMutation } from '@/hooks/use-accounts';
 import { passwordResetRequestSchema } from '@/shared/schemas/accounts';

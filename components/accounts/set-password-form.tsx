@@ -6,7 +6,7 @@ import { z } from 'zod';
 import { spacing } from '@/components/theme/tokens';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
-import { FormTextField, PASSWORD_INPUT } from '@/components/ui/form-text-field';
+import { FormTextField, PASSWORD_INPUT } from '@/components/ui/form-fields';
 import { setPasswordSchema } from '@/shared/schemas/accounts';
 
 import { showServerErrors } from './server-field-errors';

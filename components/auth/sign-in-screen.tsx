@@ -9,7 +9,7 @@ import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { FormAlert } from '@/components/ui/form-alert';
 import { Screen } from '@/components/ui/screen';
-import { EMAIL_INPUT, FormTextField, PASSWORD_INPUT } from '@/components/ui/form-text-field';
+import { EMAIL_INPUT, FormTextField, PASSWORD_INPUT } from '@/components/ui/form-fields';
 import { TextLink } from '@/components/ui/text-link';
 import { VoltcribLockup } from '@/components/ui/voltcrib-mark';
 import { describeError } from '@/components/ui/error-state';

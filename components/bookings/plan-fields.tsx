@@ -3,7 +3,7 @@ import { StyleSheet, View } from 'react-native';
 
 import { spacing } from '@/components/theme/tokens';
 import { ChoiceChips } from '@/components/ui/choice-chips';
-import { NumberField } from '@/components/ui/number-field';
+import { FormNumberField } from '@/components/ui/form-fields';
 import { POLARITIES, type Polarity } from '@/shared/schemas/items';
 
 import type { BookFormValues } from './book-form-values';
@@ -19,22 +19,13 @@ interface PlanFieldsProps {
 export function PlanFields({ control, errors }: PlanFieldsProps) {
   return (
     <View style={styles.root}>
-      <Controller
+      <FormNumberField
         control={control}
         name="plan.plannedKv"
-        render={({ field }) => (
-          <NumberField
-            ref={field.ref}
-            label="Planned maximum voltage"
-            unit="kV"
-            value={field.value}
-            onChange={field.onChange}
-            onBlur={field.onBlur}
-            error={errors.plan?.plannedKv?.message}
-            hint="The highest voltage you will set, not the usual one."
-            testID="book-planned-kv"
-          />
-        )}
+        label="Planned maximum voltage"
+        unit="kV"
+        hint="The highest voltage you will set, not the usual one."
+        testID="book-planned-kv"
       />
       <Controller
         control={control}
@@ -50,40 +41,15 @@ export function PlanFields({ control, errors }: PlanFieldsProps) {
           />
         )}
       />
-      <Controller
+      <FormNumberField
         control={control}
         name="plan.maxCurrentMa"
-        render={({ field }) => (
-          <NumberField
-            ref={field.ref}
-            label="Maximum current"
-            unit="mA"
-            value={field.value}
-            onChange={field.onChange}
-            onBlur={field.onBlur}
-            error={errors.plan?.maxCurrentMa?.message}
-            hint="The load current you expect; the multiplier output is computed at it."
-            testID="book-max-current"
-          />
-        )}
+        label="Maximum current"
+        unit="mA"
+        hint="The load current you expect; the multiplier output is computed at it."
+        testID="book-max-current"
       />
-      <Controller
-        control={control}
-        name="plan.peoplePresent"
-        render={({ field }) => (
-          <NumberField
-            ref={field.ref}
-            label="People present, you included"
-            unit="people"
-            integer
-            value={field.value}
-            onChange={field.onChange}
-            onBlur={field.onBlur}
-            error={errors.plan?.peoplePresent?.message}
-            testID="book-people"
-          />
-        )}
-      />
+      <FormNumberField control={control} name="plan.peoplePresent" label="People present, you included" unit="people" integer testID="book-people" />
     </View>
   );
 }

@@ -9,7 +9,7 @@ import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { FormAlert } from '@/components/ui/form-alert';
 import { SegmentedControl } from '@/components/ui/segmented-control';
-import { EMAIL_INPUT, FormTextField } from '@/components/ui/form-text-field';
+import { EMAIL_INPUT, FormTextField } from '@/components/ui/form-fields';
 import { isApiError } from '@/hooks/api-client';
 import { useGroupsQuery, useInvitePersonMutation } from '@/hooks/use-people';
 import { invitationSchema, type InvitationInput } from '@/shared/schemas/accounts';

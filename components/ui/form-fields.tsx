@@ -1,6 +1,7 @@
 import type { ComponentProps } from 'react';
 import { Controller, type Control, type FieldPath, type FieldValues } from 'react-hook-form';
 
+import { NumberField } from './number-field';
 import { TextField } from './text-field';
 
 type FormTextFieldProps<T extends FieldValues> = Omit<ComponentProps<typeof TextField>, 'value' | 'onChangeText' | 'onBlur' | 'ref' | 'error'> & {
@@ -19,6 +20,24 @@ export function FormTextField<T extends FieldValues>({ control, name, ...fieldPr
       name={name}
       render={({ field: { ref, value, onChange, onBlur }, fieldState }) => (
         <TextField {...fieldProps} ref={ref} value={value} onChangeText={onChange} onBlur={onBlur} error={fieldState.error?.message} />
+      )}
+    />
+  );
+}
+
+type FormNumberFieldProps<T extends FieldValues> = Omit<ComponentProps<typeof NumberField>, 'value' | 'onChange' | 'onBlur' | 'ref' | 'error'> & {
+  control: Control<T>;
+  name: FieldPath<T>;
+};
+
+/** A NumberField bound to one react-hook-form field, as FormTextField is for text. */
+export function FormNumberField<T extends FieldValues>({ control, name, ...fieldProps }: FormNumberFieldProps<T>) {
+  return (
+    <Controller
+      control={control}
+      name={name}
+      render={({ field: { ref, value, onChange, onBlur }, fieldState }) => (
+        <NumberField {...fieldProps} ref={ref} value={value} onChange={onChange} onBlur={onBlur} error={fieldState.error?.message} />
       )}
     />
   );
