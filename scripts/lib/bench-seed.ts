@@ -3,6 +3,7 @@
 // Everything here is generated demo data for the invented lab.
 import bcrypt from 'bcrypt';
 import type { Db } from '../../server/db';
+import { bookingItemTags } from '../../server/services/bookings';
 import { addDaysIso, todayIso } from '../../server/services/dates';
 import { insertSearchable, seedItems } from '../seed-scale';
 
@@ -28,6 +29,7 @@ export async function seedBench(db: Db, scale = { items: 50_000, people: 300, bo
 
   await seedItems(db, scale.items);
   const maxItem = Number((await db('items').max({ m: 'id' }).first())?.m);
+  const tagOf = new Map((await db('items').select('id', 'tag')).map((r: { id: number; tag: string }) => [r.id, r.tag]));
 
   // Kits the release loop books, scans, releases and returns over and over.
   const next = addDaysIso(todayIso(), 200);
@@ -63,9 +65,14 @@ export async function seedBench(db: Db, scale = { items: 50_000, people: 300, bo
   const rand = () => ((rng = (rng * 1103515245 + 12345) % 2 ** 31) / 2 ** 31);
   for (let done = 0; done < scale.bookings; ) {
     const batch = [];
+    const itemsOf: number[][] = [];
     for (let i = 0; i < 5000 && done < scale.bookings; i += 1, done += 1) {
       const start = new Date(now - span + Math.floor(rand() * (span - 7 * 24 * 3600_000)));
       const end = new Date(start.getTime() + (1 + Math.floor(rand() * 8)) * 3600_000);
+      const n = 1 + Math.floor(rand() * 3);
+      const ids = new Set<number>();
+      while (ids.size < n) ids.add(1 + Math.floor(rand() * maxItem));
+      itemsOf.push([...ids]);
       batch.push({
         person_id: personIds[Math.floor(rand() * personIds.length)],
         status: rand() < 0.9 ? 'returned' : 'cancelled',
@@ -81,15 +88,11 @@ export async function seedBench(db: Db, scale = { items: 50_000, people: 300, bo
         approval_required: false,
         released_at: start,
         returned_at: end,
+        item_tags: bookingItemTags([...ids].map((id) => ({ tag: tagOf.get(id)! }))),
       });
     }
     const [firstId] = (await db('bookings').insert(batch)) as [number];
-    const links = batch.flatMap((b, i) => {
-      const n = 1 + Math.floor(rand() * 3);
-      const ids = new Set<number>();
-      while (ids.size < n) ids.add(1 + Math.floor(rand() * maxItem));
-      return [...ids].map((itemId) => ({ booking_id: firstId + i, item_id: itemId, starts_at: b.starts_at, ends_at: b.ends_at, live: false }));
-    });
+    const links = batch.flatMap((b, i) => itemsOf[i]!.map((itemId) => ({ booking_id: firstId + i, item_id: itemId, starts_at: b.starts_at, ends_at: b.ends_at, live: false })));
     await db('booking_items').insert(links);
   }
   await db.raw('ANALYZE TABLE items, item_terms, bookings, booking_items, people');

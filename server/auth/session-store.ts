@@ -4,34 +4,37 @@
 //   express-session exactly once, through the callback, and the promise is settled.
 // - express-session touches the store on every request; we only write when the expiry would move
 //   by more than TOUCH_STEP_MS, which keeps signed-in reads at one statement for the session.
+// - that one statement is skipped while this process holds a fresh copy of the row
+//   (./session-cache.ts says why that is safe).
 import { ConnectSessionKnexStore } from 'connect-session-knex';
 import type { SessionData } from 'express-session';
 import type { Db } from '../db';
+import { sessionCacheOf, type SessionCache } from './session-cache';
 
 type Callback<T = void> = (error?: unknown, value?: T) => void;
 
 const TOUCH_STEP_MS = 5 * 60_000;
 
 export class SessionStore extends ConnectSessionKnexStore {
+  private readonly cache: SessionCache;
+
   constructor(private readonly db: Db) {
     super({ knex: db, tableName: 'sessions', createTable: false, cleanupInterval: 10 * 60_000, onDbCleanupError: () => {} });
     // The base class rejects `ready` when the table check fails (database down at boot).
     (this as unknown as { ready: Promise<void> }).ready.catch(() => {});
+    this.cache = sessionCacheOf(db);
   }
 
   /** Reads the row's expiry too, so `touch` can tell whether a write is worth it. */
   override async get(sid: string, callback: Callback<SessionData | null>): Promise<SessionData | null> {
     try {
-      // Raw SQL: this runs on every signed-in request, and the query builder's work showed up in the
-      // bench profile next to the query itself.
-      const [rows] = (await this.db.raw('SELECT sess, expired FROM sessions WHERE sid = ? AND expired > ? LIMIT 1', [sid, new Date()])) as [{ sess: unknown; expired: Date }[]];
-      const row = rows[0];
+      const row = this.cache.read(sid) ?? (await this.readRow(sid));
       if (!row) {
         callback(null, null);
         return null;
       }
-      const session = (typeof row.sess === 'string' ? JSON.parse(row.sess) : row.sess) as SessionData & { loadedExpiresMs?: number };
-      session.loadedExpiresMs = new Date(row.expired).getTime();
+      const session = JSON.parse(row.json) as SessionData & { loadedExpiresMs?: number };
+      session.loadedExpiresMs = row.expiresMs;
       callback(null, session);
       return session;
     } catch (error) {
@@ -40,11 +43,25 @@ export class SessionStore extends ConnectSessionKnexStore {
     }
   }
 
+  private async readRow(sid: string): Promise<{ json: string; expiresMs: number } | null> {
+    const startedAt = this.cache.begin();
+    // Raw SQL: the query builder's work showed up in the bench profile next to the query itself.
+    const [rows] = (await this.db.raw('SELECT sess, expired FROM sessions WHERE sid = ? AND expired > ? LIMIT 1', [sid, new Date()])) as [{ sess: unknown; expired: Date }[]];
+    const row = rows[0];
+    if (!row) return null;
+    const json = typeof row.sess === 'string' ? row.sess : JSON.stringify(row.sess);
+    const expiresMs = new Date(row.expired).getTime();
+    this.cache.keep(sid, json, expiresMs, startedAt);
+    return { json, expiresMs };
+  }
+
   override set(sid: string, session: SessionData, callback?: Callback): Promise<void> {
+    this.cache.forget(sid);
     return super.set(sid, session, (error?: unknown) => callback?.(error)).catch(() => undefined);
   }
 
   override destroy(sid: string, callback?: Callback): Promise<number> {
+    this.cache.forget(sid);
     return super.destroy(sid, (error?: unknown) => callback?.(error)).catch(() => 0);
   }
 
@@ -56,6 +73,7 @@ export class SessionStore extends ConnectSessionKnexStore {
       callback?.();
       return Promise.resolve();
     }
+    this.cache.forget(sid);
     return super
       .touch(sid, session)
       .then(() => callback?.())

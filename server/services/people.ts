@@ -1,5 +1,6 @@
 import type { Role, SessionUser } from '../../shared/schemas/session';
 import type { Db } from '../db';
+import { sessionCacheOf } from '../auth/session-cache';
 
 export interface PersonRow {
   id: number;
@@ -55,5 +56,7 @@ export async function listPeople(db: Db): Promise<PersonSummary[]> {
 
 /** Ends every open session of a person at once (deactivation, role change). */
 export async function endSessionsOf(db: Db, personId: number): Promise<number> {
-  return db('sessions').where({ person_id: personId }).delete();
+  const ended = await db('sessions').where({ person_id: personId }).delete();
+  sessionCacheOf(db).forgetPerson(personId);
+  return ended;
 }

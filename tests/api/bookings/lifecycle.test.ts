@@ -150,6 +150,11 @@ describe('cancel, list and visibility', () => {
     expect(mine.body.bookings[0].itemTags).toHaveLength(5);
     // The booking's own tags, in tag order.
     expect(mine.body.bookings[0].itemTags).toEqual(booking.items.map((i: { tag: string }) => i.tag).sort());
+    // The list's tags follow a change of items (the row keeps its own copy of them).
+    const kept = booking.items.filter((i: { kind: string }) => i.kind !== 'probe');
+    await member.agent.patch(`/api/bookings/${booking.id}`).set('x-csrf-token', member.csrf()).send({ itemIds: kept.map((i: { id: number }) => i.id) }).expect(200);
+    const after = await member.agent.get('/api/bookings?mine=1&limit=5').expect(200);
+    expect(after.body.bookings[0].itemTags).toEqual(kept.map((i: { tag: string }) => i.tag).sort());
     const other = await signedInAs(ctx, 'member');
     expect((await other.agent.get(`/api/bookings/${booking.id}`)).status).toBe(404);
     const theirs = await other.agent.get('/api/bookings').expect(200);

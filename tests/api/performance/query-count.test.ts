@@ -76,7 +76,7 @@ describe('queries per request', () => {
     expect(await queriesFor(member.agent, `/api/bookings/${big.body.booking.id}`)).toBe(await queriesFor(member.agent, `/api/bookings/${small.body.booking.id}`));
   });
 
-  it('a signed-in read loads its session in one statement and writes nothing back', async () => {
+  it('signed-in reads load their session in at most one statement and write nothing back', async () => {
     const seen: string[] = [];
     const listener = (q: { sql: string }) => seen.push(q.sql);
     ctx.db.on('query', listener);
@@ -85,9 +85,10 @@ describe('queries per request', () => {
     } finally {
       ctx.db.removeListener('query', listener);
     }
-    // One read of the session row per request; the user comes from the session's snapshot, and
-    // the expiry is only rewritten when it would move by minutes (server/auth/session-store.ts).
-    expect(seen).toHaveLength(3);
+    // At most one read of the session row (then the process's fresh copy serves it, see
+    // server/auth/session-cache.ts); the user comes from the session's snapshot, and the expiry is
+    // only rewritten when it would move by minutes (server/auth/session-store.ts).
+    expect(seen.length).toBeLessThanOrEqual(1);
     expect(seen.every((sql) => /^select .* from `?sessions`?/i.test(sql))).toBe(true);
   });
 });
