@@ -24,7 +24,7 @@ import { AppError, ConflictError, ForbiddenError, NotFoundError, ValidationError
 import { messages, type BookingFacts } from '../mail/messages';
 import { enqueueMail } from '../mail/outbox';
 import { appendAudit, auditedTransaction } from './audit';
-import { activeTemplates, applicableEntries, evaluateAnswers } from './checklists';
+import { activeTemplates, applicableEntries, evaluateAnswers, type TemplateRow } from './checklists';
 import { timestampToIso, todayIso } from './dates';
 import { inspectionStateOf, tagOutInTransaction, toItemSummary, type ItemRow } from './items';
 import { getLabRules } from './lab-rules';
@@ -114,57 +114,72 @@ async function lockBooking(trx: Trx, id: number): Promise<BookingRow> {
   return row;
 }
 
-async function currentApproval(db: Db | Trx, row: BookingRow) {
-  const approval = await db('approvals as a')
-    .join('people as p', 'p.id', 'a.officer_id')
-    .where('a.booking_id', row.id)
-    .orderBy('a.id', 'desc')
-    .first('a.*', 'p.name as officer_name');
-  if (!approval) return null;
-  return {
-    decision: approval.decision as 'approve' | 'refuse',
-    officerName: approval.officer_name as string,
-    conditions: approval.conditions as string | null,
-    reason: approval.reason as string | null,
-    decidedAt: timestampToIso(approval.decided_at)!,
-    current: approval.voided_at === null && approval.plan_version === row.plan_version,
-  };
-}
-
+type Approval = Booking['approval'];
 type RunSummary = { complete: boolean; withinLimits: boolean; completedAt: string } | null;
 
-/** The latest checklist run of each phase for the booking's current plan, in one query. */
-async function latestRuns(db: Db | Trx, row: BookingRow): Promise<{ pre: RunSummary; return: RunSummary }> {
-  const runs = await db('checklist_runs').where({ booking_id: row.id, plan_version: row.plan_version }).orderBy('id', 'desc').select('phase', 'complete', 'within_limits', 'completed_at');
-  const latest = (phase: 'pre' | 'return'): RunSummary => {
-    const run = runs.find((r: { phase: string }) => r.phase === phase);
-    return run ? { complete: Boolean(run.complete), withinLimits: Boolean(run.within_limits), completedAt: timestampToIso(run.completed_at)! } : null;
-  };
-  return { pre: latest('pre'), return: latest('return') };
+/** What officers and members decided about a booking: its approval and its checklist runs. */
+interface Decisions {
+  approval: Approval;
+  /** The latest run of each phase for the booking's current plan. */
+  runs: { pre: RunSummary; return: RunSummary };
 }
 
-export async function bookingView(db: Db | Trx, row: BookingRow): Promise<Booking> {
-  const [person, itemRows, approval, runs, templates, rules] = await Promise.all([
-    db('people').where({ id: row.person_id }).first('name'),
-    // Items with whether each has been scanned for this booking (booking_scans' key is booking + item).
-    db('booking_items as bi')
-      .join('items as i', 'i.id', 'bi.item_id')
-      .leftJoin('booking_scans as bs', (j) => j.on('bs.booking_id', 'bi.booking_id').andOn('bs.item_id', 'bi.item_id'))
-      .where('bi.booking_id', row.id)
-      .orderBy('i.tag')
-      .select('i.*', 'bs.item_id as scanned_item_id'),
-    currentApproval(db, row),
-    latestRuns(db, row),
-    activeTemplates(db),
-    getLabRules(db),
-  ]);
+// The latest approval and the current plan's checklist runs, as two JSON columns of a query on
+// `bookings AS b`: each is one key lookup, and the booking's answer needs no query of its own for
+// them. Times go out as epoch milliseconds (UNIX_TIMESTAMP of a TIMESTAMP ignores the session's
+// time zone).
+const DECISIONS_SQL = `
+  (SELECT JSON_OBJECT('decision', a.decision, 'officerName', o.name, 'conditions', a.conditions, 'reason', a.reason,
+      'decidedAtMs', UNIX_TIMESTAMP(a.decided_at) * 1000, 'voided', a.voided_at IS NOT NULL, 'planVersion', a.plan_version)
+    FROM approvals AS a JOIN people AS o ON o.id = a.officer_id WHERE a.booking_id = b.id ORDER BY a.id DESC LIMIT 1) AS approval_json,
+  (SELECT JSON_ARRAYAGG(JSON_OBJECT('phase', r.phase, 'complete', r.complete, 'withinLimits', r.within_limits,
+      'completedAtMs', UNIX_TIMESTAMP(r.completed_at) * 1000) ORDER BY r.id DESC)
+    FROM checklist_runs AS r WHERE r.booking_id = b.id AND r.plan_version = b.plan_version) AS runs_json`;
+
+interface DecisionColumns {
+  approval_json: unknown;
+  runs_json: unknown;
+}
+
+function decisionsOf(row: Pick<BookingRow, 'plan_version'> & DecisionColumns): Decisions {
+  type StoredApproval = { decision: 'approve' | 'refuse'; officerName: string; conditions: string | null; reason: string | null; decidedAtMs: number; voided: number; planVersion: number };
+  type StoredRun = { phase: 'pre' | 'return'; complete: number; withinLimits: number; completedAtMs: number };
+  const a = row.approval_json === null ? null : json<StoredApproval>(row.approval_json);
+  const runs = row.runs_json === null ? [] : json<StoredRun[]>(row.runs_json);
+  const latest = (phase: 'pre' | 'return'): RunSummary => {
+    const run = runs.find((r) => r.phase === phase);
+    return run ? { complete: Boolean(run.complete), withinLimits: Boolean(run.withinLimits), completedAt: new Date(Number(run.completedAtMs)).toISOString() } : null;
+  };
+  return {
+    approval: a && {
+      decision: a.decision,
+      officerName: a.officerName,
+      conditions: a.conditions,
+      reason: a.reason,
+      decidedAt: new Date(Number(a.decidedAtMs)).toISOString(),
+      current: !a.voided && a.planVersion === row.plan_version,
+    },
+    runs: { pre: latest('pre'), return: latest('return') },
+  };
+}
+
+/** The decisions about a booking locked in this transaction: one query. */
+async function decisionsInTransaction(trx: Trx, row: BookingRow): Promise<Decisions> {
+  const columns = (await trx('bookings as b').where('b.id', row.id).first(trx.raw(DECISIONS_SQL))) as DecisionColumns;
+  return decisionsOf({ ...columns, plan_version: row.plan_version });
+}
+
+type ViewRow = BookingRow & DecisionColumns & { person_name: string };
+
+function bookingView(row: ViewRow, itemRows: (ItemRow & { scanned_item_id: number | null })[], templates: readonly TemplateRow[], rules: LabRules): Booking {
+  const { approval, runs } = decisionsOf(row);
   const { pre, return: ret } = runs;
   const plan = planOf(row);
-  const kinds = [...new Set((itemRows as ItemRow[]).map((i) => i.kind as string))];
+  const kinds = [...new Set(itemRows.map((i) => i.kind as string))];
   return {
     id: row.id,
     personId: row.person_id,
-    personName: person?.name ?? '',
+    personName: row.person_name,
     status: row.status,
     overdue: isOverdue(row),
     startsAt: timestampToIso(row.starts_at)!,
@@ -173,8 +188,8 @@ export async function bookingView(db: Db | Trx, row: BookingRow): Promise<Bookin
     purpose: row.purpose,
     plan,
     planVersion: row.plan_version,
-    itemIds: (itemRows as ItemRow[]).map((i) => i.id),
-    items: (itemRows as ItemRow[]).map(toItemSummary),
+    itemIds: itemRows.map((i) => i.id),
+    items: itemRows.map(toItemSummary),
     assessment: json<Assessment>(row.assessment),
     approvalRequired: Boolean(row.approval_required),
     approval,
@@ -183,7 +198,7 @@ export async function bookingView(db: Db | Trx, row: BookingRow): Promise<Bookin
       pre: pre ? { completedAt: pre.completedAt, withinLimits: pre.withinLimits } : null,
       return: ret ? { completedAt: ret.completedAt, withinLimits: ret.withinLimits } : null,
     },
-    scannedItemIds: (itemRows as (ItemRow & { scanned_item_id: number | null })[]).flatMap((i) => (i.scanned_item_id === null ? [] : [i.id])),
+    scannedItemIds: itemRows.flatMap((i) => (i.scanned_item_id === null ? [] : [i.id])),
     releasedAt: timestampToIso(row.released_at),
     returnedAt: timestampToIso(row.returned_at),
     cancelledAt: timestampToIso(row.cancelled_at),
@@ -191,11 +206,24 @@ export async function bookingView(db: Db | Trx, row: BookingRow): Promise<Bookin
   };
 }
 
+/** A booking as its page shows it: two queries, whatever it holds (checklist lines and lab rules are shared reads). */
 export async function getBooking(db: Db, actor: SessionUser, id: number): Promise<Booking> {
-  const row = await db<BookingRow>('bookings').where({ id }).first();
+  const [row, itemRows, templates, rules] = await Promise.all([
+    db('bookings as b').join('people as p', 'p.id', 'b.person_id').where('b.id', id).first('b.*', 'p.name as person_name', db.raw(DECISIONS_SQL)) as Promise<ViewRow | undefined>,
+    // Items with whether each has been scanned for this booking (booking_scans' key is booking + item).
+    db('booking_items as bi')
+      .join('items as i', 'i.id', 'bi.item_id')
+      .leftJoin('booking_scans as bs', (j) => j.on('bs.booking_id', 'bi.booking_id').andOn('bs.item_id', 'bi.item_id'))
+      .where('bi.booking_id', id)
+      .orderBy('i.tag')
+      .select('i.*', 'bs.item_id as scanned_item_id') as Promise<(ItemRow & { scanned_item_id: number | null })[]>,
+    activeTemplates(db),
+    getLabRules(db),
+  ]);
   if (!row || !canSee(actor, row)) throw new NotFoundError(`No booking with id ${id}.`);
-  return bookingView(db, row);
+  return bookingView(row, itemRows, templates, rules);
 }
+
 
 
 export async function listBookings(
@@ -484,12 +512,15 @@ export async function recordScan(db: Db, actor: SessionUser, id: number, tag: st
     const row = await lockBooking(trx, id);
     assertCounterAccess(actor, row);
     if (!PRE_RELEASE.includes(row.status)) throw new ConflictError(`Scanning is for release; this booking is ${row.status}.`, 'BOOKING_LOCKED');
-    const item = await trx('items').where({ tag: tag.trim().toUpperCase() }).first('id', 'tag');
+    // The item, whether the booking holds it and whether it was scanned already, in one round trip.
+    const item = (await trx('items as i')
+      .leftJoin('booking_items as bi', (j) => j.on('bi.item_id', 'i.id').andOnVal('bi.booking_id', id))
+      .leftJoin('booking_scans as bs', (j) => j.on('bs.item_id', 'i.id').andOnVal('bs.booking_id', id))
+      .where('i.tag', tag.trim().toUpperCase())
+      .first('i.id', 'i.tag', 'bi.item_id as booked', 'bs.item_id as scanned')) as { id: number; tag: string; booked: number | null; scanned: number | null } | undefined;
     if (!item) throw new NotFoundError(`No item carries the tag ${tag}.`);
-    const inBooking = await trx('booking_items').where({ booking_id: id, item_id: item.id }).first('item_id');
-    if (!inBooking) throw new AppError(409, 'ITEM_NOT_IN_BOOKING', `${item.tag} is not part of this booking. Put it back and scan the booked gear.`);
-    const already = await trx('booking_scans').where({ booking_id: id, item_id: item.id }).first('item_id');
-    if (!already) {
+    if (item.booked === null) throw new AppError(409, 'ITEM_NOT_IN_BOOKING', `${item.tag} is not part of this booking. Put it back and scan the booked gear.`);
+    if (item.scanned === null) {
       await trx('booking_scans').insert({ booking_id: id, item_id: item.id, scanned_by: actor.id });
       await appendAudit(trx, { actorId: actor.id, entity: 'booking', entityId: id, action: 'booking.item-scanned', after: { itemId: item.id, tag: item.tag } });
     }
@@ -545,11 +576,8 @@ export async function releaseBooking(db: Db, actor: SessionUser, id: number, now
     // Recomputed now, from the gear's and the member's state at this moment: the stored
     // assessment may be days old.
     const assessment = await assess(trx, items, planOf(row), row.person_id, rules);
-    const [scans, approval, pre] = await Promise.all([
-      trx('booking_scans').where({ booking_id: id }).select('item_id'),
-      currentApproval(trx, row),
-      latestRuns(trx, row).then((runs) => runs.pre),
-    ]);
+    const [scans, { approval, runs }] = await Promise.all([trx('booking_scans').where({ booking_id: id }).select('item_id'), decisionsInTransaction(trx, row)]);
+    const pre = runs.pre;
     const failures = releaseFailures({
       status: row.status,
       approvalRequired: assessment.approvalRequired,
@@ -587,7 +615,7 @@ export async function returnBooking(db: Db, actor: SessionUser, id: number, inpu
     const itemIds = (await trx('booking_items').where({ booking_id: id }).orderBy('item_id').select('item_id')).map((r) => r.item_id as number);
     const stray = input.damagedItemIds.filter((d) => !itemIds.includes(d));
     if (stray.length > 0) throw new ValidationError(`Items ${stray.join(', ')} are not part of this booking.`, { damagedItemIds: ['Only items of this booking'] });
-    const run = (await latestRuns(trx, row)).return;
+    const run = (await decisionsInTransaction(trx, row)).runs.return;
     const failures: { rule: string; message: string }[] = [];
     if (!run) failures.push({ rule: 'make-safe-checklist', message: 'Complete the make-safe checklist first.' });
     else if (!run.withinLimits) failures.push({ rule: 'make-safe-checklist', message: 'A make-safe reading is outside its limits (e.g. residual voltage above the safe level): ground the output again and measure.' });

@@ -168,7 +168,15 @@ describe('POST /api/bookings/:id/release', () => {
     expect(release.body.error.failures.map((f: { rule: string }) => f.rule).sort()).toEqual(['approval', 'qualification']);
     // An officer's approval covers it.
     await post(officer, `/api/bookings/${booking.id}/approval`, { decision: 'approve', conditions: 'Supervised by I. Achterberg' }).expect(200);
-    expect((await post(unqualified, `/api/bookings/${booking.id}/release`)).status).toBe(200);
+    const released = await post(unqualified, `/api/bookings/${booking.id}/release`);
+    expect(released.status).toBe(200);
+    // The answer shows the stored approval and checklist run as they are, times to the millisecond.
+    const approvalRow = await ctx.db('approvals').where({ booking_id: booking.id }).first();
+    const runRow = await ctx.db('checklist_runs').where({ booking_id: booking.id, phase: 'pre' }).orderBy('id', 'desc').first();
+    const { name: officerName } = await ctx.db('people').where({ id: officer.person.id }).first('name');
+    expect(released.body.booking.approval).toEqual({ decision: 'approve', officerName, conditions: 'Supervised by I. Achterberg', reason: null, decidedAt: new Date(approvalRow.decided_at).toISOString(), current: true });
+    expect(released.body.booking.checklistRuns.pre).toEqual({ completedAt: new Date(runRow.completed_at).toISOString(), withinLimits: true });
+    expect(released.body.booking.checklistRuns.return).toBeNull();
   });
 
   it('rule "status": a cancelled booking cannot be released', async () => {
