@@ -6,10 +6,9 @@ import type { Knex } from 'knex';
 // service, which writes this column in the same statement group (server/services/bookings.ts
 // `bookingItemTags`); tags themselves never change (items are retired, never renamed by tag).
 export async function up(knex: Knex): Promise<void> {
-  await knex.schema.alterTable('bookings', (t) => {
-    // At most 30 items of at most 32 characters: well under TEXT's limit.
-    t.text('item_tags').notNullable().defaultTo('[]');
-  });
+  // At most 30 items of at most 32 characters: well under TEXT's limit. Raw SQL because knex drops
+  // the default of a TEXT column, and rows written outside the service (tests, imports) need it.
+  await knex.raw("ALTER TABLE bookings ADD COLUMN item_tags TEXT NOT NULL DEFAULT '[]'");
   await knex.raw(`
     UPDATE bookings AS b
     SET b.item_tags = COALESCE(
