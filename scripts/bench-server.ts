@@ -7,11 +7,10 @@ import express, { type RequestHandler } from 'express';
 import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import { createApp } from '../server/app';
-import { loadConfig } from '../server/config';
 import { createDb, type Db } from '../server/db';
 import { createLogger } from '../server/logger';
 import { startFakeS3 } from '../server/storage/fake-s3';
-import { benchInstance, dbEnv } from './lib/instances';
+import { benchConfig } from './lib/instances';
 
 const ROOT = path.resolve(__dirname, '..');
 
@@ -44,8 +43,7 @@ async function explainLists(db: Db, base: string, urls: string[], headers: Recor
 }
 
 async function main(): Promise<void> {
-  const options = benchInstance();
-  const config = loadConfig({ ...process.env, ...dbEnv(options), LOG_LEVEL: 'silent', LOGIN_RATE_LIMIT: '1000', DB_POOL_MAX: '30' });
+  const config = benchConfig();
   const db = createDb(config);
   const s3 = await startFakeS3({ directory: path.join(ROOT, '.data', 'bench-s3'), port: 0, bucket: config.s3.bucket });
   const maxId = Number((await db('items').max({ m: 'id' }).first())?.m);

@@ -9,10 +9,9 @@ import { mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { gzipSync } from 'node:zlib';
-import { loadConfig } from '../server/config';
 import { createDb } from '../server/db';
 import type { BenchServerMessage } from './bench-server';
-import { benchInstance, dbEnv } from './lib/instances';
+import { benchConfig, benchInstance } from './lib/instances';
 import { BENCH_PASSWORD, KITS, seedBench } from './lib/bench-seed';
 import { startInstance } from './lib/mariadb';
 import { migrateLatest } from './lib/migrate';
@@ -168,7 +167,7 @@ const explainLists = async (child: ChildProcess, urls: string[], headers: Record
 async function main(): Promise<void> {
   const options = benchInstance();
   await startInstance(options);
-  const config = { ...loadConfig({ ...process.env, ...dbEnv(options), LOG_LEVEL: 'silent', LOGIN_RATE_LIMIT: '1000', DB_POOL_MAX: '30' }) };
+  const config = benchConfig();
   const db = createDb(config);
   await migrateLatest(db);
   if (Number((await db('items').count({ n: '*' }).first())?.n) < 50_000) await seedBench(db);

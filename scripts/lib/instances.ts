@@ -1,5 +1,6 @@
 // The database instances the scripts start. Each has its own folder, port and database, so the
 // dev instance, the test instance and the bench instance can run side by side.
+import { loadConfig, type Config } from '../../server/config';
 import { describeInstance, type InstanceOptions } from './mariadb';
 
 const credentials = { user: 'voltcrib', password: 'voltcrib-local-only' };
@@ -40,4 +41,9 @@ export function dbEnv(options: InstanceOptions): Record<string, string> {
     DB_USER: options.user,
     DB_PASSWORD: options.password,
   };
+}
+
+/** The configuration the bench's processes run with: the bench instance, quiet, no sign-in limit. */
+export function benchConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  return loadConfig({ ...env, ...dbEnv(benchInstance(env)), LOG_LEVEL: 'silent', LOGIN_RATE_LIMIT: '1000', DB_POOL_MAX: '30' });
 }
