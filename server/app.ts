@@ -106,7 +106,7 @@ export function createApp({ db, config, logger, objectStore, mailbox, mountBefor
   app.use('/api/files', filesRouter(db, store));
   app.use('/api', labelsRouter(db, config));
   app.use('/api/assessments', assessmentsRouter(db));
-  app.use('/api/bookings', bookingsRouter(db, config));
+  app.use('/api/bookings', bookingsRouter(db, config, store));
   app.use('/api/lab-rules', labRulesRouter(db));
   app.use('/api/checklist-templates', checklistTemplatesRouter(db));
   app.use('/api/audit', auditRouter(db));

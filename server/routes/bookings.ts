@@ -1,4 +1,5 @@
 import { Router, type Request } from 'express';
+import { z } from 'zod';
 import {
   approvalDecisionSchema,
   assessmentRequestSchema,
@@ -13,6 +14,7 @@ import { idParamSchema } from '../../shared/schemas/common';
 import type { Config } from '../config';
 import type { Db } from '../db';
 import { ForbiddenError } from '../errors';
+import { receivedFile, uploadReader } from '../middleware/receive-upload';
 import { currentUser, requireRole, requireSignedIn } from '../middleware/require-role';
 import { validate } from '../middleware/validate';
 import {
@@ -28,6 +30,8 @@ import {
   submitChecklist,
   updateBooking,
 } from '../services/bookings';
+import { storeBookingPhoto } from '../services/booking-photos';
+import type { ObjectStore } from '../storage/object-store';
 
 export function assessmentsRouter(db: Db): Router {
   const router = Router();
@@ -42,8 +46,12 @@ export function assessmentsRouter(db: Db): Router {
   return router;
 }
 
-export function bookingsRouter(db: Db, config: Config): Router {
+// A checklist photo comes with no other form field.
+const photoFieldsSchema = z.object({}).strict();
+
+export function bookingsRouter(db: Db, config: Config, store: ObjectStore): Router {
   const mail = { publicUrl: config.publicUrl };
+  const readUpload = uploadReader(config.uploadMaxBytes);
   const router = Router();
   const id = (req: Request) => validate(idParamSchema, req.params, 'booking id').id;
   router.use(requireSignedIn);
@@ -73,6 +81,12 @@ export function bookingsRouter(db: Db, config: Config): Router {
     const bookingId = id(req);
     const { tag } = validate(scanSchema, req.body, 'scan');
     res.json({ booking: await recordScan(db, currentUser(req), bookingId, tag) });
+  });
+  router.post('/:id/photos', async (req, res) => {
+    const bookingId = id(req);
+    await readUpload(req);
+    validate(photoFieldsSchema, req.body ?? {}, 'upload');
+    res.status(201).json({ file: await storeBookingPhoto(db, store, currentUser(req), bookingId, receivedFile(req)) });
   });
   router.post('/:id/checklist', async (req, res) => {
     const bookingId = id(req);

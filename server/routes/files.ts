@@ -1,16 +1,16 @@
 import { Router } from 'express';
 import { idParamSchema } from '../../shared/schemas/common';
 import type { Db } from '../db';
-import { requireSignedIn } from '../middleware/require-role';
+import { currentUser, requireSignedIn } from '../middleware/require-role';
 import { validate } from '../middleware/validate';
-import { readItemFile } from '../services/files';
+import { readFile } from '../services/files';
 import type { ObjectStore } from '../storage/object-store';
 
 export function filesRouter(db: Db, store: ObjectStore): Router {
   const router = Router();
   router.get('/:id', requireSignedIn, async (req, res) => {
     const { id } = validate(idParamSchema, req.params, 'file id');
-    const { file, body } = await readItemFile(db, store, id);
+    const { file, body } = await readFile(db, store, currentUser(req), id);
     // Served as data, never as a page: no sniffing, sandboxed, and with the stored name quoted.
     const asciiName = file.fileName.replace(/[^\x20-\x7e]/g, '_').replace(/["\\]/g, '_');
     res

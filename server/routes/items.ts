@@ -1,11 +1,10 @@
 import { Router, type Request } from 'express';
-import multer from 'multer';
 import { z } from 'zod';
 import { idParamSchema } from '../../shared/schemas/common';
 import { itemCreateSchema, itemListQuerySchema, itemUpdateSchema, tagSchema } from '../../shared/schemas/items';
 import type { Config } from '../config';
 import type { Db } from '../db';
-import { AppError, ValidationError } from '../errors';
+import { receivedFile, uploadReader } from '../middleware/receive-upload';
 import { currentUser, requireRole, requireSignedIn } from '../middleware/require-role';
 import { validate } from '../middleware/validate';
 import { listAudit } from '../services/audit';
@@ -23,24 +22,9 @@ const windowSchema = z
 
 const uploadKindSchema = z.object({ kind: z.enum(['photo', 'document']).optional() }).strict();
 
-function receiveUpload(maxBytes: number) {
-  // File names arrive as UTF-8 (multer's default reads them as latin1).
-  const upload = multer({ storage: multer.memoryStorage(), preservePath: true, defParamCharset: 'utf8', limits: { fileSize: maxBytes, files: 1, fields: 4, fieldSize: 1024 } }).single('file');
-  return (req: Request) =>
-    new Promise<void>((resolve, reject) =>
-      upload(req, req.res!, (error: unknown) => {
-        if (!error) return resolve();
-        const code = (error as { code?: string }).code;
-        if (code === 'LIMIT_FILE_SIZE') return reject(new AppError(413, 'FILE_TOO_LARGE', `Files can be at most ${Math.round(maxBytes / 1024 / 1024)} MB.`));
-        if (typeof code === 'string' && code.startsWith('LIMIT_')) return reject(new ValidationError('Send one file in the form field "file".'));
-        reject(new ValidationError('The upload could not be read as multipart form data.'));
-      }),
-    );
-}
-
 export function itemsRouter(db: Db, config: Config, store: ObjectStore): Router {
   const router = Router();
-  const readUpload = receiveUpload(config.uploadMaxBytes);
+  const readUpload = uploadReader(config.uploadMaxBytes);
   const id = (req: Request) => validate(idParamSchema, req.params, 'item id').id;
 
   router.get('/', requireSignedIn, async (req, res) => {
@@ -110,8 +94,7 @@ export function itemsRouter(db: Db, config: Config, store: ObjectStore): Router 
     const itemId = id(req);
     await readUpload(req);
     const { kind } = validate(uploadKindSchema, req.body ?? {}, 'upload');
-    if (!req.file) throw new ValidationError('Attach the file in the form field "file".', { file: ['Required'] });
-    const file = await storeItemFile(db, store, currentUser(req), itemId, { originalName: req.file.originalname, buffer: req.file.buffer }, kind);
+    const file = await storeItemFile(db, store, currentUser(req), itemId, receivedFile(req), kind);
     res.status(201).json({ file });
   });
 

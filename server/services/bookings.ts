@@ -18,12 +18,14 @@ import {
   type TestPlan,
 } from '../../shared/schemas/bookings';
 import type { ItemKind, ItemSummary } from '../../shared/schemas/items';
-import type { Role, SessionUser } from '../../shared/schemas/session';
+import type { SessionUser } from '../../shared/schemas/session';
 import type { Db, Trx } from '../db';
 import { AppError, ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../errors';
 import { messages, type BookingFacts } from '../mail/messages';
 import { enqueueMail } from '../mail/outbox';
 import { appendAudit, auditedTransaction } from './audit';
+import { assertCounterAccess, canSeeBooking, lockBooking, STAFF } from './booking-access';
+import { bookingPhotoIdsAmong } from './booking-photos';
 import { activeTemplates, applicableEntries, evaluateAnswers, type TemplateRow } from './checklists';
 import { timestampToIso, todayIso } from './dates';
 import { inspectionStateOf, tagOutInTransaction, toItemSummary, type ItemRow } from './items';
@@ -52,7 +54,6 @@ export interface BookingRow {
   updated_at: Date;
 }
 
-const STAFF: Role[] = ['officer', 'manager'];
 const EDITABLE: BookingStatus[] = ['requested', 'awaiting-approval', 'approved', 'refused'];
 const PRE_RELEASE: BookingStatus[] = ['requested', 'awaiting-approval', 'approved'];
 
@@ -103,16 +104,6 @@ export async function assessPlan(db: Db, itemIds: number[], plan: TestPlan, pers
 // ------------------------------------------------------------------------------------------
 // Reading bookings
 
-
-function canSee(actor: SessionUser, row: Pick<BookingRow, 'person_id'>): boolean {
-  return row.person_id === actor.id || STAFF.includes(actor.role);
-}
-
-async function lockBooking(trx: Trx, id: number): Promise<BookingRow> {
-  const row = await trx<BookingRow>('bookings').where({ id }).forUpdate().first();
-  if (!row) throw new NotFoundError(`No booking with id ${id}.`);
-  return row;
-}
 
 type Approval = Booking['approval'];
 type RunSummary = { complete: boolean; withinLimits: boolean; completedAt: string } | null;
@@ -220,7 +211,7 @@ export async function getBooking(db: Db, actor: SessionUser, id: number): Promis
     activeTemplates(db),
     getLabRules(db),
   ]);
-  if (!row || !canSee(actor, row)) throw new NotFoundError(`No booking with id ${id}.`);
+  if (!row || !canSeeBooking(actor, row)) throw new NotFoundError(`No booking with id ${id}.`);
   return bookingView(row, itemRows, templates, rules);
 }
 
@@ -455,7 +446,7 @@ export async function updateBooking(db: Db, actor: SessionUser, id: number, inpu
 export async function cancelBooking(db: Db, actor: SessionUser, id: number): Promise<Booking> {
   await auditedTransaction(db, async (trx) => {
     const row = await lockBooking(trx, id);
-    if (!canSee(actor, row)) throw new NotFoundError(`No booking with id ${id}.`);
+    if (!canSeeBooking(actor, row)) throw new NotFoundError(`No booking with id ${id}.`);
     if (row.person_id !== actor.id && !STAFF.includes(actor.role)) throw new ForbiddenError();
     if (!EDITABLE.includes(row.status)) throw new ConflictError(`A ${row.status} booking cannot be cancelled.`, 'BOOKING_LOCKED');
     await trx('bookings').where({ id }).update({ status: 'cancelled', cancelled_at: new Date(), updated_at: new Date() });
@@ -503,10 +494,6 @@ export async function decideApproval(
   return getBooking(db, actor, id);
 }
 
-function assertCounterAccess(actor: SessionUser, row: BookingRow): void {
-  if (!canSee(actor, row)) throw new NotFoundError(`No booking with id ${row.id}.`);
-}
-
 export async function recordScan(db: Db, actor: SessionUser, id: number, tag: string): Promise<Booking> {
   await auditedTransaction(db, async (trx) => {
     const row = await lockBooking(trx, id);
@@ -540,12 +527,8 @@ export async function submitChecklist(db: Db, actor: SessionUser, id: number, in
       trx('booking_items as bi').join('items as i', 'i.id', 'bi.item_id').where('bi.booking_id', id).distinct('i.kind'),
     ]);
     const entries = applicableEntries(templates, input.phase, Number(row.planned_kv), kinds.map((k: { kind: ItemKind }) => k.kind), rules);
-    const evaluated = evaluateAnswers(entries, input.answers);
     const fileIds = input.answers.map((a) => a.fileId).filter((f): f is number => f !== undefined);
-    if (fileIds.length > 0) {
-      const found = await trx('item_files').whereIn('id', fileIds).count({ n: '*' }).first();
-      if (Number(found?.n) !== new Set(fileIds).size) throw new ValidationError('A photo in the checklist was not found.', { answers: ['Unknown photo'] });
-    }
+    const evaluated = evaluateAnswers(entries, input.answers, await bookingPhotoIdsAmong(trx, id, fileIds));
     const [runId] = (await trx('checklist_runs').insert({
       booking_id: id,
       phase: input.phase,

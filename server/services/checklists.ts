@@ -56,8 +56,12 @@ export interface EvaluatedRun {
   snapshot: { id: number; text: string; kind: string; unit?: string; min?: number; max?: number; confirmed?: boolean; value?: number; fileId?: number; withinLimits: boolean }[];
 }
 
-/** Checks answers against the entries. Unknown or missing required answers are a 400. */
-export function evaluateAnswers(entries: ChecklistEntry[], answers: ChecklistSubmitInput['answers']): EvaluatedRun {
+/**
+ * Checks answers against the entries. Unknown or missing required answers are a 400, and so is a
+ * photo that is not in `bookingPhotoIds` (the ids among the answers that are photos of this
+ * booking): a made-up id, another booking's photo or an item's file is no evidence for this one.
+ */
+export function evaluateAnswers(entries: ChecklistEntry[], answers: ChecklistSubmitInput['answers'], bookingPhotoIds: ReadonlySet<number> = new Set()): EvaluatedRun {
   const byId = new Map(entries.map((e) => [e.id, e]));
   const fieldErrors: Record<string, string[]> = {};
   const seen = new Set<number>();
@@ -81,9 +85,12 @@ export function evaluateAnswers(entries: ChecklistEntry[], answers: ChecklistSub
         inside = (entry.min === undefined || answer.value >= entry.min) && (entry.max === undefined || answer.value <= entry.max);
         if (!inside) withinLimits = false;
       }
-    } else if (entry.required && answer?.fileId === undefined) {
-      (fieldErrors[key] ??= []).push(`Attach the photo: ${entry.text}`);
+    } else if (answer?.fileId === undefined) {
+      if (entry.required) (fieldErrors[key] ??= []).push(`Attach the photo: ${entry.text}`);
+    } else if (!bookingPhotoIds.has(answer.fileId)) {
+      (fieldErrors[key] ??= []).push('That photo was not taken for this booking: attach the photo again.');
     }
+    if (entry.kind !== 'photo' && answer?.fileId !== undefined) (fieldErrors[key] ??= []).push('This line takes no photo.');
     snapshot.push({ id: entry.id, text: entry.text, kind: entry.kind, unit: entry.unit, min: entry.min, max: entry.max, confirmed: answer?.confirmed, value: answer?.value, fileId: answer?.fileId, withinLimits: inside });
   }
   if (Object.keys(fieldErrors).length > 0) throw new ValidationError('The checklist is not complete.', fieldErrors);

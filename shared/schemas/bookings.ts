@@ -157,6 +157,18 @@ export const checklistTemplateItemSchema = z
   .refine((v) => v.min === null || v.max === null || v.min <= v.max, { message: 'min must not exceed max', path: ['max'] });
 export type ChecklistTemplateItemInput = z.input<typeof checklistTemplateItemSchema>;
 
+/** A photo taken at the counter for one of the booking's checklist lines (POST /api/bookings/:id/photos). */
+export interface BookingPhoto {
+  id: number;
+  bookingId: number;
+  kind: 'photo';
+  fileName: string;
+  contentType: string;
+  sizeBytes: number;
+  uploadedAt: string;
+  uploadedByName: string | null;
+}
+
 /** One line of a checklist as the booking shows it (limits already resolved from lab rules). */
 export interface ChecklistEntry {
   id: number;
