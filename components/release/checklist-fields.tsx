@@ -2,7 +2,6 @@ import { StyleSheet, View } from 'react-native';
 
 import { trimNumber } from '@/components/assessment/quantities';
 import { spacing } from '@/components/theme/tokens';
-import { AppText } from '@/components/ui/app-text';
 import { Badge } from '@/components/ui/badge';
 import { Checkbox } from '@/components/ui/checkbox';
 import { HazardBadge } from '@/components/ui/hazard-badge';
@@ -10,11 +9,20 @@ import { NumberField } from '@/components/ui/number-field';
 import { isApiError } from '@/hooks/api-client';
 import type { ChecklistEntry, ChecklistSubmitInput } from '@/shared/schemas/bookings';
 
+import { PhotoLine } from './photo-line';
+
 export type ChecklistAnswer = ChecklistSubmitInput['answers'][number];
 
 /** One answer per line, nothing confirmed or read yet. */
 export function blankAnswers(entries: ChecklistEntry[]): ChecklistAnswer[] {
   return entries.map((entry) => (entry.kind === 'confirm' ? { itemId: entry.id, confirmed: false } : { itemId: entry.id }));
+}
+
+/** A line's message goes once the line is answered again (the next submit checks it anew). */
+export function withoutLine(lines: Record<number, string>, lineId: number): Record<number, string> {
+  if (!(lineId in lines)) return lines;
+  const { [lineId]: _answered, ...rest } = lines;
+  return rest;
 }
 
 /** The server names incomplete lines `answers.<line id>`: turn them into per-line messages. */
@@ -42,6 +50,8 @@ export function insideLimits(entry: ChecklistEntry, value: number): boolean {
 }
 
 interface ChecklistFieldsProps {
+  /** The booking the answers are for: photo lines upload to it. */
+  bookingId: number;
   entries: ChecklistEntry[];
   value: ChecklistAnswer[];
   onChange: (answers: ChecklistAnswer[]) => void;
@@ -51,16 +61,20 @@ interface ChecklistFieldsProps {
   testID: string;
   /** Where a reading's limits come from, per line id, e.g. "the lab's safe residual voltage". */
   limitSources?: Record<number, string>;
+  /** Called with a line's id whenever its answer changes (to drop that line's old message). */
+  onLineAnswered?: (lineId: number) => void;
 }
 
 /**
  * A checklist's lines: confirmations as large toggles, readings with their unit and limits (and
- * whether the typed value is inside them), photo lines as notes.
+ * whether the typed value is inside them), photo lines with a button that takes or chooses a photo.
  */
-export function ChecklistFields({ entries, value, onChange, lineErrors, testID, limitSources = {} }: ChecklistFieldsProps) {
+export function ChecklistFields({ bookingId, entries, value, onChange, lineErrors, testID, limitSources = {}, onLineAnswered }: ChecklistFieldsProps) {
   const answerFor = (id: number) => value.find((a) => a.itemId === id) ?? { itemId: id };
-  const set = (id: number, patch: Partial<ChecklistAnswer>) =>
+  const set = (id: number, patch: Partial<ChecklistAnswer>) => {
     onChange(value.some((a) => a.itemId === id) ? value.map((a) => (a.itemId === id ? { ...a, ...patch } : a)) : [...value, { itemId: id, ...patch }]);
+    onLineAnswered?.(id);
+  };
 
   return (
     <View style={styles.root} testID={testID}>
@@ -106,21 +120,7 @@ export function ChecklistFields({ entries, value, onChange, lineErrors, testID, 
             </View>
           );
         }
-        return (
-          <View key={entry.id} style={styles.reading} testID={lineTestID}>
-            <AppText variant="bodyStrong">{entry.text}</AppText>
-            <AppText variant="small" tone={entry.required ? 'error' : 'muted'}>
-              {entry.required
-                ? 'This line needs a photo, which the app cannot attach yet: ask the safety officer before going on.'
-                : 'Optional. Photos cannot be attached from this screen yet.'}
-            </AppText>
-            {error ? (
-              <AppText variant="smallStrong" tone="error">
-                {error}
-              </AppText>
-            ) : null}
-          </View>
-        );
+        return <PhotoLine key={entry.id} bookingId={bookingId} entry={entry} fileId={answer.fileId} onChange={(fileId) => set(entry.id, { fileId })} error={error} testID={lineTestID} />;
       })}
     </View>
   );

@@ -14,7 +14,7 @@ import { HazardBadge } from '@/components/ui/hazard-badge';
 import { useChecklistMutation, type Booking } from '@/hooks/use-bookings';
 import { checklistSubmitSchema, type ChecklistSubmitInput } from '@/shared/schemas/bookings';
 
-import { blankAnswers, ChecklistFields, serverLineErrors } from './checklist-fields';
+import { blankAnswers, ChecklistFields, serverLineErrors, withoutLine } from './checklist-fields';
 import { StepCard, type StepState } from './step-card';
 
 /** Step 2: the pre-energize checklist for this plan, recorded with every answer. */
@@ -48,6 +48,7 @@ function ChecklistForm({ booking, primary, onDone }: { booking: Booking; primary
     control,
     handleSubmit,
     setError,
+    clearErrors,
     formState: { errors, isSubmitting },
   } = useForm<ChecklistSubmitInput>({
     resolver: zodResolver(checklistSubmitSchema),
@@ -68,6 +69,14 @@ function ChecklistForm({ booking, primary, onDone }: { booking: Booking; primary
     }
   });
 
+  // Once every line the server named is answered again, its "not done yet" summary goes too.
+  const onLineAnswered = (lineId: number) => {
+    const remaining = withoutLine(lineErrors, lineId);
+    if (remaining === lineErrors) return;
+    setLineErrors(remaining);
+    if (Object.keys(remaining).length === 0) clearErrors('root.server');
+  };
+
   // The form's own errors (a reading that is not a number) land on the line they belong to.
   const formLineErrors: Record<number, string | undefined> = { ...lineErrors };
   entries.forEach((entry, index) => {
@@ -81,7 +90,7 @@ function ChecklistForm({ booking, primary, onDone }: { booking: Booking; primary
       <Controller
         control={control}
         name="answers"
-        render={({ field }) => <ChecklistFields entries={entries} value={field.value} onChange={field.onChange} lineErrors={formLineErrors} testID="checklist-pre" />}
+        render={({ field }) => <ChecklistFields bookingId={booking.id} entries={entries} value={field.value} onChange={field.onChange} lineErrors={formLineErrors} onLineAnswered={onLineAnswered} testID="checklist-pre" />}
       />
       {errors.root?.server?.message ? <FormAlert message={errors.root.server.message} testID="release-checklist-error" /> : null}
       <Button

@@ -5,7 +5,7 @@ import { StyleSheet, View } from 'react-native';
 import { z } from 'zod';
 
 import { ReleaseFailures } from '@/components/release/release-failures';
-import { blankAnswers, ChecklistFields, serverLineErrors } from '@/components/release/checklist-fields';
+import { blankAnswers, ChecklistFields, serverLineErrors, withoutLine } from '@/components/release/checklist-fields';
 import { spacing } from '@/components/theme/tokens';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
@@ -80,7 +80,7 @@ export function ReturnForm({ booking, safeResidualV }: ReturnFormProps) {
           control={control}
           name="checklist.answers"
           render={({ field }) => (
-            <ChecklistFields entries={entries} value={field.value} onChange={field.onChange} lineErrors={formLineErrors} limitSources={limitSources} testID="checklist-return" />
+            <ChecklistFields bookingId={booking.id} entries={entries} value={field.value} onChange={field.onChange} lineErrors={formLineErrors} limitSources={limitSources} onLineAnswered={(lineId) => setLineErrors((lines) => withoutLine(lines, lineId))} testID="checklist-return" />
           )}
         />
       </Card>
