@@ -8,14 +8,18 @@ type Entry = { id: number; kind: string; min?: number; max?: number; required: b
 export const post = (who: Who, path: string, body: unknown = {}) => who.agent.post(path).set('x-csrf-token', who.csrf()).send(body as object);
 export const put = (who: Who, path: string, body: unknown = {}) => who.agent.put(path).set('x-csrf-token', who.csrf()).send(body as object);
 
-/** Answers every required line; readings get the middle of their limits unless overridden. */
+/**
+ * Answers every required line; readings get the middle of their limits unless overridden. A
+ * required photo line is sent without a photo (the server names it): only a photo uploaded to the
+ * booking itself answers one (tests/api/bookings/photos.test.ts).
+ */
 export function answersFor(entries: Entry[], readings: Record<number, number> = {}) {
   return entries
     .filter((e) => e.required)
     .map((e) => {
       if (e.kind === 'confirm') return { itemId: e.id, confirmed: true };
       if (e.kind === 'reading') return { itemId: e.id, value: readings[e.id] ?? ((e.min ?? 0) + (e.max ?? (e.min ?? 0) + 10)) / 2 };
-      return { itemId: e.id, fileId: 1 };
+      return { itemId: e.id };
     });
 }
 

@@ -427,6 +427,11 @@ export const ROUTES: Record<string, RouteFixture> = {
       return { params: { id: booking.id }, body: { tag: booking.items[0]!.tag }, status: 200 };
     },
   },
+  'POST /api/bookings/:id/photos': {
+    access: 'signed-in',
+    // Whoever may work the booking's counter: its booker, or staff (here each caller's own booking).
+    build: async (world, caller) => ({ params: { id: (await world.booking(caller)).id }, upload: { fileName: 'barrier.png', bytes: pngBytes() }, status: 201 }),
+  },
   'POST /api/bookings/:id/checklist': {
     access: 'signed-in',
     build: async (world, caller) => {

@@ -15,7 +15,7 @@
 // inspections, item_files, people, qualifications, lab_rules, checklist_templates, outbox,
 // person_tokens, audit_events, incidents) the rows whose id is a fuzz id or whose owner/actor
 // column names a fuzz person (bookings.person_id, approvals.officer_id, booking_scans.scanned_by,
-// checklist_runs.completed_by, inspections.inspector_id, item_files.uploaded_by,
+// checklist_runs.completed_by, inspections.inspector_id, item_files.uploaded_by or booking_id,
 // qualifications.recorded_by, lab_rules.updated_by, incidents.reported_by,
 // person_tokens.person_id, outbox.to_address, audit_events.actor_id or entity id) are counted and
 // hashed row by row (MD5 over QUOTE() of every column) in one query. A new row a fuzz request
@@ -451,7 +451,7 @@ class Lane {
       booking_scans: `booking_id IN ${B} OR scanned_by IN ${P}`,
       checklist_runs: `booking_id IN ${B} OR completed_by IN ${P}`,
       inspections: `item_id IN ${I} OR inspector_id IN ${P}`,
-      item_files: `item_id IN ${I} OR uploaded_by IN ${P}`,
+      item_files: `item_id IN ${I} OR booking_id IN ${B} OR uploaded_by IN ${P}`,
       qualifications: `person_id IN ${P} OR recorded_by IN ${P}`,
       lab_rules: `updated_by IN ${P}`,
       checklist_templates: `id IN ${list(world.templates)}`,
@@ -761,8 +761,10 @@ describe('hostile input (fast-check)', () => {
     report('query');
   }, 600_000);
 
-  it(`multipart uploads (${RUNS.upload} runs)`, async () => {
-    const key = 'POST /api/items/:id/files';
+  it(`multipart uploads on every upload route (${RUNS.upload} runs)`, async () => {
+    // The write routes whose valid request is an upload (item files, booking photos).
+    const uploadRoutes = WRITE_ROUTES.filter((k) => lanes[0]!.baseline(k).req.upload !== undefined);
+    expect(uploadRoutes).toEqual(['POST /api/bookings/:id/photos', 'POST /api/items/:id/files']);
     const PDF = Buffer.from('%PDF-1.4\n1 0 obj<</Type/Catalog>>endobj\ntrailer<</Root 1 0 R>>\n%%EOF\n');
     const contents = fc.constantFrom<[string, Buffer]>(
       ['png', pngBytes()],
@@ -779,7 +781,7 @@ describe('hostile input (fast-check)', () => {
     );
     const fields = fc.array(fc.tuple(fc.oneof(fc.constant('kind'), hostileKey), fc.oneof(fc.constantFrom('photo', 'document', 'PHOTO', ''), hostileString.filter((s) => s.length < 2000))), { maxLength: 6 });
     await inLanes(RUNS.upload, (lane) =>
-      fc.asyncProperty(contents, fileName, fields, fc.constantFrom('file', 'files', '__proto__'), fc.boolean(), async ([what, bytes], name, extraFields, fieldName, twice) => {
+      fc.asyncProperty(fc.constantFrom(...uploadRoutes), contents, fileName, fields, fc.constantFrom('file', 'files', '__proto__'), fc.boolean(), async (key, [what, bytes], name, extraFields, fieldName, twice) => {
         const { caller, req } = lane.baseline(key);
         const url = urlOf(key, req.params);
         const note = `${what} as ${JSON.stringify(name)} in field ${fieldName}${twice ? ' twice' : ''}; fields ${JSON.stringify(extraFields.map(([k, v]) => [k, v.slice(0, 50)]))}`;
