@@ -85,11 +85,6 @@ export function searchWords(q: string): string[] {
   return [...new Set(wordsOf(q))].slice(0, MAX_SEARCH_WORDS);
 }
 
-/** A LIKE pattern matching values that start with `prefix`, with `%`, `_` and `\` literal. */
-export function likePrefix(prefix: string): string {
-  return `${prefix.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-}
-
 export function termRowsOf(item: TermSource) {
   return termsOf(item).map((term) => ({ term, item_id: item.id, kind: item.kind, tag: item.tag, rated_kv: item.rated_kv }));
 }

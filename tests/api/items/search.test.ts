@@ -285,7 +285,7 @@ describe('word search plan', () => {
     const word = uniqueWord();
     for (let i = 0; i < 3; i += 1) await create('probe', `${word} divider ${i}`, { ratings: { maxKv: 60, ratio: 1000, inputResistanceMohm: 1000 } });
     const rows = await planOf({ ...params, q: params.q.replaceAll('W', word) });
-    // The first branch reads the word's rows by an index starting with the term.
+    // The driving word's rows are read by an index starting with the term.
     const first = rows.find((r) => r.table === 't');
     expect(TERM_INDEXES).toContain(first?.key);
     for (const row of rows.filter((r) => !r.table.startsWith('<'))) expect(row.type).not.toBe('ALL');

@@ -1,4 +1,4 @@
-import { likePrefix, prefixesOf, searchWords, termsOf, TERM_MAX_LENGTH, wordsOf } from '../../../server/services/item-terms';
+import { prefixesOf, searchWords, termsOf, TERM_MAX_LENGTH, wordsOf } from '../../../server/services/item-terms';
 
 const item = (fields: Partial<Record<'tag' | 'name' | 'make' | 'model' | 'serial' | 'location', string>>) => ({
   tag: 'PRB-0007',
@@ -75,12 +75,5 @@ describe('searchWords', () => {
     expect(searchWords('a b c d e f g h i j')).toEqual(['a', 'b', 'c', 'd', 'e', 'f', 'g', 'h']);
     expect(searchWords('%_\\*+-"')).toEqual([]);
     expect(searchWords('x'.repeat(50))).toEqual(wordsOf('x'.repeat(40)));
-  });
-});
-
-describe('likePrefix', () => {
-  it('escapes LIKE wildcards and the escape character, then matches any ending', () => {
-    expect(likePrefix('corona')).toBe('corona%');
-    expect(likePrefix('50%_a\\b')).toBe('50\\%\\_a\\\\b%');
   });
 });
