@@ -1,12 +1,25 @@
-// The search words of each item, one row per word in `item_terms`, written in the same
-// transaction as the item. Gear search matches typed words against these rows by prefix.
+// The search terms of each item in `item_terms`, written in the same transaction as the item.
+//
+// Prefix rows: every word of an item is stored with all of its prefixes ("coronal" gives "c",
+// "co", … "coronal"), once per item. A typed word then matches by equality alone, and an
+// equality on the term walks the (term, kind, tag, rated_kv) or (term, tag, rated_kv) index in
+// the listing's order and stops after a page: one index range, no LIKE branch, no check that an
+// item is listed once (the primary key (term, item_id) already makes it so). The cost is about
+// five times the rows, paid once per item write rather than in the optimizer on every search.
+//
+// Accent folding: "pruf" and "prüf" both find "Prüfspitze". Words are NFKD-decomposed, lower-cased,
+// stripped of the combining marks that follow Latin, Greek or Cyrillic letters (accents people
+// often leave out when typing), then recomposed (NFC). Marks of other scripts stay: Devanagari
+// vowel signs or the Japanese voicing mark are part of the letter, and dropping them would make
+// different words equal. Letters that do not decompose (ß, ł, ø) stay as they are. Stored and
+// typed text go through the same wordsOf, so the two sides always agree.
 //
 // The kind, tag and rated_kv of the item are copied into each row, so the common search
 // (a word, a kind, "rated at or above N kV", in tag order) is answered from one index alone.
 // Status is not copied (too many places change it); searches join items for it.
 //
-// The migration that created the table filled it with this tokeniser. Changing how words are
-// split or cut needs a new migration that rewrites every item's rows.
+// Changing how words are folded, split, cut or expanded needs a new migration that rewrites
+// every item's rows (see migrations/20261202001200_item_term_prefixes.ts).
 import type { Knex } from 'knex';
 import type { ItemKind } from '../../shared/schemas/items';
 
@@ -31,24 +44,40 @@ export interface TermSource {
   location: string;
 }
 
+/** Combining marks (one or more) right after a letter of a script whose accents are optional. */
+const OPTIONAL_ACCENTS = /(?<=[\p{Script=Latin}\p{Script=Greek}\p{Script=Cyrillic}])\p{M}+/gu;
+
+/** Anything that is not part of a word; marks count as part (they are kept outside Latin, Greek, Cyrillic). */
+const WORD_SEPARATORS = /[^\p{L}\p{M}\p{N}]+/u;
+
 /**
- * Words of a text: NFKC, lower case, split on anything that is not a letter or a digit, each cut
- * to TERM_MAX_LENGTH. Typed searches and stored terms go through the same function, so they agree.
+ * Words of a text: folded (compatibility forms, case and optional accents; see the header),
+ * split on anything that is not a letter, mark or digit, each cut to TERM_MAX_LENGTH. Typed
+ * searches and stored terms go through this one function, so they agree.
  */
 export function wordsOf(text: string): string[] {
   return text
-    .normalize('NFKC')
+    .normalize('NFKD')
     .toLowerCase()
-    .normalize('NFKC')
-    .split(/[^\p{L}\p{N}]+/u)
+    // Lower-casing can decompose again ("İ" becomes "i" and a combining dot).
+    .normalize('NFKD')
+    .replace(OPTIONAL_ACCENTS, '')
+    .normalize('NFC')
+    .split(WORD_SEPARATORS)
     .filter((w) => w.length > 0)
     .map((w) => Array.from(w).slice(0, TERM_MAX_LENGTH).join(''));
 }
 
-/** The distinct terms an item is found by. */
+/** Every prefix of a word, one character (code point) longer each time, the word itself last. */
+export function prefixesOf(word: string): string[] {
+  const chars = Array.from(word);
+  return chars.map((_, i) => chars.slice(0, i + 1).join(''));
+}
+
+/** The distinct terms an item is found by: every prefix of every one of its words. */
 export function termsOf(item: Pick<TermSource, 'tag' | 'name' | 'make' | 'model' | 'serial' | 'location'>): string[] {
   const text = [item.tag, item.name, item.make, item.model, item.serial, item.location].join(' ');
-  return [...new Set(wordsOf(text))];
+  return [...new Set(wordsOf(text).flatMap(prefixesOf))];
 }
 
 /** The words of a search, deduplicated, at most MAX_SEARCH_WORDS of them. */
@@ -56,16 +85,16 @@ export function searchWords(q: string): string[] {
   return [...new Set(wordsOf(q))].slice(0, MAX_SEARCH_WORDS);
 }
 
-/** A LIKE pattern matching values that start with `prefix`, with `%`, `_` and `\` literal. */
-export function likePrefix(prefix: string): string {
-  return `${prefix.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-}
-
 export function termRowsOf(item: TermSource) {
   return termsOf(item).map((term) => ({ term, item_id: item.id, kind: item.kind, tag: item.tag, rated_kv: item.rated_kv }));
 }
 
-/** Rows inserted per statement when many items are written at once. */
+/**
+ * Rows inserted per statement when many items are written at once. Counted in rows, not items,
+ * so prefix rows (about five times as many per item) do not grow a statement: a row is at most
+ * ~330 bytes of SQL (a 32-character term and a 32-character tag at 4 bytes each, kind, number,
+ * id), so 2000 rows stay under 1 MB, far below MariaDB's default max_allowed_packet of 16 MB.
+ */
 const INSERT_CHUNK = 2000;
 
 /**

@@ -25,7 +25,7 @@ import { ConflictError, NotFoundError, ValidationError } from '../errors';
 import { validate } from '../middleware/validate';
 import { appendAudit, auditedTransaction } from './audit';
 import { addDaysIso, dateColumnToIso, timestampToIso, todayIso } from './dates';
-import { likePrefix, searchWords, writeItemTerms } from './item-terms';
+import { searchWords, writeItemTerms } from './item-terms';
 
 export interface ItemRow {
   id: number;
@@ -392,48 +392,38 @@ function applyListing(builder: Knex.QueryBuilder, query: ItemListQuery, cursor: 
 }
 
 /**
- * Items matching every word as a prefix of one of their terms. The longest word drives: its
- * term rows are read in the listing's order (item_terms holds kind, tag and rated_kv, so those
- * filters and the tag and voltage sorts need no items row), and each row's item is checked for
- * status and the other words. Two branches, merged by one UNION ALL:
- *  - the word itself as a term: an equality, so the (term, tag) and (term, kind, tag) indexes
- *    give tag order and MariaDB stops after a page (a whole typed word is the common case);
- *  - longer terms starting with the word ("corona" → "coronal"), for items without the word
- *    itself: a range, sorted; an item with several such terms is taken once.
- * The branches carry only the id and the sort key; the page's rows are read from items last.
+ * Items matching every word as a prefix of one of their words. item_terms holds every prefix of
+ * every word (see item-terms.ts), so each typed word is an equality on the term. The longest word
+ * drives: its term rows are read in the listing's order (item_terms holds kind, tag and rated_kv,
+ * so those filters need no items row, and in tag order MariaDB walks the index and stops after a
+ * page), and each row is checked for the other words and its item's status. The primary key
+ * (term, item_id) gives one row per item for a term, so an item is listed once.
  */
 function wordSearch(db: Db, query: ItemListQuery, cursor: Cursor | null, sort: Sort, words: string[]): Knex.QueryBuilder {
   const driver = words.reduce((best, w) => (Array.from(w).length > Array.from(best).length ? w : best));
   // A word that starts another typed word adds nothing ("cor corona").
   const others = words.filter((w) => w !== driver && !words.some((o) => o !== w && o.startsWith(w)));
-  const branch = (exact: boolean) => {
-    // STRAIGHT_JOIN: term rows first. For a word in every item ("m" of model M-123) MariaDB
-    // would otherwise scan items and sort them all.
-    const b = db({ t: 'item_terms' })
-      .joinRaw('STRAIGHT_JOIN items AS i ON i.id = t.item_id')
-      .select({ id: 't.item_id', [sort.column]: sort.term.column });
-    if (exact) b.where('t.term', driver);
-    else {
-      b.where('t.term', 'like', likePrefix(driver)).andWhere('t.term', '>', driver);
-      // Items with the word itself are listed by the first branch. Checked before sorting (one
-      // primary-key probe), so a word that most items have ("m") does not sort them all.
-      b.whereRaw('NOT EXISTS (SELECT 1 FROM item_terms AS x WHERE x.term = ? AND x.item_id = t.item_id)', [driver]);
-      // Once per item: at its smallest longer term (any term between the word and this one
-      // starts with the word too). Checked after sorting, only on rows that reach the page.
-      b.whereRaw('NOT EXISTS (SELECT 1 FROM item_terms AS d WHERE d.item_id = i.id AND d.term > ? AND d.term < t.term)', [driver]);
-    }
-    // A scalar subquery, not EXISTS: MariaDB turns EXISTS into a semi-join that reads every
-    // term of the other word first; this is checked only on rows that reach the page.
-    for (const w of others) b.whereRaw('(SELECT 1 FROM item_terms AS o WHERE o.item_id = i.id AND o.term LIKE ? LIMIT 1) IS NOT NULL', [likePrefix(w)]);
-    applyListing(b, query, cursor, sort, TERM_COLUMNS(sort));
-    return b;
-  };
-  const order = sort.unique ? [{ column: `p.${sort.column}`, order: sort.order }] : [{ column: `p.${sort.column}`, order: sort.order }, { column: 'p.id', order: sort.order }];
+  // STRAIGHT_JOIN: term rows first. For a word in every item ("m" of model M-123) MariaDB would
+  // otherwise scan items and sort them all.
+  const matches = db({ t: 'item_terms' }).joinRaw('STRAIGHT_JOIN items AS i ON i.id = t.item_id').where('t.term', driver);
+  // A scalar subquery: one primary-key probe per term row, before its items row is read. As
+  // EXISTS or IN, MariaDB pulls the other word into the join and may read all of its rows first
+  // (on the bench database, "c 1" read the 20,000 rows of "1" and sorted them on disk).
+  for (const w of others) matches.whereRaw('(SELECT 1 FROM item_terms AS o WHERE o.term = ? AND o.item_id = t.item_id) IS NOT NULL', [w]);
+  applyListing(matches, query, cursor, sort, TERM_COLUMNS(sort));
+  if (sort === SORTS.tag) return matches.select(...SUMMARY_COLUMNS.map((col) => `i.${col}`));
+
+  // Any other order sorts every match: sort only ids and keys (a temporary table of small rows),
+  // then read the page's items. Sorting whole items rows spilled to disk for a common word.
+  matches.select({ id: 't.item_id', [sort.column]: sort.term.column });
   return db
-    .from(db.queryBuilder().unionAll([branch(true), branch(false)], true).as('p'))
+    .from(matches.as('p'))
     .joinRaw('STRAIGHT_JOIN items AS i ON i.id = p.id')
     .select(...SUMMARY_COLUMNS.map((col) => `i.${col}`))
-    .orderBy(order)
+    .orderBy([
+      { column: `p.${sort.column}`, order: sort.order },
+      { column: 'p.id', order: sort.order },
+    ])
     .limit(query.limit + 1);
 }
 

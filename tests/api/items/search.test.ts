@@ -121,6 +121,29 @@ describe('word search', () => {
     expect(await search({ q: `${word} prüfspitzen` })).toEqual([]);
   });
 
+  it('folds accents both ways: an unaccented word finds accented gear, an accented one plain gear', async () => {
+    const word = uniqueWord();
+    const accented = await create('probe', `${word} Prüfspitze`, { location: 'Salle Électrique' });
+    const plain = await create('probe', `${word} Prufkabel`);
+    for (const q of [`${word} pruf`, `${word} prüf`, `${word} PRÜF`, `${word} pru\u0308f`]) expect(ids(await search({ q })).sort()).toEqual([accented.id, plain.id].sort());
+    expect(ids(await search({ q: `${word} prufspitze` }))).toEqual([accented.id]);
+    expect(ids(await search({ q: `${word} prüfkabel` }))).toEqual([plain.id]);
+    expect(ids(await search({ q: `${word} electrique` }))).toEqual([accented.id]);
+    expect(ids(await search({ q: `${word} élec` }))).toEqual([accented.id]);
+  });
+
+  it('finds an item once by a prefix that several of its words share', async () => {
+    const word = uniqueWord();
+    const item = await create('probe', `${word} corona coronal`, { location: 'Corona cage' });
+    const other = await create('probe', `${word} coronal`);
+    for (const q of [`${word} coro`, `${word} c`, `${word} corona`]) {
+      const found = await search({ q });
+      expect(ids(found).filter((id) => id === item.id)).toHaveLength(1);
+    }
+    expect(ids(await search({ q: `${word} coro` })).sort()).toEqual([item.id, other.id].sort());
+    expect(ids(await search({ q: `${word} corona` })).sort()).toEqual([item.id, other.id].sort());
+  });
+
   it('lists an item once when several of its words start with the typed word', async () => {
     const word = uniqueWord();
     const both = await create('probe', `${word}corona ${word}coronal ${word}coronas`);
@@ -140,6 +163,16 @@ describe('word search', () => {
     expect(ids(await search({ q: long }))).toEqual([item.id]);
     expect(ids(await search({ q: `${long}extra` }))).toEqual([item.id]);
     expect(ids(await search({ q: long.slice(0, 20) }))).toEqual([item.id]);
+  });
+
+  it('finds a word of 32 or more characters by each of its first 32 characters, and once', async () => {
+    const word = uniqueWord();
+    const long = `${word}${'q'.repeat(40)}`;
+    const item = await create('other', `${long} ${long}z rig`);
+    for (const length of [word.length + 1, 31, 32, 33, long.length]) expect(ids(await search({ q: long.slice(0, length) }))).toEqual([item.id]);
+    // Past 32 characters the word is cut, so what follows no longer tells words apart.
+    expect(ids(await search({ q: `${long.slice(0, 32)}different` }))).toEqual([item.id]);
+    expect(await search({ q: `${long.slice(0, 31)}x` })).toEqual([]);
   });
 
   it('hides retired gear unless retired gear is asked for; tagged-out gear stays listed', async () => {
@@ -252,7 +285,7 @@ describe('word search plan', () => {
     const word = uniqueWord();
     for (let i = 0; i < 3; i += 1) await create('probe', `${word} divider ${i}`, { ratings: { maxKv: 60, ratio: 1000, inputResistanceMohm: 1000 } });
     const rows = await planOf({ ...params, q: params.q.replaceAll('W', word) });
-    // The first branch reads the word's rows by an index starting with the term.
+    // The driving word's rows are read by an index starting with the term.
     const first = rows.find((r) => r.table === 't');
     expect(TERM_INDEXES).toContain(first?.key);
     for (const row of rows.filter((r) => !r.table.startsWith('<'))) expect(row.type).not.toBe('ALL');
