@@ -2,7 +2,6 @@
 // is delivered by the real outbox worker to the fake SMTP server, the link sets a password and the
 // new person signs in; the forgotten-password flow the same way. Plus the manager's other screens
 // in this area: changing a person, the Outbox and Reports.
-import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { OutboxWorker } from '../../server/mail/outbox';
@@ -10,10 +9,9 @@ import { createTransport } from '../../server/mail/transport';
 import { addDaysIso, todayIso } from '../../server/services/dates';
 import { insertItem, qualify } from '../helpers/gear';
 import { createPerson, uniqueEmail, uniqueWord } from '../helpers/test-app';
-import { launchBrowser, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, startE2eServer, WIDE, type BrowserHandle, type E2eServer } from '../helpers/e2e';
+import { e2eSuite, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, WIDE } from '../helpers/e2e';
 
-let server: E2eServer;
-let browser: BrowserHandle;
+const suite = e2eSuite();
 let worker: OutboxWorker;
 // Other suites may have left a backlog of queued mail in the shared test database.
 const MAIL_WAIT_MS = 150_000;
@@ -21,15 +19,8 @@ const DRAINABLE_BACKLOG = 300;
 const MAIL_TEST_TIMEOUT_MS = 240_000;
 let manager: { id: number; email: string; password: string };
 beforeAll(async () => {
-  server = await startE2eServer();
-  browser = await launchBrowser();
-  worker = new OutboxWorker(server.db, createTransport(server.smtp.url), 'Voltcrib <voltcrib@localhost>');
-  manager = await createPerson(server.db, { role: 'manager', name: 'Maren Okafor' });
-  mkdirSync(SCREENSHOT_DIR, { recursive: true });
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
+  worker = new OutboxWorker(suite.server.db, createTransport(suite.server.smtp.url), 'Voltcrib <voltcrib@localhost>');
+  manager = await createPerson(suite.server.db, { role: 'manager', name: 'Maren Okafor' });
 });
 
 /**
@@ -42,14 +33,14 @@ afterAll(async () => {
 async function mailTo(to: string, subject: string): Promise<string> {
   const deadline = Date.now() + MAIL_WAIT_MS;
   while (Date.now() < deadline) {
-    const received = server.smtp.list().find((m) => m.to.includes(to) && m.subject === subject);
+    const received = suite.server.smtp.list().find((m) => m.to.includes(to) && m.subject === subject);
     if (received) return received.text;
-    const row = await server.db('outbox').where({ to_address: to, subject }).orderBy('id', 'desc').first('id', 'state', 'text_body');
+    const row = await suite.server.db('outbox').where({ to_address: to, subject }).orderBy('id', 'desc').first('id', 'state', 'text_body');
     if (row) {
-      const ahead = await server.db('outbox').where('state', 'pending').andWhere('id', '<', row.id).count({ n: '*' }).first();
+      const ahead = await suite.server.db('outbox').where('state', 'pending').andWhere('id', '<', row.id).count({ n: '*' }).first();
       if (row.state === 'sent' || Number(ahead?.n) > DRAINABLE_BACKLOG) {
         console.warn(`mail to ${to} read from the outbox row (${row.state}, ${Number(ahead?.n)} queued ahead of it)`);
-        return server.smtp.list().find((m) => m.to.includes(to) && m.subject === subject)?.text ?? String(row.text_body);
+        return suite.server.smtp.list().find((m) => m.to.includes(to) && m.subject === subject)?.text ?? String(row.text_body);
       }
     }
     const { sent, failed } = await worker.drain(20);
@@ -65,7 +56,7 @@ function linkIn(text: string, route: 'invitation' | 'reset-password'): string {
 }
 
 async function signInExpectingFailure(page: Page, email: string, password: string) {
-  await page.goto(`${server.baseUrl}/sign-in`, { waitUntil: 'load' });
+  await page.goto(`${suite.server.baseUrl}/sign-in`, { waitUntil: 'load' });
   await page.getByTestId('sign-in-email').fill(email);
   await page.getByTestId('sign-in-password').fill(password);
   await page.getByTestId('sign-in-submit').click();
@@ -75,11 +66,11 @@ async function signInExpectingFailure(page: Page, email: string, password: strin
 describe('an invitation', () => {
   it('is sent from People, sets a password through its link, and the new person signs in', async () => {
     const email = uniqueEmail('invitee');
-    const managerView = await newPage(browser.browser, PHONE);
+    const managerView = await newPage(suite.browser.browser, PHONE);
     try {
       const page = managerView.page;
-      await signInThroughUi(page, server.baseUrl, manager.email, manager.password);
-      await page.goto(`${server.baseUrl}/people`, { waitUntil: 'load' });
+      await signInThroughUi(page, suite.server.baseUrl, manager.email, manager.password);
+      await page.goto(`${suite.server.baseUrl}/people`, { waitUntil: 'load' });
       await page.getByTestId('people-invite-open').click();
       await page.getByTestId('people-invite-submit').click();
       // The shared invitation schema speaks before anything is sent.
@@ -90,7 +81,7 @@ describe('an invitation', () => {
       await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'people-invite-phone.png') });
       await page.getByTestId('people-invite-submit').click();
       await expect(page.getByTestId('people-invite-sent').textContent()).resolves.toContain(email);
-      const invited = await server.db('people').where({ email }).first('id', 'role', 'password_hash');
+      const invited = await suite.server.db('people').where({ email }).first('id', 'role', 'password_hash');
       expect(invited).toMatchObject({ role: 'member', password_hash: null });
 
       // Inviting the same e-mail again is refused on the e-mail field.
@@ -105,7 +96,7 @@ describe('an invitation', () => {
     }
 
     const link = linkIn(await mailTo(email, 'You are invited to Voltcrib'), 'invitation');
-    const { context, page } = await newPage(browser.browser, PHONE);
+    const { context, page } = await newPage(suite.browser.browser, PHONE);
     try {
       await page.goto(link, { waitUntil: 'load' });
       await page.getByTestId('invitation-screen').waitFor();
@@ -127,7 +118,7 @@ describe('an invitation', () => {
     }
 
     // The link worked once.
-    const again = await newPage(browser.browser, PHONE);
+    const again = await newPage(suite.browser.browser, PHONE);
     try {
       await again.page.goto(link, { waitUntil: 'load' });
       await again.page.getByTestId('invitation-password').fill('another long password');
@@ -142,17 +133,17 @@ describe('an invitation', () => {
 
 describe('a forgotten password', () => {
   it('is reset through the e-mailed link; the link then reads as used, with a way to ask again', async () => {
-    const person = await createPerson(server.db, { role: 'member', name: 'Teodor Lund' });
-    const { context, page } = await newPage(browser.browser, PHONE);
+    const person = await createPerson(suite.server.db, { role: 'member', name: 'Teodor Lund' });
+    const { context, page } = await newPage(suite.browser.browser, PHONE);
     try {
-      await page.goto(`${server.baseUrl}/`, { waitUntil: 'load' });
+      await page.goto(`${suite.server.baseUrl}/`, { waitUntil: 'load' });
       await page.getByTestId('sign-in-forgot').click();
       await page.getByTestId('forgot-password-screen').waitFor();
       await page.getByTestId('forgot-password-email').fill('nobody-here@test.voltcrib.example');
       await page.getByTestId('forgot-password-submit').click();
       const unknownAnswer = await page.getByTestId('forgot-password-sent').textContent({ timeout: 15_000 });
 
-      await page.goto(`${server.baseUrl}/forgot-password`, { waitUntil: 'load' });
+      await page.goto(`${suite.server.baseUrl}/forgot-password`, { waitUntil: 'load' });
       await page.getByTestId('forgot-password-email').fill(person.email);
       await page.getByTestId('forgot-password-submit').click();
       // The same words whether or not the e-mail has an account.
@@ -179,7 +170,7 @@ describe('a forgotten password', () => {
       await context.close();
     }
 
-    const { context: later, page: laterPage } = await newPage(browser.browser, PHONE);
+    const { context: later, page: laterPage } = await newPage(suite.browser.browser, PHONE);
     try {
       const link = linkIn(await mailTo(person.email, 'Reset your Voltcrib password'), 'reset-password');
       await laterPage.goto(link, { waitUntil: 'load' });
@@ -196,14 +187,14 @@ describe('a forgotten password', () => {
   }, MAIL_TEST_TIMEOUT_MS);
 
   it('treats a link that was never issued as used or expired', async () => {
-    const { context, page } = await newPage(browser.browser, PHONE);
+    const { context, page } = await newPage(suite.browser.browser, PHONE);
     try {
-      await page.goto(`${server.baseUrl}/reset-password/not-a-real-token-${uniqueWord()}`, { waitUntil: 'load' });
+      await page.goto(`${suite.server.baseUrl}/reset-password/not-a-real-token-${uniqueWord()}`, { waitUntil: 'load' });
       await page.getByTestId('reset-password-password').fill('a long enough password');
       await page.getByTestId('reset-password-confirm').fill('a long enough password');
       await page.getByTestId('reset-password-submit').click();
       await page.getByTestId('reset-password-expired').waitFor({ timeout: 15_000 });
-      await page.goto(`${server.baseUrl}/invitation/x`, { waitUntil: 'load' });
+      await page.goto(`${suite.server.baseUrl}/invitation/x`, { waitUntil: 'load' });
       await page.getByTestId('invitation-expired').waitFor();
     } finally {
       await context.close();
@@ -214,18 +205,18 @@ describe('a forgotten password', () => {
 describe('a manager on People', () => {
   it('changes a role and group, sees an expired qualification, and deactivates with sessions ended at once', async () => {
     const groupName = `Corona group ${uniqueWord()}`;
-    const [groupId] = (await server.db('groups').insert({ name: groupName })) as [number];
-    const member = await createPerson(server.db, { role: 'member', name: 'Priya Halden' });
-    await qualify(server.db, member.id, 30, addDaysIso(todayIso(), -3));
+    const [groupId] = (await suite.server.db('groups').insert({ name: groupName })) as [number];
+    const member = await createPerson(suite.server.db, { role: 'member', name: 'Priya Halden' });
+    await qualify(suite.server.db, member.id, 30, addDaysIso(todayIso(), -3));
 
     // The member is signed in elsewhere; deactivation must end that session.
-    const memberView = await newPage(browser.browser, PHONE);
-    await signInThroughUi(memberView.page, server.baseUrl, member.email, member.password);
+    const memberView = await newPage(suite.browser.browser, PHONE);
+    await signInThroughUi(memberView.page, suite.server.baseUrl, member.email, member.password);
 
-    const { context, page } = await newPage(browser.browser, PHONE);
+    const { context, page } = await newPage(suite.browser.browser, PHONE);
     try {
-      await signInThroughUi(page, server.baseUrl, manager.email, manager.password);
-      await page.goto(`${server.baseUrl}/people?person=${member.id}`, { waitUntil: 'load' });
+      await signInThroughUi(page, suite.server.baseUrl, manager.email, manager.password);
+      await page.goto(`${suite.server.baseUrl}/people?person=${member.id}`, { waitUntil: 'load' });
       await page.getByTestId('person-panel').waitFor({ timeout: 15_000 });
       await expect(page.getByTestId('person-qualification').textContent()).resolves.toContain('Expired');
 
@@ -234,23 +225,23 @@ describe('a manager on People', () => {
       await page.getByTestId(`person-group-${groupId}`).click();
       await page.getByTestId('person-save').click();
       await page.getByTestId('person-saved').waitFor({ timeout: 15_000 });
-      await expect(server.db('people').where({ id: member.id }).first('role', 'group_id')).resolves.toEqual({ role: 'manager', group_id: groupId });
+      await expect(suite.server.db('people').where({ id: member.id }).first('role', 'group_id')).resolves.toEqual({ role: 'manager', group_id: groupId });
       await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'people-person-phone.png'), fullPage: true });
 
       // The role change ended the session; sign the member in again for the deactivation check.
-      await signInThroughUi(memberView.page, server.baseUrl, member.email, member.password);
+      await signInThroughUi(memberView.page, suite.server.baseUrl, member.email, member.password);
 
       await page.getByTestId('person-deactivate').click();
       await expect(page.getByTestId('person-deactivate-question').textContent()).resolves.toContain('Their sessions end at once');
       await page.getByTestId('person-deactivate-confirm').click();
       await page.getByTestId('person-reactivate').waitFor({ timeout: 15_000 });
-      const after = await server.db('people').where({ id: member.id }).first('active');
+      const after = await suite.server.db('people').where({ id: member.id }).first('active');
       expect(Number(after.active)).toBe(0);
-      const sessions = await server.db('sessions').where({ person_id: member.id }).count({ n: '*' }).first();
+      const sessions = await suite.server.db('sessions').where({ person_id: member.id }).count({ n: '*' }).first();
       expect(Number(sessions?.n)).toBe(0);
 
       // Their open app notices on its next request and returns to sign-in.
-      await memberView.page.goto(`${server.baseUrl}/`, { waitUntil: 'load' });
+      await memberView.page.goto(`${suite.server.baseUrl}/`, { waitUntil: 'load' });
       await memberView.page.getByTestId('sign-in-screen').waitFor({ timeout: 15_000 });
 
       await page.getByTestId('person-reactivate').click();
@@ -264,16 +255,16 @@ describe('a manager on People', () => {
     } finally {
       await context.close();
       await memberView.context.close();
-      await server.db('people').where({ id: member.id }).update({ group_id: null, role: 'member' });
-      await server.db('groups').where({ id: groupId }).delete();
+      await suite.server.db('people').where({ id: member.id }).update({ group_id: null, role: 'member' });
+      await suite.server.db('groups').where({ id: groupId }).delete();
     }
   });
 
   it('cannot change their own role or deactivate themselves', async () => {
-    const { context, page } = await newPage(browser.browser, WIDE);
+    const { context, page } = await newPage(suite.browser.browser, WIDE);
     try {
-      await signInThroughUi(page, server.baseUrl, manager.email, manager.password);
-      await page.goto(`${server.baseUrl}/people?person=${manager.id}`, { waitUntil: 'load' });
+      await signInThroughUi(page, suite.server.baseUrl, manager.email, manager.password);
+      await page.goto(`${suite.server.baseUrl}/people?person=${manager.id}`, { waitUntil: 'load' });
       await page.getByTestId('person-panel').waitFor({ timeout: 15_000 });
       expect(await page.getByTestId('person-role-officer').count()).toBe(0);
       expect(await page.getByTestId('person-deactivate').count()).toBe(0);
@@ -288,18 +279,18 @@ describe('a manager on the Outbox', () => {
   it('lists the mail received, newest first, and opens one with its link', async () => {
     // Straight into this server's fake SMTP: the Outbox shows the mailbox, whatever queued the mail.
     const subject = `Bench 3 handover ${uniqueWord()}`;
-    const link = `${server.baseUrl}/bookings/42`;
-    await createTransport(server.smtp.url).sendMail({
+    const link = `${suite.server.baseUrl}/bookings/42`;
+    await createTransport(suite.server.smtp.url).sendMail({
       from: 'Voltcrib <voltcrib@localhost>',
       to: 'lena.marsh@kestrel-hall.example',
       subject,
       text: ['Hello Lena Marsh,', '', 'The 30 kV supply is back at the counter.', '', `Open the booking: ${link}.`].join('\n'),
     });
-    const message = server.smtp.list().find((m) => m.subject === subject)!;
-    const { context, page } = await newPage(browser.browser, PHONE);
+    const message = suite.server.smtp.list().find((m) => m.subject === subject)!;
+    const { context, page } = await newPage(suite.browser.browser, PHONE);
     try {
-      await signInThroughUi(page, server.baseUrl, manager.email, manager.password);
-      await page.goto(`${server.baseUrl}/outbox`, { waitUntil: 'load' });
+      await signInThroughUi(page, suite.server.baseUrl, manager.email, manager.password);
+      await page.goto(`${suite.server.baseUrl}/outbox`, { waitUntil: 'load' });
       await page.getByTestId('outbox-list').waitFor({ timeout: 15_000 });
       // Newest first: the message just sent is the first row.
       await expect(page.getByTestId('outbox-list').getByRole('button').first().textContent()).resolves.toContain(subject);
@@ -320,9 +311,9 @@ describe('a manager on the Outbox', () => {
 describe('a manager on Reports', () => {
   it('shows use per group, overdue bookings and inspections due, each with its CSV link', async () => {
     const groupName = `Ionic wind group ${uniqueWord()}`;
-    const [groupId] = (await server.db('groups').insert({ name: groupName })) as [number];
-    const booker = await createPerson(server.db, { role: 'member', name: 'Ada Brandt' });
-    await server.db('people').where({ id: booker.id }).update({ group_id: groupId });
+    const [groupId] = (await suite.server.db('groups').insert({ name: groupName })) as [number];
+    const booker = await createPerson(suite.server.db, { role: 'member', name: 'Ada Brandt' });
+    await suite.server.db('people').where({ id: booker.id }).update({ group_id: groupId });
     const hour = 3600_000;
     const now = Date.now();
     const booking = {
@@ -337,21 +328,21 @@ describe('a manager on Reports', () => {
       approval_required: false,
     };
     // A three-hour test two days ago, and one whose gear is two hours overdue now.
-    await server.db('bookings').insert({ ...booking, status: 'returned', starts_at: new Date(now - 50 * hour), ends_at: new Date(now - 47 * hour), released_at: new Date(now - 50 * hour), returned_at: new Date(now - 47 * hour) });
-    const [overdueId] = (await server.db('bookings').insert({ ...booking, status: 'released', starts_at: new Date(now - 5 * hour), ends_at: new Date(now - 2 * hour), released_at: new Date(now - 5 * hour) })) as [number];
-    const dueItem = await insertItem(server.db, 'probe', { nextDue: addDaysIso(todayIso(), -1) });
+    await suite.server.db('bookings').insert({ ...booking, status: 'returned', starts_at: new Date(now - 50 * hour), ends_at: new Date(now - 47 * hour), released_at: new Date(now - 50 * hour), returned_at: new Date(now - 47 * hour) });
+    const [overdueId] = (await suite.server.db('bookings').insert({ ...booking, status: 'released', starts_at: new Date(now - 5 * hour), ends_at: new Date(now - 2 * hour), released_at: new Date(now - 5 * hour) })) as [number];
+    const dueItem = await insertItem(suite.server.db, 'probe', { nextDue: addDaysIso(todayIso(), -1) });
 
-    const { context, page } = await newPage(browser.browser, PHONE);
+    const { context, page } = await newPage(suite.browser.browser, PHONE);
     try {
-      await signInThroughUi(page, server.baseUrl, manager.email, manager.password);
-      await page.goto(`${server.baseUrl}/reports`, { waitUntil: 'load' });
+      await signInThroughUi(page, suite.server.baseUrl, manager.email, manager.password);
+      await page.goto(`${suite.server.baseUrl}/reports`, { waitUntil: 'load' });
 
       await expect(page.getByTestId(`reports-overdue-${overdueId}`).textContent({ timeout: 15_000 })).resolves.toMatch(/Ada Brandt[\s\S]*2 h overdue/);
       await expect(page.getByTestId('reports-overdue-csv').getAttribute('href')).resolves.toBe('/api/reports/overdue.csv');
 
       // Soonest first, at most 50: an item a day overdue is listed unless 50 older ones exist.
       await page.getByTestId('reports-inspections').getByText(/Overdue|Due soon/).first().waitFor({ timeout: 15_000 });
-      const older = await server.db('items').whereNot('status', 'retired').andWhere('next_inspection_due', '<', addDaysIso(todayIso(), -1)).count({ n: '*' }).first();
+      const older = await suite.server.db('items').whereNot('status', 'retired').andWhere('next_inspection_due', '<', addDaysIso(todayIso(), -1)).count({ n: '*' }).first();
       if (Number(older?.n) < 50) await page.getByTestId(`reports-inspection-${dueItem.id}`).waitFor();
       await expect(page.getByTestId('reports-inspections-csv').getAttribute('href')).resolves.toBe('/api/reports/inspections.csv');
 
@@ -360,7 +351,7 @@ describe('a manager on Reports', () => {
       const row = page.getByTestId('reports-usage-table').getByRole('row').filter({ hasText: groupName });
       await expect(row.textContent({ timeout: 15_000 })).resolves.toBe(`${groupName}26 h1`);
       const usageHref = await page.getByTestId('reports-usage-csv').getAttribute('href');
-      const period = Object.fromEntries(new URL(usageHref!, server.baseUrl).searchParams);
+      const period = Object.fromEntries(new URL(usageHref!, suite.server.baseUrl).searchParams);
       const days = (new Date(period.to!).getTime() - new Date(period.from!).getTime()) / (24 * hour);
       expect(Math.round(days)).toBe(30);
       const csv = await page.evaluate(async (href) => (await fetch(href)).text(), usageHref!);
@@ -379,9 +370,9 @@ describe('a manager on Reports', () => {
     } finally {
       await context.close();
       // Leave no overdue booking or extra group behind for other suites.
-      await server.db('bookings').where({ id: overdueId }).update({ status: 'returned', returned_at: new Date() });
-      await server.db('people').where({ id: booker.id }).update({ group_id: null });
-      await server.db('groups').where({ id: groupId }).delete();
+      await suite.server.db('bookings').where({ id: overdueId }).update({ status: 'returned', returned_at: new Date() });
+      await suite.server.db('people').where({ id: booker.id }).update({ group_id: null });
+      await suite.server.db('groups').where({ id: groupId }).delete();
     }
   });
 });

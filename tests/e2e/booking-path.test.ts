@@ -2,29 +2,18 @@
 // (above the lab's approval voltage and their own 20 kV qualification), an officer approves it in
 // the queue, the member releases it at the counter (typed tags, pre-energize checklist) and returns
 // it with the make-safe checklist. Refusals along the way must name their rules.
-import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { insertItem, insertKit, qualify } from '../helpers/gear';
 import { createPerson } from '../helpers/test-app';
-import { launchBrowser, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, startE2eServer, type BrowserHandle, type E2eServer } from '../helpers/e2e';
+import { e2eSuite, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi } from '../helpers/e2e';
 
-let server: E2eServer;
-let browser: BrowserHandle;
-beforeAll(async () => {
-  server = await startE2eServer();
-  browser = await launchBrowser();
-  mkdirSync(SCREENSHOT_DIR, { recursive: true });
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const suite = e2eSuite();
 
 const shot = (page: Page, name: string) => page.screenshot({ path: path.join(SCREENSHOT_DIR, `booking-path-${name}.png`), fullPage: true });
 
 async function statusInDb(id: number): Promise<string> {
-  const row = await server.db('bookings').where({ id }).first('status');
+  const row = await suite.server.db('bookings').where({ id }).first('status');
   return row.status as string;
 }
 
@@ -42,17 +31,17 @@ async function answerChecklist(page: Page, prefix: string, reading: string): Pro
 }
 
 it('books above the approval voltage, gets approved, releases at the counter and returns made safe', async () => {
-  const member = await createPerson(server.db, { role: 'member', name: 'Ines Kestrel' });
-  const officer = await createPerson(server.db, { role: 'officer', name: 'Tomas Orrin' });
-  await qualify(server.db, member.id, 20);
-  const kit = await insertKit(server.db);
-  const stray = await insertItem(server.db, 'probe');
-  const items = (await server.db('items').whereIn('id', kit.all.map((i) => i.id)).select('id', 'tag', 'name')) as { id: number; tag: string; name: string }[];
+  const member = await createPerson(suite.server.db, { role: 'member', name: 'Ines Kestrel' });
+  const officer = await createPerson(suite.server.db, { role: 'officer', name: 'Tomas Orrin' });
+  await qualify(suite.server.db, member.id, 20);
+  const kit = await insertKit(suite.server.db);
+  const stray = await insertItem(suite.server.db, 'probe');
+  const items = (await suite.server.db('items').whereIn('id', kit.all.map((i) => i.id)).select('id', 'tag', 'name')) as { id: number; tag: string; name: string }[];
 
-  const { context, page } = await newPage(browser.browser, PHONE);
+  const { context, page } = await newPage(suite.browser.browser, PHONE);
   try {
     // --- Book -------------------------------------------------------------------------------
-    await signInThroughUi(page, server.baseUrl, member.email, member.password);
+    await signInThroughUi(page, suite.server.baseUrl, member.email, member.password);
     await page.getByTestId('nav-bookings').click();
     await page.getByTestId('bookings-screen').waitFor();
     await page.getByTestId('bookings-new').click();
@@ -93,11 +82,11 @@ it('books above the approval voltage, gets approved, releases at the counter and
     expect(await statusInDb(bookingId)).toBe('awaiting-approval');
 
     // --- Approve (the officer, in a second browser context) ---------------------------------
-    const officerPage = await newPage(browser.browser, PHONE);
+    const officerPage = await newPage(suite.browser.browser, PHONE);
     try {
       const o = officerPage.page;
-      await signInThroughUi(o, server.baseUrl, officer.email, officer.password);
-      await o.goto(`${server.baseUrl}/approvals`, { waitUntil: 'load' });
+      await signInThroughUi(o, suite.server.baseUrl, officer.email, officer.password);
+      await o.goto(`${suite.server.baseUrl}/approvals`, { waitUntil: 'load' });
       await o.getByTestId('approvals-screen').waitFor();
       await o.getByTestId(`approval-${bookingId}`).waitFor({ timeout: 15_000 });
       await o.getByTestId(`approval-${bookingId}-assessment-approval-reason-planned-kv`).waitFor({ timeout: 15_000 });
@@ -172,7 +161,7 @@ it('books above the approval voltage, gets approved, releases at the counter and
     await page.getByTestId('return-status-returned').waitFor();
     await shot(page, '5-returned');
     expect(await statusInDb(bookingId)).toBe('returned');
-    const run = await server.db('checklist_runs').where({ booking_id: bookingId, phase: 'return' }).orderBy('id', 'desc').first('within_limits');
+    const run = await suite.server.db('checklist_runs').where({ booking_id: bookingId, phase: 'return' }).orderBy('id', 'desc').first('within_limits');
     expect(Boolean(run.within_limits)).toBe(true);
   } catch (error) {
     // The screen as it was when a step failed, beside the other screenshots.

@@ -1,25 +1,16 @@
 // An officer keeps the checklists from the Lab rules screen: adds a reading line, then retires it.
 import { createPerson } from '../helpers/test-app';
-import { launchBrowser, newPage, PHONE, signInThroughUi, startE2eServer, type BrowserHandle, type E2eServer } from '../helpers/e2e';
+import { e2eSuite, newPage, PHONE, signInThroughUi } from '../helpers/e2e';
 
-let server: E2eServer;
-let browser: BrowserHandle;
-beforeAll(async () => {
-  server = await startE2eServer();
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const suite = e2eSuite();
 
 it('adds a reading line with limits and retires it again', async () => {
-  const officer = await createPerson(server.db, { role: 'officer' });
+  const officer = await createPerson(suite.server.db, { role: 'officer' });
   const text = `Ozone at the bench ${Date.now()}`;
-  const { context, page } = await newPage(browser.browser, PHONE);
+  const { context, page } = await newPage(suite.browser.browser, PHONE);
   try {
-    await signInThroughUi(page, server.baseUrl, officer.email, officer.password);
-    await page.goto(`${server.baseUrl}/lab-rules`, { waitUntil: 'load' });
+    await signInThroughUi(page, suite.server.baseUrl, officer.email, officer.password);
+    await page.goto(`${suite.server.baseUrl}/lab-rules`, { waitUntil: 'load' });
     const form = page.getByTestId('checklist-line-form');
     await form.waitFor({ timeout: 20_000 });
     await page.getByTestId('checklist-line-kind').getByText('Reading with limits').click();
@@ -31,13 +22,13 @@ it('adds a reading line with limits and retires it again', async () => {
     await page.getByTestId('checklist-line-max').fill('0.1');
     await page.getByTestId('checklist-line-submit').click();
     await page.getByTestId('checklist-line-added').waitFor({ timeout: 15_000 });
-    const row = await server.db('checklist_templates').where({ text, active: true }).first();
+    const row = await suite.server.db('checklist_templates').where({ text, active: true }).first();
     expect(row).toMatchObject({ kind: 'reading', unit: 'ppm', phase: 'pre' });
     expect(Number(row.max_value)).toBeCloseTo(0.1, 6);
 
     await page.getByTestId(`checklist-line-retire-${row.id}`).click();
     await page.getByTestId(`checklist-line-retire-${row.id}`).waitFor({ state: 'detached', timeout: 15_000 });
-    expect((await server.db('checklist_templates').where({ id: row.id }).first()).active).toBe(false);
+    expect((await suite.server.db('checklist_templates').where({ id: row.id }).first()).active).toBe(false);
   } finally {
     await context.close();
   }

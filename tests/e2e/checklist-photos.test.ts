@@ -1,7 +1,6 @@
 // A photo line at the counter, at phone size: an officer adds a required photo line to the
 // pre-energize checklist (for sets holding an "other" item, which no other suite books), and a
 // member answers it by taking a photo through the file input, then releases.
-import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { PNG } from 'pngjs';
 import type { Page } from 'playwright-core';
@@ -9,19 +8,9 @@ import { createBooking } from '../../server/services/bookings';
 import { KIND_LABELS } from '../../shared/schemas/items';
 import { insertItem, insertKit, plan, qualify, windowFromNow } from '../helpers/gear';
 import { createPerson } from '../helpers/test-app';
-import { launchBrowser, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, startE2eServer, WIDE, type BrowserHandle, type E2eServer } from '../helpers/e2e';
+import { e2eSuite, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, WIDE } from '../helpers/e2e';
 
-let server: E2eServer;
-let browser: BrowserHandle;
-beforeAll(async () => {
-  server = await startE2eServer();
-  browser = await launchBrowser();
-  mkdirSync(SCREENSHOT_DIR, { recursive: true });
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const suite = e2eSuite();
 
 function barrierPng(): Buffer {
   const png = new PNG({ width: 48, height: 36 });
@@ -30,10 +19,10 @@ function barrierPng(): Buffer {
 }
 
 async function addRequiredPhotoLine(officer: { email: string; password: string }, text: string): Promise<number> {
-  const { context, page } = await newPage(browser.browser, PHONE);
+  const { context, page } = await newPage(suite.browser.browser, PHONE);
   try {
-    await signInThroughUi(page, server.baseUrl, officer.email, officer.password);
-    await page.goto(`${server.baseUrl}/lab-rules`, { waitUntil: 'load' });
+    await signInThroughUi(page, suite.server.baseUrl, officer.email, officer.password);
+    await page.goto(`${suite.server.baseUrl}/lab-rules`, { waitUntil: 'load' });
     await page.getByTestId('checklist-line-form').waitFor({ timeout: 20_000 });
     await page.getByTestId('checklist-line-kind').getByText('Photo', { exact: true }).click();
     await page.getByTestId('checklist-line-text').fill(text);
@@ -43,7 +32,7 @@ async function addRequiredPhotoLine(officer: { email: string; password: string }
   } finally {
     await context.close();
   }
-  const row = await server.db('checklist_templates').where({ text, active: true }).first();
+  const row = await suite.server.db('checklist_templates').where({ text, active: true }).first();
   expect(row).toMatchObject({ kind: 'photo', phase: 'pre', applies_with_kind: 'other' });
   expect(Boolean(row.required)).toBe(true);
   return row.id as number;
@@ -70,26 +59,26 @@ async function attachPhoto(page: Page, lineTestId: string, name: string): Promis
 }
 
 it('completes an officer-added required photo line by attaching a PNG, then releases', async () => {
-  const officer = await createPerson(server.db, { role: 'officer' });
-  const member = await createPerson(server.db, { role: 'member', name: 'Ines Kestrel' });
-  await qualify(server.db, member.id, 20);
+  const officer = await createPerson(suite.server.db, { role: 'officer' });
+  const member = await createPerson(suite.server.db, { role: 'member', name: 'Ines Kestrel' });
+  await qualify(suite.server.db, member.id, 20);
   const text = `Photo of the barrier and ground hook ${Date.now()}`;
   const lineId = await addRequiredPhotoLine(officer, text);
   try {
-    const kit = await insertKit(server.db);
-    const rig = await insertItem(server.db, 'other', { ratings: { maxKv: 40 } });
+    const kit = await insertKit(suite.server.db);
+    const rig = await insertItem(suite.server.db, 'other', { ratings: { maxKv: 40 } });
     const booking = await createBooking(
-      server.db,
+      suite.server.db,
       { id: member.id, email: member.email, name: 'Ines Kestrel', role: 'member' },
       { itemIds: [...kit.all.map((i) => i.id), rig.id], ...windowFromNow(), location: 'Bay 4', purpose: 'Surface flashover on the stand', plan: plan(10) } as never,
-      { publicUrl: server.baseUrl },
+      { publicUrl: suite.server.baseUrl },
     );
     expect(booking.checklist.pre.some((e) => e.id === lineId && e.required && e.kind === 'photo')).toBe(true);
 
-    const { context, page } = await newPage(browser.browser, PHONE);
+    const { context, page } = await newPage(suite.browser.browser, PHONE);
     try {
-      await signInThroughUi(page, server.baseUrl, member.email, member.password);
-      await page.goto(`${server.baseUrl}/bookings/${booking.id}/release`, { waitUntil: 'load' });
+      await signInThroughUi(page, suite.server.baseUrl, member.email, member.password);
+      await page.goto(`${suite.server.baseUrl}/bookings/${booking.id}/release`, { waitUntil: 'load' });
       await page.getByTestId('release-screen').waitFor({ timeout: 20_000 });
       for (const item of booking.items) {
         await page.getByTestId('release-scanner-typed-input').fill(item.tag);
@@ -103,7 +92,7 @@ it('completes an officer-added required photo line by attaching a PNG, then rele
       await answerConfirmationsAndReadings(page);
       await page.getByTestId('release-checklist-submit').click();
       await page.getByTestId(line).getByText(`Attach the photo: ${text}`).waitFor({ timeout: 15_000 });
-      expect(await server.db('checklist_runs').where({ booking_id: booking.id })).toHaveLength(0);
+      expect(await suite.server.db('checklist_runs').where({ booking_id: booking.id })).toHaveLength(0);
 
       // Every photo line on this checklist gets one (a parallel suite may have added its own).
       const photoLines = await page.locator('[data-testid^="checklist-pre-"][data-testid$="-photo"]').evaluateAll((els: Element[]) => els.map((el) => el.getAttribute('data-testid')!.replace(/-photo$/, '')));
@@ -116,7 +105,7 @@ it('completes an officer-added required photo line by attaching a PNG, then rele
       await expect(page.getByTestId(`${line}-photo`).textContent()).resolves.toContain('Replace the photo');
       await attachPhoto(page, line, 'barrier-ground-hook.png');
       await expect(page.getByTestId(`${line}-file-name`).textContent()).resolves.toBe('barrier-ground-hook.png');
-      const lastPhoto = await server.db('item_files').where({ booking_id: booking.id, file_name: 'barrier-ground-hook.png' }).first('id');
+      const lastPhoto = await suite.server.db('item_files').where({ booking_id: booking.id, file_name: 'barrier-ground-hook.png' }).first('id');
 
       await page.getByTestId(line).scrollIntoViewIfNeeded();
       await page.waitForFunction((id) => {
@@ -132,18 +121,18 @@ it('completes an officer-added required photo line by attaching a PNG, then rele
 
       await page.getByTestId('release-checklist-submit').click();
       await page.getByTestId('release-checklist-done').waitFor({ timeout: 15_000 });
-      const run = await server.db('checklist_runs').where({ booking_id: booking.id, phase: 'pre' }).first('answers');
+      const run = await suite.server.db('checklist_runs').where({ booking_id: booking.id, phase: 'pre' }).first('answers');
       const answers = (typeof run.answers === 'string' ? JSON.parse(run.answers) : run.answers) as { id: number; fileId?: number }[];
       expect(answers.find((a) => a.id === lineId)?.fileId).toBe(lastPhoto.id);
 
       await page.getByTestId('release-submit').click();
       await page.getByTestId('release-done').waitFor({ timeout: 15_000 });
       await expect(page.getByTestId('release-done-caution').textContent()).resolves.toContain('licensed practice');
-      expect((await server.db('bookings').where({ id: booking.id }).first('status')).status).toBe('released');
+      expect((await suite.server.db('bookings').where({ id: booking.id }).first('status')).status).toBe('released');
     } finally {
       await context.close();
     }
   } finally {
-    await server.db('checklist_templates').where({ id: lineId }).update({ active: false });
+    await suite.server.db('checklist_templates').where({ id: lineId }).update({ active: false });
   }
 });

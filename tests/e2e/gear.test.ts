@@ -1,25 +1,14 @@
 // The gear registry in a browser: a manager registers a multiplier through the form, finds it,
 // records a failed inspection and sees it tagged out; the list filters by kind and rating; a
 // member reads gear but is offered none of the manager's actions.
-import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import type { Locator, Page } from 'playwright-core';
 import { PNG } from 'pngjs';
 import { insertItem, renameItem } from '../helpers/gear';
 import { createPerson, uniqueWord } from '../helpers/test-app';
-import { launchBrowser, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, startE2eServer, WIDE, type BrowserHandle, type E2eServer } from '../helpers/e2e';
+import { e2eSuite, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, WIDE } from '../helpers/e2e';
 
-let server: E2eServer;
-let browser: BrowserHandle;
-beforeAll(async () => {
-  server = await startE2eServer();
-  browser = await launchBrowser();
-  mkdirSync(SCREENSHOT_DIR, { recursive: true });
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const suite = e2eSuite();
 
 /** Only what is on screen: a stack keeps the screens under the top one mounted (hidden). */
 function shown(page: Page, testId: string): Locator {
@@ -50,11 +39,11 @@ async function search(page: Page, text: string): Promise<void> {
 }
 
 it('a manager registers a multiplier, finds it, fails its inspection and sees it tagged out', async () => {
-  const manager = await createPerson(server.db, { role: 'manager', name: 'Wren Adeyemi' });
+  const manager = await createPerson(suite.server.db, { role: 'manager', name: 'Wren Adeyemi' });
   const word = uniqueWord();
-  const { context, page } = await newPage(browser.browser, PHONE);
+  const { context, page } = await newPage(suite.browser.browser, PHONE);
   try {
-    await signInThroughUi(page, server.baseUrl, manager.email, manager.password);
+    await signInThroughUi(page, suite.server.baseUrl, manager.email, manager.password);
     await openGear(page);
     await shown(page, 'gear-register').click();
     await shown(page, 'item-form').waitFor({ timeout: 15_000 });
@@ -138,16 +127,16 @@ describe('the gear list filters', () => {
   let stick: { id: number };
   beforeAll(async () => {
     word = uniqueWord();
-    probe = await insertItem(server.db, 'probe', { ratings: { maxKv: 40, ratio: 1000, inputResistanceMohm: 1000 } });
-    supply = await insertItem(server.db, 'hv-supply');
-    stick = await insertItem(server.db, 'grounding-stick', { ratings: { ratedKv: 100, hookResistanceMohm: null, cableLengthM: 3 } });
+    probe = await insertItem(suite.server.db, 'probe', { ratings: { maxKv: 40, ratio: 1000, inputResistanceMohm: 1000 } });
+    supply = await insertItem(suite.server.db, 'hv-supply');
+    stick = await insertItem(suite.server.db, 'grounding-stick', { ratings: { ratedKv: 100, hookResistanceMohm: null, cableLengthM: 3 } });
     // One shared word in their names so a search narrows the list to these three.
     for (const [item, label] of [
       [probe, 'divider'],
       [supply, 'supply'],
       [stick, 'stick'],
     ] as const) {
-      await renameItem(server.db, item.id, `Filter ${word} ${label}`);
+      await renameItem(suite.server.db, item.id, `Filter ${word} ${label}`);
     }
   });
 
@@ -157,10 +146,10 @@ describe('the gear list filters', () => {
     ['phone', PHONE],
     ['wide', WIDE],
   ] as const)('by kind and minimum kV (%s)', async (name, viewport) => {
-    const member = await createPerson(server.db, { role: 'member' });
-    const { context, page } = await newPage(browser.browser, viewport);
+    const member = await createPerson(suite.server.db, { role: 'member' });
+    const { context, page } = await newPage(suite.browser.browser, viewport);
     try {
-      await signInThroughUi(page, server.baseUrl, member.email, member.password);
+      await signInThroughUi(page, suite.server.baseUrl, member.email, member.password);
       await openGear(page);
       await search(page, word);
       await shown(page, `gear-row-${stick.id}`).waitFor({ timeout: 15_000 });
@@ -197,16 +186,16 @@ describe('the gear list filters', () => {
 });
 
 it('a member reads an item but is offered no register, edit or inspection actions', async () => {
-  const member = await createPerson(server.db, { role: 'member' });
-  const item = await insertItem(server.db, 'hv-supply');
-  const { context, page } = await newPage(browser.browser, PHONE);
+  const member = await createPerson(suite.server.db, { role: 'member' });
+  const item = await insertItem(suite.server.db, 'hv-supply');
+  const { context, page } = await newPage(suite.browser.browser, PHONE);
   try {
-    await signInThroughUi(page, server.baseUrl, member.email, member.password);
+    await signInThroughUi(page, suite.server.baseUrl, member.email, member.password);
     await openGear(page);
     await rows(page).first().waitFor({ timeout: 15_000 });
     expect(await shown(page, 'gear-register').count()).toBe(0);
 
-    await page.goto(`${server.baseUrl}/gear/${item.id}`, { waitUntil: 'load' });
+    await page.goto(`${suite.server.baseUrl}/gear/${item.id}`, { waitUntil: 'load' });
     await shown(page, 'item-summary').waitFor({ timeout: 15_000 });
     await expect(shown(page, 'item-tag').textContent()).resolves.toBe(item.tag);
     await expect(shown(page, 'item-rating-maxKv').textContent()).resolves.toContain('30 kV');
@@ -215,7 +204,7 @@ it('a member reads an item but is offered no register, edit or inspection action
       expect(await shown(page, id).count()).toBe(0);
     }
     // The form's address does not let a member in either.
-    await page.goto(`${server.baseUrl}/gear/new`, { waitUntil: 'load' });
+    await page.goto(`${suite.server.baseUrl}/gear/new`, { waitUntil: 'load' });
     await shown(page, 'item-form-not-allowed').waitFor({ timeout: 15_000 });
     expect(await shown(page, 'item-form').count()).toBe(0);
   } finally {
@@ -225,12 +214,12 @@ it('a member reads an item but is offered no register, edit or inspection action
 
 describe('a manager on an item page', () => {
   it('tags it out with a reason, clears it, and adds a photo', async () => {
-    const manager = await createPerson(server.db, { role: 'manager' });
-    const item = await insertItem(server.db, 'isolation-stand');
-    const { context, page } = await newPage(browser.browser, PHONE);
+    const manager = await createPerson(suite.server.db, { role: 'manager' });
+    const item = await insertItem(suite.server.db, 'isolation-stand');
+    const { context, page } = await newPage(suite.browser.browser, PHONE);
     try {
-      await signInThroughUi(page, server.baseUrl, manager.email, manager.password);
-      await page.goto(`${server.baseUrl}/gear/${item.id}`, { waitUntil: 'load' });
+      await signInThroughUi(page, suite.server.baseUrl, manager.email, manager.password);
+      await page.goto(`${suite.server.baseUrl}/gear/${item.id}`, { waitUntil: 'load' });
       await shown(page, 'item-tag-out').click();
       // The reason is required by the shared schema.
       await shown(page, 'tag-out-submit').click();
@@ -239,14 +228,14 @@ describe('a manager on an item page', () => {
       await shown(page, 'tag-out-submit').click();
       await shown(page, 'item-tagged-out').waitFor({ timeout: 15_000 });
       await expect(shown(page, 'item-status-reason').textContent()).resolves.toContain('Surface tracking marks on the top plate');
-      expect(await server.db('items').where({ id: item.id }).first('status')).toEqual({ status: 'out-of-service' });
+      expect(await suite.server.db('items').where({ id: item.id }).first('status')).toEqual({ status: 'out-of-service' });
 
       // Lockout/tagout: the tag stays on until an inspection passes after the tag-out.
       await shown(page, 'item-clear').click();
       await shown(page, 'clear-submit').click();
       await expect(shown(page, 'clear-error').textContent({ timeout: 15_000 })).resolves.toMatch(/record a passing inspection/i);
-      expect(await server.db('items').where({ id: item.id }).first('status')).toEqual({ status: 'out-of-service' });
-      await page.goto(`${server.baseUrl}/gear/${item.id}`, { waitUntil: 'load' });
+      expect(await suite.server.db('items').where({ id: item.id }).first('status')).toEqual({ status: 'out-of-service' });
+      await page.goto(`${suite.server.baseUrl}/gear/${item.id}`, { waitUntil: 'load' });
       await shown(page, 'item-record-inspection').click();
       await shown(page, 'inspection-result-pass').click();
       await shown(page, 'inspection-notes').fill('Top plate cleaned and re-tested');
@@ -270,12 +259,12 @@ describe('a manager on an item page', () => {
   });
 
   it('edits its ratings through the same form, with the limits of the shared schema', async () => {
-    const manager = await createPerson(server.db, { role: 'manager' });
-    const item = await insertItem(server.db, 'hv-supply');
-    const { context, page } = await newPage(browser.browser, PHONE);
+    const manager = await createPerson(suite.server.db, { role: 'manager' });
+    const item = await insertItem(suite.server.db, 'hv-supply');
+    const { context, page } = await newPage(suite.browser.browser, PHONE);
     try {
-      await signInThroughUi(page, server.baseUrl, manager.email, manager.password);
-      await page.goto(`${server.baseUrl}/gear/${item.id}`, { waitUntil: 'load' });
+      await signInThroughUi(page, suite.server.baseUrl, manager.email, manager.password);
+      await page.goto(`${suite.server.baseUrl}/gear/${item.id}`, { waitUntil: 'load' });
       await shown(page, 'item-edit').click();
       await shown(page, 'item-form').waitFor({ timeout: 15_000 });
       await expect(shown(page, 'item-form-rating-maxKv').inputValue()).resolves.toBe('30');
@@ -287,22 +276,22 @@ describe('a manager on an item page', () => {
       await shown(page, 'item-form-submit').click();
       await expect(shown(page, 'item-rated-kv').textContent({ timeout: 15_000 })).resolves.toBe('45 kV');
       await expect(shown(page, 'item-location').textContent()).resolves.toBe('Kept at Kestrel Hall, cage 4');
-      expect(Number((await server.db('items').where({ id: item.id }).first('rated_kv')).rated_kv)).toBe(45);
+      expect(Number((await suite.server.db('items').where({ id: item.id }).first('rated_kv')).rated_kv)).toBe(45);
     } finally {
       await context.close();
     }
   });
 
   it('prints the labels picked on the labels screen as one sheet', async () => {
-    const manager = await createPerson(server.db, { role: 'manager' });
+    const manager = await createPerson(suite.server.db, { role: 'manager' });
     const word = uniqueWord();
-    const first = await insertItem(server.db, 'probe');
-    const second = await insertItem(server.db, 'interlock');
-    for (const item of [first, second]) await renameItem(server.db, item.id, `Label ${word} ${item.tag}`);
-    const { context, page } = await newPage(browser.browser, PHONE);
+    const first = await insertItem(suite.server.db, 'probe');
+    const second = await insertItem(suite.server.db, 'interlock');
+    for (const item of [first, second]) await renameItem(suite.server.db, item.id, `Label ${word} ${item.tag}`);
+    const { context, page } = await newPage(suite.browser.browser, PHONE);
     try {
-      await signInThroughUi(page, server.baseUrl, manager.email, manager.password);
-      await page.goto(`${server.baseUrl}/labels`, { waitUntil: 'load' });
+      await signInThroughUi(page, suite.server.baseUrl, manager.email, manager.password);
+      await page.goto(`${suite.server.baseUrl}/labels`, { waitUntil: 'load' });
       await shown(page, 'labels-search').fill(word);
       await shown(page, `labels-item-${second.id}`).click();
       await shown(page, `labels-item-${first.id}`).click();
@@ -311,7 +300,7 @@ describe('a manager on an item page', () => {
       await shown(page, 'labels-print').click();
       const sheet = await popup;
       // In the order picked, so the sheet prints as the manager chose.
-      expect(sheet.url()).toBe(`${server.baseUrl}/api/labels.pdf?items=${second.id},${first.id}`);
+      expect(sheet.url()).toBe(`${suite.server.baseUrl}/api/labels.pdf?items=${second.id},${first.id}`);
     } finally {
       await context.close();
     }

@@ -1,20 +1,9 @@
 // Each demo role signs in at a phone and a wide viewport and sees its own navigation.
-import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { createPerson } from '../helpers/test-app';
-import { launchBrowser, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, startE2eServer, WIDE, type BrowserHandle, type E2eServer } from '../helpers/e2e';
+import { e2eSuite, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, WIDE } from '../helpers/e2e';
 
-let server: E2eServer;
-let browser: BrowserHandle;
-beforeAll(async () => {
-  server = await startE2eServer();
-  browser = await launchBrowser();
-  mkdirSync(SCREENSHOT_DIR, { recursive: true });
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const suite = e2eSuite();
 
 const EXTRA: Record<string, { has: string[]; hasNot: string[] }> = {
   member: { has: [], hasNot: ['nav-people', 'nav-approvals', 'nav-lab-rules', 'nav-audit', 'nav-outbox'] },
@@ -24,10 +13,10 @@ const EXTRA: Record<string, { has: string[]; hasNot: string[] }> = {
 
 describe.each(['member', 'officer', 'manager'] as const)('a %s', (role) => {
   it('sees bottom tabs on a phone, with role entries on More only', async () => {
-    const person = await createPerson(server.db, { role, name: `E2E ${role}` });
-    const { context, page } = await newPage(browser.browser, PHONE);
+    const person = await createPerson(suite.server.db, { role, name: `E2E ${role}` });
+    const { context, page } = await newPage(suite.browser.browser, PHONE);
     try {
-      await signInThroughUi(page, server.baseUrl, person.email, person.password);
+      await signInThroughUi(page, suite.server.baseUrl, person.email, person.password);
       await page.getByTestId('tab-bar').waitFor();
       for (const tab of ['nav-today', 'nav-gear', 'nav-scan', 'nav-bookings', 'nav-more']) {
         await expect(page.getByTestId(tab).isVisible()).resolves.toBe(true);
@@ -44,10 +33,10 @@ describe.each(['member', 'officer', 'manager'] as const)('a %s', (role) => {
   });
 
   it('sees the side navigation on a wide screen', async () => {
-    const person = await createPerson(server.db, { role, name: `E2E ${role} wide` });
-    const { context, page } = await newPage(browser.browser, WIDE);
+    const person = await createPerson(suite.server.db, { role, name: `E2E ${role} wide` });
+    const { context, page } = await newPage(suite.browser.browser, WIDE);
     try {
-      await signInThroughUi(page, server.baseUrl, person.email, person.password);
+      await signInThroughUi(page, suite.server.baseUrl, person.email, person.password);
       await page.getByTestId('side-nav').waitFor();
       expect(await page.getByTestId('tab-bar').count()).toBe(0);
       for (const id of ['nav-today', 'nav-gear', 'nav-scan', 'nav-bookings', ...EXTRA[role]!.has]) {
@@ -62,11 +51,11 @@ describe.each(['member', 'officer', 'manager'] as const)('a %s', (role) => {
 });
 
 it('a member who opens a manager URL directly does not get the manager screen', async () => {
-  const person = await createPerson(server.db, { role: 'member' });
-  const { context, page } = await newPage(browser.browser, PHONE);
+  const person = await createPerson(suite.server.db, { role: 'member' });
+  const { context, page } = await newPage(suite.browser.browser, PHONE);
   try {
-    await signInThroughUi(page, server.baseUrl, person.email, person.password);
-    await page.goto(`${server.baseUrl}/people`, { waitUntil: 'load' });
+    await signInThroughUi(page, suite.server.baseUrl, person.email, person.password);
+    await page.goto(`${suite.server.baseUrl}/people`, { waitUntil: 'load' });
     await page.waitForTimeout(1500);
     expect(await page.getByTestId('people-screen').count()).toBe(0);
   } finally {
@@ -75,10 +64,10 @@ it('a member who opens a manager URL directly does not get the manager screen', 
 });
 
 it('a wrong password shows the same message as an unknown e-mail', async () => {
-  const person = await createPerson(server.db, { role: 'member' });
-  const { context, page } = await newPage(browser.browser, PHONE);
+  const person = await createPerson(suite.server.db, { role: 'member' });
+  const { context, page } = await newPage(suite.browser.browser, PHONE);
   try {
-    await page.goto(`${server.baseUrl}/`, { waitUntil: 'load' });
+    await page.goto(`${suite.server.baseUrl}/`, { waitUntil: 'load' });
     await page.getByTestId('sign-in-email').fill(person.email);
     await page.getByTestId('sign-in-password').fill('wrong password');
     await page.getByTestId('sign-in-submit').click();

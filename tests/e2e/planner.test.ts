@@ -1,30 +1,21 @@
 // The Planner at a phone's size: results appear as the member types, computed in the browser by
 // shared/hv. Expected values are the check values of the domain brief (/work/shared/domain.md §9).
-import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { SAFETY_CAUTION } from '../../shared/rules/assessment';
 import { createPerson } from '../helpers/test-app';
-import { launchBrowser, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, startE2eServer, WIDE, type BrowserHandle, type E2eServer } from '../helpers/e2e';
+import { e2eSuite, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, WIDE } from '../helpers/e2e';
 
-let server: E2eServer;
-let browser: BrowserHandle;
+const suite = e2eSuite();
 let member: { email: string; password: string };
 beforeAll(async () => {
-  server = await startE2eServer();
-  browser = await launchBrowser();
-  member = await createPerson(server.db, { role: 'member', name: 'Ines Planner' });
-  mkdirSync(SCREENSHOT_DIR, { recursive: true });
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
+  member = await createPerson(suite.server.db, { role: 'member', name: 'Ines Planner' });
 });
 
 async function openPlanner(viewport = PHONE, colorScheme: 'light' | 'dark' = 'light') {
-  const opened = await newPage(browser.browser, viewport, colorScheme);
-  await signInThroughUi(opened.page, server.baseUrl, member.email, member.password);
-  await opened.page.goto(`${server.baseUrl}/planner`, { waitUntil: 'load' });
+  const opened = await newPage(suite.browser.browser, viewport, colorScheme);
+  await signInThroughUi(opened.page, suite.server.baseUrl, member.email, member.password);
+  await opened.page.goto(`${suite.server.baseUrl}/planner`, { waitUntil: 'load' });
   await opened.page.getByTestId('planner-screen').waitFor();
   await opened.page.getByTestId('planner-tab-energy').waitFor({ timeout: 20_000 });
   return opened;
@@ -188,7 +179,7 @@ describe('the Planner on a phone', () => {
   it('copies the results as plain text for a lab notebook', async () => {
     const { context, page } = await openPlanner();
     try {
-      await context.grantPermissions(['clipboard-read', 'clipboard-write'], { origin: server.baseUrl });
+      await context.grantPermissions(['clipboard-read', 'clipboard-write'], { origin: suite.server.baseUrl });
       await page.getByTestId('planner-field-capacitance-unit-uF').click();
       await type(page, 'capacitance', '1');
       await type(page, 'voltage', '10');
@@ -208,13 +199,13 @@ describe('the Planner on a phone', () => {
   });
 
   it('loads the calculators only when the Planner is opened', async () => {
-    const { context, page } = await newPage(browser.browser, PHONE);
+    const { context, page } = await newPage(suite.browser.browser, PHONE);
     try {
       const scripts: string[] = [];
       page.on('request', (request) => {
         if (request.resourceType() === 'script') scripts.push(request.url());
       });
-      await signInThroughUi(page, server.baseUrl, member.email, member.password);
+      await signInThroughUi(page, suite.server.baseUrl, member.email, member.password);
       expect(scripts.some((url) => url.includes('planner-calculators'))).toBe(false);
       await page.getByTestId('nav-more').click();
       await page.getByTestId('nav-planner').click();

@@ -1,24 +1,15 @@
 // The safety officer records a member's authorised voltage and expiry on the Qualifications screen.
 import { createPerson } from '../helpers/test-app';
-import { launchBrowser, newPage, PHONE, signInThroughUi, startE2eServer, type BrowserHandle, type E2eServer } from '../helpers/e2e';
+import { e2eSuite, newPage, PHONE, signInThroughUi } from '../helpers/e2e';
 
-let server: E2eServer;
-let browser: BrowserHandle;
-beforeAll(async () => {
-  server = await startE2eServer();
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const suite = e2eSuite();
 
 it('records a qualification that the release rules then read', async () => {
-  const officer = await createPerson(server.db, { role: 'officer' });
-  const member = await createPerson(server.db, { role: 'member', name: `Qualify Me ${Date.now()}` });
-  const { context, page } = await newPage(browser.browser, PHONE);
+  const officer = await createPerson(suite.server.db, { role: 'officer' });
+  const member = await createPerson(suite.server.db, { role: 'member', name: `Qualify Me ${Date.now()}` });
+  const { context, page } = await newPage(suite.browser.browser, PHONE);
   try {
-    await signInThroughUi(page, server.baseUrl, officer.email, officer.password);
+    await signInThroughUi(page, suite.server.baseUrl, officer.email, officer.password);
     await page.getByTestId('nav-more').click();
     await page.getByTestId('nav-qualifications').first().click();
     await page.getByTestId('qualifications-screen').waitFor({ timeout: 20_000 });
@@ -28,11 +19,11 @@ it('records a qualification that the release rules then read', async () => {
     await page.getByTestId('qualification-save').click();
     // The shared schema wants an ISO date, said on the field; nothing is saved.
     await page.getByTestId('qualification-form').getByText(/date/i).first().waitFor({ timeout: 10_000 });
-    expect(await server.db('qualifications').where({ person_id: member.id }).first()).toBeUndefined();
+    expect(await suite.server.db('qualifications').where({ person_id: member.id }).first()).toBeUndefined();
     await page.getByTestId('qualification-expires').fill('2027-12-31');
     await page.getByTestId('qualification-save').click();
     await page.getByTestId('qualification-saved').waitFor({ timeout: 15_000 });
-    const row = await server.db('qualifications').where({ person_id: member.id }).first();
+    const row = await suite.server.db('qualifications').where({ person_id: member.id }).first();
     expect(Number(row.authorised_kv)).toBe(30);
     expect(row.expires_on).toBe('2027-12-31');
   } finally {

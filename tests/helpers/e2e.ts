@@ -1,5 +1,6 @@
 // Browser tests: the real server (exported web app + API) on a free loopback port against the test
 // database, driven by Debian's chromium through playwright-core. Never downloads a browser.
+import { mkdirSync } from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
 import type { Server } from 'node:http';
@@ -95,3 +96,27 @@ export async function signInThroughUi(page: Page, baseUrl: string, email: string
 }
 
 export const SCREENSHOT_DIR = path.resolve(__dirname, '../../test-results');
+
+export interface E2eSuite {
+  /** Set before the file's own beforeAll hooks run. */
+  readonly server: E2eServer;
+  readonly browser: BrowserHandle;
+}
+
+/**
+ * Starts a server and a browser for a test file and stops both after it. Call at the top of the
+ * file, before its own beforeAll hooks, which then find both ready.
+ */
+export function e2eSuite(): E2eSuite {
+  const suite = {} as { server: E2eServer; browser: BrowserHandle };
+  beforeAll(async () => {
+    suite.server = await startE2eServer();
+    suite.browser = await launchBrowser();
+    mkdirSync(SCREENSHOT_DIR, { recursive: true });
+  });
+  afterAll(async () => {
+    await suite.browser?.close();
+    await suite.server?.close();
+  });
+  return suite;
+}
