@@ -46,50 +46,30 @@ export async function seed(knex: Knex): Promise<void> {
   await setQualification(knex, officer, kofi.id, { authorisedKv: 60, expiresOn, notes: 'Corona work up to 60 kV.' });
   await setQualification(knex, manager, ansel.id, { authorisedKv: 20, expiresOn, notes: 'Teaching demonstrations only.' });
 
+  const book = async (who: SessionUser, models: string[], startsAt: Date, hours: number, details: Pick<BookingCreateInput, 'location' | 'purpose' | 'plan'>) =>
+    createBooking(knex, who, { itemIds: await itemIds(knex, models), startsAt: startsAt.toISOString(), endsAt: new Date(startsAt.getTime() + hours * HOUR).toISOString(), ...details }, MAIL);
+
   // Tomorrow: Noor's ionic-wind sweep, approved by the officer.
-  const tomorrow = hourFromNow(1, 9);
-  const sweep: BookingCreateInput = {
-    itemIds: await itemIds(knex, ['HI-30R', 'OW-GS100R', 'KS-PT150', 'KS-IL1', 'OW-RD100']),
-    startsAt: tomorrow.toISOString(),
-    endsAt: new Date(tomorrow.getTime() + 3 * HOUR).toISOString(),
+  const sweep = await book(noor, ['HI-30R', 'OW-GS100R', 'KS-PT150', 'KS-IL1', 'OW-RD100'], hourFromNow(1, 9), 3, {
     location: 'Kestrel Hall, bay 1',
     purpose: 'Ionic wind thrust sweep, wire-to-mesh gap 30 mm',
     plan: { plannedKv: 12, polarity: 'positive', maxCurrentMa: 0.5, peoplePresent: 2 },
-  };
-  const first = await createBooking(knex, noor, sweep, MAIL);
-  if (first.status === 'awaiting-approval') await decideApproval(knex, officer, first.id, { decision: 'approve', conditions: 'Barrier at the limited approach distance before energizing.' }, MAIL);
+  });
+  if (sweep.status === 'awaiting-approval') await decideApproval(knex, officer, sweep.id, { decision: 'approve', conditions: 'Barrier at the limited approach distance before energizing.' }, MAIL);
 
   // The day after: Kofi's corona onset run above the approval voltage, waiting in the queue.
-  const later = hourFromNow(2, 13);
-  await createBooking(
-    knex,
-    kofi,
-    {
-      itemIds: await itemIds(knex, ['HI-60N', 'OW-GS100S', 'KS-PT150', 'KS-IL1', 'OW-RD100']),
-      startsAt: later.toISOString(),
-      endsAt: new Date(later.getTime() + 2 * HOUR).toISOString(),
-      location: 'Kestrel Hall, bay 1',
-      purpose: 'Corona onset voltage, needle-to-plane, negative polarity',
-      plan: { plannedKv: 45, polarity: 'negative', maxCurrentMa: 0.2, peoplePresent: 2 },
-    },
-    MAIL,
-  );
+  await book(kofi, ['HI-60N', 'OW-GS100S', 'KS-PT150', 'KS-IL1', 'OW-RD100'], hourFromNow(2, 13), 2, {
+    location: 'Kestrel Hall, bay 1',
+    purpose: 'Corona onset voltage, needle-to-plane, negative polarity',
+    plan: { plannedKv: 45, polarity: 'negative', maxCurrentMa: 0.2, peoplePresent: 2 },
+  });
 
   // Now: Ansel's teaching demonstration, scanned, checked and released at the counter.
-  const now = new Date();
-  let demo = await createBooking(
-    knex,
-    ansel,
-    {
-      itemIds: await itemIds(knex, ['TE-FB20', 'BW-GS150', 'BW-PT120', 'TE-EN1', 'BW-P75']),
-      startsAt: now.toISOString(),
-      endsAt: new Date(now.getTime() + 3 * HOUR).toISOString(),
-      location: 'Teaching lab, bench 3',
-      purpose: 'Corona wind demonstration for first-year students',
-      plan: { plannedKv: 8, polarity: 'positive', maxCurrentMa: 0.5, peoplePresent: 3 },
-    },
-    MAIL,
-  );
+  let demo = await book(ansel, ['TE-FB20', 'BW-GS150', 'BW-PT120', 'TE-EN1', 'BW-P75'], new Date(), 3, {
+    location: 'Teaching lab, bench 3',
+    purpose: 'Corona wind demonstration for first-year students',
+    plan: { plannedKv: 8, polarity: 'positive', maxCurrentMa: 0.5, peoplePresent: 3 },
+  });
   if (demo.status === 'awaiting-approval') demo = await decideApproval(knex, officer, demo.id, { decision: 'approve', conditions: 'Students stay behind the enclosure.' }, MAIL);
   for (const item of demo.items) demo = await recordScan(knex, ansel, demo.id, item.tag);
   // A required photo line (if an officer has added one) cannot be answered by a seed: the demo
