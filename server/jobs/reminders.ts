@@ -8,8 +8,8 @@ import { getLabRules } from '../services/lab-rules';
 
 async function bookingFacts(db: Db, ids: number[]): Promise<Map<number, BookingFacts & { personEmail: string; endsAtDate: Date }>> {
   if (ids.length === 0) return new Map();
-  const rows = await db('bookings as b').join('people as p', 'p.id', 'b.person_id').whereIn('b.id', ids).select('b.id', 'b.ends_at', 'b.planned_kv', 'b.purpose', 'p.name', 'p.email');
-  const tags = await db('booking_items as bi').join('items as i', 'i.id', 'bi.item_id').whereIn('bi.booking_id', ids).orderBy('i.tag').select('bi.booking_id', 'i.tag');
+  // The tags come from the booking row's own copy (bookings.item_tags), as in the bookings list.
+  const rows = await db('bookings as b').join('people as p', 'p.id', 'b.person_id').whereIn('b.id', ids).select('b.id', 'b.ends_at', 'b.planned_kv', 'b.purpose', 'b.item_tags', 'p.name', 'p.email');
   return new Map(
     rows.map((r) => [
       r.id,
@@ -21,7 +21,7 @@ async function bookingFacts(db: Db, ids: number[]): Promise<Map<number, BookingF
         purpose: r.purpose,
         endsAt: timestampToIso(r.ends_at)!,
         endsAtDate: new Date(r.ends_at),
-        itemTags: tags.filter((t) => t.booking_id === r.id).map((t) => t.tag),
+        itemTags: JSON.parse(r.item_tags) as string[],
       },
     ]),
   );

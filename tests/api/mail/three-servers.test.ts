@@ -2,6 +2,7 @@
 // the fake SMTP server must receive each overdue message exactly once.
 import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
+import { bookingItemTags } from '../../../server/services/bookings';
 import { startFakeSmtp, type FakeSmtp } from '../../../server/mail/fake-smtp';
 import { MAIL_TEST_DATABASE } from '../../../scripts/lib/test-database';
 import { insertKit } from '../../helpers/gear';
@@ -74,6 +75,7 @@ it('sends one overdue reminder to the member and one per officer, with three sch
     people_present: 2,
     assessment: '{}',
     approval_required: false,
+    item_tags: bookingItemTags(kit.all),
   });
   await ctx.db('booking_items').insert(kit.all.map((i) => ({ booking_id: bookingId, item_id: i.id, starts_at: new Date(endsAt.getTime() - 3600_000), ends_at: endsAt, live: true })));
 
@@ -88,6 +90,8 @@ it('sends one overdue reminder to the member and one per officer, with three sch
   await new Promise((r) => setTimeout(r, 4000));
   const received = smtp.list().filter(about);
   expect(received.filter((m) => m.to.includes(member.email))).toHaveLength(1);
+  // The reminder names the gear still out, in tag order.
+  expect(received.find((m) => m.to.includes(member.email))!.text).toContain(kit.all.map((i) => i.tag).sort().join(', '));
   const officers = await ctx.db('people').where({ role: 'officer', active: true }).pluck('email');
   for (const email of officers) expect(received.filter((m) => m.to.includes(email))).toHaveLength(1);
   expect(received).toHaveLength(1 + officers.length);
