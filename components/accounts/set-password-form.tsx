@@ -6,7 +6,7 @@ import { z } from 'zod';
 import { spacing } from '@/components/theme/tokens';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
-import { FormTextField, PASSWORD_INPUT } from '@/components/ui/form-fields';
+import { FormTextField, NEW_PASSWORD_INPUT } from '@/components/ui/form-fields';
 import { setPasswordSchema } from '@/shared/schemas/accounts';
 
 import { showServerErrors } from './server-field-errors';
@@ -53,9 +53,7 @@ export function SetPasswordForm({ testIdPrefix, submitLabel, submittingLabel, on
         label="New password"
         hint="At least 10 characters. A few unrelated words are easy to remember and hard to guess."
         testID={`${testIdPrefix}-password`}
-        {...PASSWORD_INPUT}
-        autoComplete="new-password"
-        textContentType="newPassword"
+        {...NEW_PASSWORD_INPUT}
         returnKeyType="next"
       />
       <FormTextField
@@ -63,9 +61,7 @@ export function SetPasswordForm({ testIdPrefix, submitLabel, submittingLabel, on
         name="confirm"
         label="Same password again"
         testID={`${testIdPrefix}-confirm`}
-        {...PASSWORD_INPUT}
-        autoComplete="new-password"
-        textContentType="newPassword"
+        {...NEW_PASSWORD_INPUT}
         returnKeyType="go"
         onSubmitEditing={() => void submit()}
       />

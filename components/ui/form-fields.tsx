@@ -48,3 +48,6 @@ export const EMAIL_INPUT = { inputMode: 'email', keyboardType: 'email-address', 
 
 /** How a password is typed: hidden, no capitals or autocorrect. */
 export const PASSWORD_INPUT = { secureTextEntry: true, autoCapitalize: 'none', autoCorrect: false } as const;
+
+/** How a new password is chosen: as a password, and offered to the browser's password manager. */
+export const NEW_PASSWORD_INPUT = { ...PASSWORD_INPUT, autoComplete: 'new-password', textContentType: 'newPassword' } as const;
