@@ -23,6 +23,7 @@ import { labelsRouter } from './routes/labels';
 import { createObjectStore, type ObjectStore } from './storage/object-store';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { requestLog } from './middleware/request-log';
+import { noStore } from './middleware/no-store';
 import { serverTiming } from './middleware/server-timing';
 import { healthRouter } from './routes/health';
 import { groupsRouter, peopleRouter, qualificationsRouter } from './routes/people';
@@ -48,6 +49,9 @@ export function createApp({ db, config, logger, objectStore, mailbox, mountBefor
   const app = express();
   const store = objectStore ?? createObjectStore(config);
   app.disable('x-powered-by');
+  // API answers are never cached (no-store below), so an ETag would only cost a SHA-1 of every
+  // body. The web app's own files get theirs from the static file server, which ignores this.
+  app.set('etag', false);
   if (config.trustProxy) app.set('trust proxy', 1);
 
   app.use(
@@ -72,7 +76,7 @@ export function createApp({ db, config, logger, objectStore, mailbox, mountBefor
       crossOriginEmbedderPolicy: false,
     }),
   );
-  app.use('/api', requestLog(logger), serverTiming);
+  app.use('/api', requestLog(logger), serverTiming, noStore);
   app.use('/api/health', healthRouter(db));
 
   const passport = createPassport(db);

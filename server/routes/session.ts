@@ -43,7 +43,7 @@ export function sessionRouter(db: Db, passport: PassportStatic, config: Config):
 
   router.get('/', (req, res) => {
     const body: SessionResponse = { user: req.user ?? null, csrfToken: csrf.generateToken(req) };
-    res.set('Cache-Control', 'no-store').json(body);
+    res.json(body);
   });
 
   router.post('/', signInLimiter, async (req, res) => {

@@ -124,6 +124,17 @@ describe('the Content-Security-Policy', () => {
   });
 });
 
+describe('caching', () => {
+  it('forbids any copy of an API answer and sends no ETag to revalidate one', async () => {
+    const member = await signedInAs(ctx, 'member');
+    for (const path of ['/api/session', '/api/items', '/api/bookings?mine=1', '/api/no-such-route']) {
+      const res = await member.agent.get(path);
+      expect(res.headers['cache-control']).toBe('no-store');
+      expect(res.headers.etag).toBeUndefined();
+    }
+  });
+});
+
 describe('stored uploads', () => {
   let world: World;
   let officer: Awaited<ReturnType<World['caller']>>;
@@ -153,6 +164,8 @@ describe('stored uploads', () => {
     const csp = parseCsp(res.headers['content-security-policy']);
     expect(csp['default-src']).toEqual(["'none'"]);
     expect(csp.sandbox).toBeDefined();
+    // A file never changes under its id: the browser may keep it, for this person only.
+    expect(res.headers['cache-control']).toBe('private, max-age=3600');
   });
 
   it('keep a hostile stored name from breaking out of the Content-Disposition header', async () => {
