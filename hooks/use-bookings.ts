@@ -10,6 +10,7 @@ import type {
   BookingStatus,
   BookingSummary,
   BookingUpdateInput,
+  ChecklistRunRecord,
   ChecklistRunState,
   ChecklistSubmitInput,
 } from '@/shared/schemas/bookings';
@@ -18,7 +19,7 @@ import { apiRequest, isApiError } from './api-client';
 import { auditKeys } from './use-audit';
 import { bookingGearKeys } from './use-booking-gear';
 
-export type { Booking, BookingApproval, BookingSummary, ChecklistRunState };
+export type { Booking, BookingApproval, BookingSummary, ChecklistRunRecord, ChecklistRunState };
 
 export type BookingListStatus = BookingStatus | 'overdue' | 'live';
 
@@ -35,6 +36,7 @@ export const bookingKeys = {
   pages: (filters: BookingFilters) => [...bookingKeys.lists(), 'pages', filters] as const,
   details: () => [...bookingKeys.all, 'detail'] as const,
   detail: (id: number) => [...bookingKeys.details(), id] as const,
+  checklistRuns: (id: number) => [...bookingKeys.all, 'checklist-runs', id] as const,
 };
 
 interface BookingPage {
@@ -78,13 +80,23 @@ export function useBookingQuery(id: number) {
   });
 }
 
-/** After any write: the answer is the new detail; lists, availability and the trail follow. */
+/** The booking's completed checklists as answered, newest first (its page shows them). */
+export function useChecklistRunsQuery(id: number) {
+  return useQuery({
+    queryKey: bookingKeys.checklistRuns(id),
+    queryFn: ({ signal }) => apiRequest<{ runs: ChecklistRunRecord[] }>(`/api/bookings/${id}/checklist-runs`, { signal }),
+    select: (data) => data.runs,
+  });
+}
+
+/** After any write: the answer is the new detail; lists, runs, availability and the trail follow. */
 function useBookingWritten() {
   const queryClient = useQueryClient();
   return async (booking: Booking) => {
     queryClient.setQueryData(bookingKeys.detail(booking.id), { booking });
     await Promise.all([
       queryClient.invalidateQueries({ queryKey: bookingKeys.lists() }),
+      queryClient.invalidateQueries({ queryKey: bookingKeys.checklistRuns(booking.id) }),
       queryClient.invalidateQueries({ queryKey: bookingGearKeys.availabilities() }),
       queryClient.invalidateQueries({ queryKey: auditKeys.all }),
     ]);

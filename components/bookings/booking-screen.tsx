@@ -3,7 +3,6 @@ import { StyleSheet, View } from 'react-native';
 import { AssessmentPanel } from '@/components/assessment/assessment-panel';
 import { formatDateTime } from '@/components/common/format';
 import { spacing } from '@/components/theme/tokens';
-import { AppText } from '@/components/ui/app-text';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Screen } from '@/components/ui/screen';
@@ -15,6 +14,7 @@ import { BookingApproval } from './booking-approval';
 import { BookingFacts, BookingItems } from './booking-facts';
 import { BookingNextStep } from './booking-next-step';
 import { BookingStatusBadge } from './booking-status';
+import { ChecklistRecord } from './checklist-record';
 
 /** One booking: its state and next step first, then plan, approval, gear and the stored assessment. */
 export function BookingScreen({ id }: { id: number }) {
@@ -42,7 +42,7 @@ function BookingBody({ booking, wide }: { booking: Booking; wide: boolean }) {
       <BookingApproval booking={booking} />
       <BookingFacts booking={booking} />
       <BookingItems booking={booking} />
-      <ChecklistRuns booking={booking} />
+      <ChecklistRecord bookingId={booking.id} />
     </View>
   );
   const assessment = (
@@ -65,24 +65,8 @@ function BookingBody({ booking, wide }: { booking: Booking; wide: boolean }) {
   );
 }
 
-function ChecklistRuns({ booking }: { booking: Booking }) {
-  const { pre, return: ret } = booking.checklistRuns;
-  if (!pre && !ret) return null;
-  return (
-    <View style={styles.runs} testID="booking-checklist-runs">
-      {pre ? (
-        <AppText variant="small">{`Pre-energize checklist: ${formatDateTime(pre.completedAt)}, ${pre.withinLimits ? 'readings within limits' : 'a reading outside its limits'}`}</AppText>
-      ) : null}
-      {ret ? (
-        <AppText variant="small">{`Make-safe checklist: ${formatDateTime(ret.completedAt)}, ${ret.withinLimits ? 'readings within limits' : 'a reading outside its limits'}`}</AppText>
-      ) : null}
-    </View>
-  );
-}
-
 const styles = StyleSheet.create({
   column: { gap: spacing.lg },
   wide: { flexDirection: 'row', gap: spacing.lg, alignItems: 'flex-start' },
   wideColumn: { flex: 1, gap: spacing.lg },
-  runs: { gap: spacing.xxs },
 });

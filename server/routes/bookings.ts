@@ -31,6 +31,7 @@ import {
   updateBooking,
 } from '../services/bookings';
 import { storeBookingPhoto } from '../services/booking-photos';
+import { listChecklistRuns } from '../services/checklist-records';
 import type { ObjectStore } from '../storage/object-store';
 
 export function assessmentsRouter(db: Db): Router {
@@ -87,6 +88,9 @@ export function bookingsRouter(db: Db, config: Config, store: ObjectStore): Rout
     await readUpload(req);
     validate(photoFieldsSchema, req.body ?? {}, 'upload');
     res.status(201).json({ file: await storeBookingPhoto(db, store, currentUser(req), bookingId, receivedFile(req)) });
+  });
+  router.get('/:id/checklist-runs', async (req, res) => {
+    res.json({ runs: await listChecklistRuns(db, currentUser(req), id(req)) });
   });
   router.post('/:id/checklist', async (req, res) => {
     const bookingId = id(req);

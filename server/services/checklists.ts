@@ -1,6 +1,6 @@
 // Checklist templates and the answers to them. A template line applies to a booking when its
 // conditions hold (planned kV at or above a value, an item of a kind in the set).
-import type { ChecklistEntry, ChecklistSubmitInput, ChecklistTemplate, LabRules } from '../../shared/schemas/bookings';
+import type { ChecklistAnswerRecord, ChecklistEntry, ChecklistSubmitInput, ChecklistTemplate, LabRules } from '../../shared/schemas/bookings';
 import { checklistTemplateItemSchema, type ChecklistTemplateItemInput } from '../../shared/schemas/bookings';
 import type { SessionUser } from '../../shared/schemas/session';
 import type { Db, Trx } from '../db';
@@ -53,7 +53,7 @@ export function applicableEntries(templates: readonly TemplateRow[], phase: 'pre
 export interface EvaluatedRun {
   complete: boolean;
   withinLimits: boolean;
-  snapshot: { id: number; text: string; kind: string; unit?: string; min?: number; max?: number; confirmed?: boolean; value?: number; fileId?: number; withinLimits: boolean }[];
+  snapshot: ChecklistAnswerRecord[];
 }
 
 /**

@@ -183,6 +183,34 @@ export interface ChecklistEntry {
 // ---------------------------------------------------------------------------------------------
 // Response shapes (the server builds them, the app reads them).
 
+/** One line of a completed checklist as it was answered: text and limits as they were then. */
+export interface ChecklistAnswerRecord {
+  id: number;
+  kind: ChecklistEntry['kind'];
+  text: string;
+  unit?: string;
+  min?: number;
+  max?: number;
+  confirmed?: boolean;
+  value?: number;
+  /** A photo taken for the booking at the counter (GET /api/files/:id). */
+  fileId?: number;
+  withinLimits: boolean;
+}
+
+/** A completed checklist of a booking (GET /api/bookings/:id/checklist-runs), newest first. */
+export interface ChecklistRunRecord {
+  id: number;
+  phase: 'pre' | 'return';
+  planVersion: number;
+  /** False when the plan changed afterwards: the release needs a new run for the new plan. */
+  current: boolean;
+  withinLimits: boolean;
+  completedAt: string;
+  completedByName: string;
+  answers: ChecklistAnswerRecord[];
+}
+
 export interface BookingApproval {
   decision: 'approve' | 'refuse';
   officerName: string;

@@ -129,6 +129,30 @@ it('completes an officer-added required photo line by attaching a PNG, then rele
       await page.getByTestId('release-done').waitFor({ timeout: 15_000 });
       await expect(page.getByTestId('release-done-caution').textContent()).resolves.toContain('licensed practice');
       expect((await suite.server.db('bookings').where({ id: booking.id }).first('status')).status).toBe('released');
+
+      // The booking's page keeps the checklist as answered: who, the photo itself, the readings.
+      const runId = (await suite.server.db('checklist_runs').where({ booking_id: booking.id, phase: 'pre' }).first('id')).id as number;
+      await page.goto(`${suite.server.baseUrl}/bookings/${booking.id}`, { waitUntil: 'load' });
+      const record = page.getByTestId(`checklist-run-${runId}`);
+      await record.waitFor({ timeout: 20_000 });
+      await expect(record.textContent()).resolves.toContain('Ines Kestrel');
+      await expect(page.getByTestId(`checklist-run-${runId}-line-${lineId}-answer`).textContent()).resolves.toBe('Photo taken');
+      const photoLink = page.getByTestId(`checklist-run-${runId}-line-${lineId}-photo`);
+      await expect(photoLink.getAttribute('href')).resolves.toBe(`/api/files/${lastPhoto.id}`);
+      // The wide layout lays the page out anew (two columns), so the photo is found again there.
+      const photoShown = async () => {
+        await page.waitForFunction((id) => {
+          const img = document.querySelector(`[data-testid="${id}"] img`) as HTMLImageElement | null;
+          return img !== null && img.complete && img.naturalWidth > 0;
+        }, `checklist-run-${runId}-line-${lineId}-photo`);
+        await photoLink.scrollIntoViewIfNeeded();
+      };
+      await photoShown();
+      await page.getByTestId('booking-checklist-runs').evaluate((el) => el.scrollIntoView({ block: 'start' }));
+      await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'checklist-record-phone.png') });
+      await page.setViewportSize(WIDE);
+      await photoShown();
+      await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'checklist-record-wide.png') });
     } finally {
       await context.close();
     }

@@ -439,6 +439,7 @@ export const ROUTES: Record<string, RouteFixture> = {
       return { params: { id: booking.id }, body: { phase: 'pre', answers: answersFor(booking.checklist.pre) }, status: 200 };
     },
   },
+  'GET /api/bookings/:id/checklist-runs': { access: 'signed-in', build: async (world, caller) => ({ params: { id: (await world.booking(caller)).id }, status: 200 }) },
   'POST /api/bookings/:id/release': { access: 'signed-in', build: async (world, caller) => ({ params: { id: (await world.readyBooking(caller)).id }, status: 200 }) },
   'POST /api/bookings/:id/return': { access: 'signed-in', build: async (world, caller) => ({ params: { id: (await world.returnableBooking(caller)).id }, body: {}, status: 200 }) },
 

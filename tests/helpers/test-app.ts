@@ -47,14 +47,15 @@ export function uniqueEmail(prefix = 'person'): string {
 
 export async function createPerson(db: Db, fields: { role?: Role; name?: string; email?: string; active?: boolean } = {}) {
   const email = fields.email ?? uniqueEmail(fields.role ?? 'member');
+  const name = fields.name ?? `Test ${fields.role ?? 'member'} ${counter}`;
   const [id] = await db('people').insert({
     email,
-    name: fields.name ?? `Test ${fields.role ?? 'member'} ${counter}`,
+    name,
     role: fields.role ?? 'member',
     password_hash: TEST_HASH,
     active: fields.active ?? true,
   });
-  return { id: Number(id), email, password: TEST_PASSWORD, role: fields.role ?? 'member' };
+  return { id: Number(id), email, name, password: TEST_PASSWORD, role: fields.role ?? 'member' };
 }
 
 export type Agent = ReturnType<typeof request.agent>;

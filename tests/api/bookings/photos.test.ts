@@ -197,6 +197,59 @@ describe('a required photo line in the checklist', () => {
   });
 });
 
+describe('GET /api/bookings/:id/checklist-runs', () => {
+  type Run = { id: number; phase: string; planVersion: number; current: boolean; withinLimits: boolean; completedAt: string; completedByName: string; answers: { id: number; kind: string; text: string; confirmed?: boolean; value?: number; fileId?: number; withinLimits: boolean }[] };
+
+  it('shows every run as answered, newest first, with its photo, readings, who and when', async () => {
+    const booking = await newBooking();
+    const photo = (await upload(member, booking.id, 'barrier.png', pngBytes())).body.file.id as number;
+    expect((await member.agent.get(`/api/bookings/${booking.id}/checklist-runs`)).body).toEqual({ runs: [] });
+
+    const before = Date.now();
+    expect((await post(member, `/api/bookings/${booking.id}/checklist`, { phase: 'pre', answers: answers(booking.checklist.pre, photo) })).status).toBe(200);
+    // Answered again by the officer at the counter: a second run, not an edit of the first.
+    expect((await post(officer, `/api/bookings/${booking.id}/checklist`, { phase: 'pre', answers: answers(booking.checklist.pre, photo) })).status).toBe(200);
+
+    const res = await member.agent.get(`/api/bookings/${booking.id}/checklist-runs`);
+    expect(res.status).toBe(200);
+    const runs = res.body.runs as Run[];
+    expect(runs.map((r) => [r.phase, r.completedByName, r.current, r.planVersion])).toEqual([
+      ['pre', officer.person.name, true, 1],
+      ['pre', member.person.name, true, 1],
+    ]);
+    expect(runs[0]!.id).toBeGreaterThan(runs[1]!.id);
+    expect(Date.parse(runs[1]!.completedAt)).toBeGreaterThanOrEqual(before - 1000);
+    const lines = runs[1]!.answers;
+    expect(lines.map((l) => l.id)).toEqual(booking.checklist.pre.map((e) => e.id));
+    expect(lines.find((l) => l.id === photoLineId)).toMatchObject({ kind: 'photo', fileId: photo, withinLimits: true });
+    for (const entry of booking.checklist.pre.filter((e) => e.required && e.kind === 'reading')) {
+      const line = lines.find((l) => l.id === entry.id)!;
+      expect(line.value).toBe(((entry.min ?? 0) + (entry.max ?? (entry.min ?? 0) + 10)) / 2);
+      expect(line.withinLimits).toBe(true);
+    }
+    // The photo the record names is the booking's, served to whoever sees the record.
+    expect((await officer.agent.get(`/api/files/${photo}`)).status).toBe(200);
+  });
+
+  it('marks runs of an earlier plan as no longer current', async () => {
+    const booking = await newBooking();
+    const photo = (await upload(member, booking.id, 'barrier.png', pngBytes())).body.file.id as number;
+    expect((await post(member, `/api/bookings/${booking.id}/checklist`, { phase: 'pre', answers: answers(booking.checklist.pre, photo) })).status).toBe(200);
+    const changed = await member.agent.patch(`/api/bookings/${booking.id}`).set('x-csrf-token', member.csrf()).send({ plan: plan(12) });
+    expect(changed.status).toBe(200);
+    const runs = (await member.agent.get(`/api/bookings/${booking.id}/checklist-runs`)).body.runs as Run[];
+    expect(runs.map((r) => [r.planVersion, r.current])).toEqual([[1, false]]);
+  });
+
+  it('answers 404 to another member and for a booking that does not exist, 400 for a bad id', async () => {
+    const booking = await newBooking();
+    const other = await signedInAs(ctx, 'member');
+    expect((await other.agent.get(`/api/bookings/${booking.id}/checklist-runs`)).status).toBe(404);
+    expect((await member.agent.get('/api/bookings/99999999/checklist-runs')).status).toBe(404);
+    expect((await member.agent.get('/api/bookings/abc/checklist-runs')).status).toBe(400);
+  });
+});
+
 describe('nothing is half-stored', () => {
   /** The real bucket, with a hook that runs while the object is being stored. */
   function storeWith(duringPut: () => Promise<void>): ObjectStore & { keys: string[] } {
