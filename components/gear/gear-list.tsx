@@ -1,12 +1,10 @@
-import { Link } from 'expo-router';
-import { Pressable, StyleSheet, View } from 'react-native';
+import { StyleSheet, View } from 'react-native';
 
 import { formatKv } from '@/components/items/rating-fields';
-import { borders, layout, spacing } from '@/components/theme/tokens';
-import { useTheme } from '@/components/theme/use-theme';
+import { spacing } from '@/components/theme/tokens';
 import { AppText } from '@/components/ui/app-text';
 import { Card } from '@/components/ui/card';
-import { Icon } from '@/components/ui/icon';
+import { LinkRow } from '@/components/ui/link-row';
 import { KIND_LABELS, type ItemSummary } from '@/shared/schemas/items';
 
 import { INSPECTION_LOOKS, InspectionBadge, STATUS_LOOKS, StatusBadge } from './item-badges';
@@ -27,48 +25,27 @@ export function itemAccessibleName(item: ItemSummary): string {
 }
 
 function GearRow({ item, divided }: { item: ItemSummary; divided: boolean }) {
-  const { colors } = useTheme();
   return (
-    <Link href={{ pathname: '/gear/[id]', params: { id: String(item.id) } }} asChild>
-      <Pressable
-        testID={`gear-row-${item.id}`}
-        accessibilityRole="link"
-        accessibilityLabel={itemAccessibleName(item)}
-        // Link's asChild Slot takes one flat style object (see components/ui/list-row.tsx).
-        style={StyleSheet.flatten([styles.row, divided && { borderTopWidth: borders.hairline, borderTopColor: colors.border }])}
-      >
-        <View style={styles.body}>
-          <View style={styles.topLine}>
-            <AppText variant="smallStrong" tone="muted" style={styles.tag}>
-              {item.tag}
-            </AppText>
-            <AppText variant="bodyStrong">{formatKv(item.ratedKv)}</AppText>
-          </View>
-          <AppText variant="bodyStrong">{item.name}</AppText>
-          <AppText variant="small" tone="muted">
-            {`${KIND_LABELS[item.kind]} · ${item.location}`}
-          </AppText>
-          <View style={styles.badges}>
-            <StatusBadge status={item.status} />
-            <InspectionBadge state={item.inspectionState} />
-          </View>
-        </View>
-        <Icon name="chevron-right" color={colors.textMuted} />
-      </Pressable>
-    </Link>
+    <LinkRow href={{ pathname: '/gear/[id]', params: { id: String(item.id) } }} testID={`gear-row-${item.id}`} accessibilityLabel={itemAccessibleName(item)} divided={divided}>
+      <View style={styles.topLine}>
+        <AppText variant="smallStrong" tone="muted" style={styles.tag}>
+          {item.tag}
+        </AppText>
+        <AppText variant="bodyStrong">{formatKv(item.ratedKv)}</AppText>
+      </View>
+      <AppText variant="bodyStrong">{item.name}</AppText>
+      <AppText variant="small" tone="muted">
+        {`${KIND_LABELS[item.kind]} · ${item.location}`}
+      </AppText>
+      <View style={styles.badges}>
+        <StatusBadge status={item.status} />
+        <InspectionBadge state={item.inspectionState} />
+      </View>
+    </LinkRow>
   );
 }
 
 const styles = StyleSheet.create({
-  row: {
-    flexDirection: 'row',
-    alignItems: 'center',
-    gap: spacing.sm,
-    minHeight: layout.listRowMinHeight,
-    paddingHorizontal: spacing.md,
-    paddingVertical: spacing.sm,
-  },
-  body: { flex: 1, gap: spacing.xxs },
   topLine: { flexDirection: 'row', justifyContent: 'space-between', alignItems: 'baseline', gap: spacing.sm },
   tag: { letterSpacing: 0.5 },
   badges: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.xs, paddingTop: spacing.xxs },

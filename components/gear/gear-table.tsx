@@ -1,13 +1,12 @@
 import { Link } from 'expo-router';
-import type { ReactNode } from 'react';
-import { StyleSheet, View } from 'react-native';
+import { StyleSheet } from 'react-native';
 
 import { formatDay } from '@/components/items/format-dates';
 import { formatKv } from '@/components/items/rating-fields';
-import { borders, layout, spacing } from '@/components/theme/tokens';
-import { useTheme } from '@/components/theme/use-theme';
+import { layout, spacing } from '@/components/theme/tokens';
 import { AppText } from '@/components/ui/app-text';
 import { Card } from '@/components/ui/card';
+import { Table, TableCell, TableRow } from '@/components/ui/table';
 import { KIND_LABELS, type ItemSummary } from '@/shared/schemas/items';
 
 import { itemAccessibleName } from './gear-list';
@@ -22,22 +21,13 @@ const columns = [
 
 /** Wide layout: the same rows as a table; the tag and name cell is the link to the item. */
 export function GearTable({ items }: { items: ItemSummary[] }) {
-  const { colors } = useTheme();
+  const [itemColumn, ratedColumn, statusColumn, inspectionColumn] = columns;
   return (
     <Card flush testID="gear-table">
-      <View role="table" accessibilityLabel="Gear">
-        <View role="row" style={[styles.row, { backgroundColor: colors.surfaceMuted }]}>
-          {columns.map((column) => (
-            <View key={column.key} role="columnheader" style={[styles.cell, { flex: column.flex }]}>
-              <AppText variant="smallStrong" tone="muted">
-                {column.label}
-              </AppText>
-            </View>
-          ))}
-        </View>
+      <Table label="Gear" columns={columns}>
         {items.map((item) => (
-          <View key={item.id} role="row" testID={`gear-row-${item.id}`} style={[styles.row, { borderTopColor: colors.border, borderTopWidth: borders.hairline }]}>
-            <Cell flex={columns[0].flex}>
+          <TableRow key={item.id} testID={`gear-row-${item.id}`}>
+            <TableCell column={itemColumn}>
               <Link
                 href={{ pathname: '/gear/[id]', params: { id: String(item.id) } }}
                 accessibilityLabel={itemAccessibleName(item)}
@@ -53,36 +43,26 @@ export function GearTable({ items }: { items: ItemSummary[] }) {
               <AppText variant="small" tone="muted">
                 {`${KIND_LABELS[item.kind]} · ${item.location}`}
               </AppText>
-            </Cell>
-            <Cell flex={columns[1].flex}>
+            </TableCell>
+            <TableCell column={ratedColumn}>
               <AppText variant="bodyStrong">{formatKv(item.ratedKv)}</AppText>
-            </Cell>
-            <Cell flex={columns[2].flex}>
+            </TableCell>
+            <TableCell column={statusColumn}>
               <StatusBadge status={item.status} />
-            </Cell>
-            <Cell flex={columns[3].flex}>
+            </TableCell>
+            <TableCell column={inspectionColumn}>
               <InspectionBadge state={item.inspectionState} />
               <AppText variant="small" tone="muted">
                 {item.nextInspectionDue ? `Next due ${formatDay(item.nextInspectionDue)}` : 'No inspection on record'}
               </AppText>
-            </Cell>
-          </View>
+            </TableCell>
+          </TableRow>
         ))}
-      </View>
+      </Table>
     </Card>
   );
 }
 
-function Cell({ flex, children }: { flex: number; children: ReactNode }) {
-  return (
-    <View role="cell" style={[styles.cell, { flex }]}>
-      {children}
-    </View>
-  );
-}
-
 const styles = StyleSheet.create({
-  row: { flexDirection: 'row', alignItems: 'center', paddingHorizontal: spacing.xs },
-  cell: { paddingHorizontal: spacing.xs, paddingVertical: spacing.sm, minWidth: 0, gap: spacing.xxs },
   link: { minHeight: layout.minTouchTarget, paddingVertical: spacing.xxs },
 });

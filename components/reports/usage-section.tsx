@@ -1,12 +1,11 @@
-import { StyleSheet, View } from 'react-native';
+import { StyleSheet } from 'react-native';
 
-import { borders, spacing } from '@/components/theme/tokens';
-import { useTheme } from '@/components/theme/use-theme';
 import { AppText } from '@/components/ui/app-text';
 import { Card } from '@/components/ui/card';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
+import { Table, TableCell, TableRow } from '@/components/ui/table';
 import { reportUrls, useUsageReportQuery, type GroupUsage, type ReportPeriod } from '@/hooks/use-reports';
 
 import { DownloadLink } from './download-link';
@@ -52,42 +51,29 @@ const columns = [
 ] as const;
 
 function UsageTable({ groups, stale }: { groups: GroupUsage[]; stale: boolean }) {
-  const { colors } = useTheme();
-  const cell = (flex: number, numeric: boolean) => [styles.cell, { flex }, numeric && styles.numeric];
+  const [groupColumn, bookingsColumn, hoursColumn, peopleColumn] = columns;
   return (
-    <View role="table" accessibilityLabel="Use per group" testID="reports-usage-table" style={stale && styles.stale}>
-      <View role="row" style={[styles.row, { backgroundColor: colors.surfaceMuted }]}>
-        {columns.map((c) => (
-          <View key={c.key} role="columnheader" style={cell(c.flex, c.numeric)}>
-            <AppText variant="smallStrong" tone="muted">
-              {c.label}
-            </AppText>
-          </View>
-        ))}
-      </View>
+    <Table label="Use per group" columns={columns} testID="reports-usage-table" style={stale && styles.stale}>
       {groups.map((g) => (
-        <View key={g.groupName} role="row" style={[styles.row, { borderTopColor: colors.border, borderTopWidth: borders.hairline }]}>
-          <View role="cell" style={cell(columns[0].flex, false)}>
+        <TableRow key={g.groupName}>
+          <TableCell column={groupColumn}>
             <AppText variant="bodyStrong">{g.groupName}</AppText>
-          </View>
-          <View role="cell" style={cell(columns[1].flex, true)}>
+          </TableCell>
+          <TableCell column={bookingsColumn}>
             <AppText>{String(g.bookings)}</AppText>
-          </View>
-          <View role="cell" style={cell(columns[2].flex, true)}>
+          </TableCell>
+          <TableCell column={hoursColumn}>
             <AppText>{formatHours(g.hours)}</AppText>
-          </View>
-          <View role="cell" style={cell(columns[3].flex, true)}>
+          </TableCell>
+          <TableCell column={peopleColumn}>
             <AppText>{String(g.people)}</AppText>
-          </View>
-        </View>
+          </TableCell>
+        </TableRow>
       ))}
-    </View>
+    </Table>
   );
 }
 
 const styles = StyleSheet.create({
-  row: { flexDirection: 'row', alignItems: 'center' },
-  cell: { paddingHorizontal: spacing.xs, paddingVertical: spacing.sm, minWidth: 0 },
-  numeric: { alignItems: 'flex-end' },
   stale: { opacity: 0.6 },
 });

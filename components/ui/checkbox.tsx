@@ -4,6 +4,7 @@ import { borders, iconSizes, layout, radii, spacing } from '@/components/theme/t
 import { useTheme } from '@/components/theme/use-theme';
 
 import { AppText } from './app-text';
+import { FieldError } from './field-error';
 import { Icon } from './icon';
 
 interface CheckboxProps {
@@ -60,13 +61,8 @@ export function Checkbox({ label, checked, onChange, detail, error, disabled = f
           ) : null}
         </View>
       </Pressable>
-      {invalid ? (
-        <View style={styles.errorRow}>
-          <Icon name="alert-circle" size={iconSizes.sm} color={colors.errorText} />
-          <AppText variant="smallStrong" tone="error" testID={testID ? `${testID}-error` : undefined}>
-            {error}
-          </AppText>
-        </View>
+      {error ? (
+        <FieldError message={error} testID={testID ? `${testID}-error` : undefined} />
       ) : null}
     </View>
   );
@@ -85,7 +81,6 @@ const styles = StyleSheet.create({
     borderRadius: radii.md,
   },
   text: { flex: 1, gap: spacing.xxs },
-  errorRow: { flexDirection: 'row', alignItems: 'center', gap: spacing.xxs },
   pressed: { opacity: 0.8 },
   disabled: { opacity: 0.5 },
 });

@@ -4,6 +4,7 @@ import { borders, iconSizes, layout, radii, spacing } from '@/components/theme/t
 import { useTheme } from '@/components/theme/use-theme';
 
 import { AppText } from './app-text';
+import { FieldError } from './field-error';
 import { Icon, type IconName } from './icon';
 
 export interface Choice<T extends string> {
@@ -65,13 +66,8 @@ export function ChoiceChips<T extends string>({ label, hideLabel = false, choice
           );
         })}
       </View>
-      {invalid ? (
-        <View style={styles.errorRow}>
-          <Icon name="alert-circle" size={iconSizes.sm} color={colors.errorText} />
-          <AppText variant="smallStrong" tone="error" testID={testID ? `${testID}-error` : undefined}>
-            {error}
-          </AppText>
-        </View>
+      {error ? (
+        <FieldError message={error} testID={testID ? `${testID}-error` : undefined} />
       ) : null}
     </View>
   );
@@ -89,6 +85,5 @@ const styles = StyleSheet.create({
     borderWidth: borders.control,
     borderRadius: radii.pill,
   },
-  errorRow: { flexDirection: 'row', alignItems: 'center', gap: spacing.xxs },
   pressed: { opacity: 0.8 },
 });

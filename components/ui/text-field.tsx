@@ -1,11 +1,11 @@
 import { useId, useState, type Ref } from 'react';
 import { StyleSheet, TextInput, View, type TextInputProps } from 'react-native';
 
-import { borders, fontFamilies, iconSizes, layout, radii, spacing, typeScale } from '@/components/theme/tokens';
+import { borders, fontFamilies, layout, radii, spacing, typeScale } from '@/components/theme/tokens';
 import { useTheme } from '@/components/theme/use-theme';
 
 import { AppText } from './app-text';
-import { Icon } from './icon';
+import { FieldError } from './field-error';
 import { webA11y } from './web-a11y';
 
 interface TextFieldProps
@@ -60,19 +60,8 @@ export function TextField({ label, error, hint, disabled = false, testID, ref, o
           disabled && styles.disabled,
         ]}
       />
-      {invalid ? (
-        <View style={styles.errorRow}>
-          <Icon name="alert-circle" size={iconSizes.sm} color={colors.errorText} />
-          <AppText
-            variant="smallStrong"
-            tone="error"
-            nativeID={messageId}
-            accessibilityLiveRegion="polite"
-            testID={testID ? `${testID}-error` : undefined}
-          >
-            {error}
-          </AppText>
-        </View>
+      {error ? (
+        <FieldError message={error} nativeID={messageId} testID={testID ? `${testID}-error` : undefined} />
       ) : hint ? (
         <AppText variant="small" tone="muted" nativeID={messageId}>
           {hint}
@@ -93,6 +82,5 @@ const styles = StyleSheet.create({
     fontFamily: fontFamilies.regular,
     fontSize: typeScale.body.fontSize,
   },
-  errorRow: { flexDirection: 'row', alignItems: 'center', gap: spacing.xxs },
   disabled: { opacity: 0.6 },
 });

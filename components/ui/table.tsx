@@ -1,0 +1,72 @@
+import type { ReactNode } from 'react';
+import { StyleSheet, View, type StyleProp, type ViewStyle } from 'react-native';
+
+import { borders, spacing } from '@/components/theme/tokens';
+import { useTheme } from '@/components/theme/use-theme';
+
+import { AppText } from './app-text';
+
+export interface TableColumn {
+  key: string;
+  label: string;
+  /** Share of the row's width. */
+  flex: number;
+  /** Counts and amounts sit right-aligned, so their digits line up. */
+  numeric?: boolean;
+}
+
+interface TableProps {
+  /** What the table holds, for screen readers ("Gear", "People"). */
+  label: string;
+  columns: readonly TableColumn[];
+  testID?: string;
+  style?: StyleProp<ViewStyle>;
+  /** TableRow elements. */
+  children: ReactNode;
+}
+
+/** A wide-screen table with real table roles on the web: a header row, then the caller's rows. */
+export function Table({ label, columns, testID, style, children }: TableProps) {
+  const { colors } = useTheme();
+  return (
+    <View role="table" accessibilityLabel={label} testID={testID} style={style}>
+      <View role="row" style={[styles.row, { backgroundColor: colors.surfaceMuted }]}>
+        {columns.map((column) => (
+          <View key={column.key} role="columnheader" style={cellStyle(column)}>
+            <AppText variant="smallStrong" tone="muted">
+              {column.label}
+            </AppText>
+          </View>
+        ))}
+      </View>
+      {children}
+    </View>
+  );
+}
+
+/** One row under the header, divided from the one above. */
+export function TableRow({ testID, children }: { testID?: string; children: ReactNode }) {
+  const { colors } = useTheme();
+  return (
+    <View role="row" testID={testID} style={[styles.row, { borderTopColor: colors.border, borderTopWidth: borders.hairline }]}>
+      {children}
+    </View>
+  );
+}
+
+/** A cell sized and aligned by its column. */
+export function TableCell({ column, children }: { column: TableColumn; children: ReactNode }) {
+  return (
+    <View role="cell" style={cellStyle(column)}>
+      {children}
+    </View>
+  );
+}
+
+const cellStyle = (column: TableColumn) => [styles.cell, { flex: column.flex }, column.numeric === true && styles.numeric];
+
+const styles = StyleSheet.create({
+  row: { flexDirection: 'row', alignItems: 'center', paddingHorizontal: spacing.xs },
+  cell: { paddingHorizontal: spacing.xs, paddingVertical: spacing.sm, minWidth: 0, gap: spacing.xxs },
+  numeric: { alignItems: 'flex-end' },
+});
