@@ -7,6 +7,8 @@ import { TERM_MAX_LENGTH, TERM_SOURCE_COLUMNS, writeItemTerms, type TermSource }
 // that also holds kind, tag and rated_kv, filters without touching items and sorts few rows.
 
 const BATCH = 2000;
+/** item_terms' columns as this migration leaves them (20261202001400 adds name and due date). */
+const COLUMNS_THEN = ['term', 'item_id', 'kind', 'tag', 'rated_kv'] as const;
 
 export async function up(knex: Knex): Promise<void> {
   // The copied tag must sort and compare exactly like items.tag (keyset cursors compare it).
@@ -38,7 +40,7 @@ export async function up(knex: Knex): Promise<void> {
       .limit(BATCH)
       .select(...TERM_SOURCE_COLUMNS)) as TermSource[];
     if (items.length === 0) break;
-    await writeItemTerms(knex, items);
+    await writeItemTerms(knex, items, COLUMNS_THEN);
     after = items[items.length - 1]!.id;
   }
   await knex.raw('ANALYZE TABLE item_terms');

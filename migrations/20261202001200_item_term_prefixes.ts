@@ -12,10 +12,12 @@ import { TERM_MAX_LENGTH, TERM_SOURCE_COLUMNS, writeItemTerms, type TermSource }
 // item's rows by it.
 
 const BATCH = 2000;
+/** item_terms' columns as this migration leaves them (20261202001400 adds name and due date). */
+const COLUMNS_THEN = ['term', 'item_id', 'kind', 'tag', 'rated_kv'] as const;
 const INSERT_CHUNK = 2000;
 
 export async function up(knex: Knex): Promise<void> {
-  await rewriteAll(knex, (items) => writeItemTerms(knex, items));
+  await rewriteAll(knex, (items) => writeItemTerms(knex, items, COLUMNS_THEN));
 }
 
 export async function down(knex: Knex): Promise<void> {

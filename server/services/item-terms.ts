@@ -17,7 +17,11 @@
 //
 // The kind, tag and rated_kv of the item are copied into each row, so the common search
 // (a word, a kind, "rated at or above N kV", in tag order) is answered from one index alone.
-// Status is not copied (too many places change it); searches join items for it.
+// Name and next inspection due date are copied too (migration 20261202001400), so a word search
+// in name, due-date or rating order walks an index (term, key, item_id) and stops after a page
+// instead of sorting every match: a one-letter word matches a third of the gear. Recording an
+// inspection moves the due date, so it updates the copies (`updateTermsDueDate`). Status is not
+// copied (too many places change it); searches join items for it.
 //
 // Changing how words are folded, split, cut or expanded needs a new migration that rewrites
 // every item's rows (see migrations/20261202001200_item_term_prefixes.ts).
@@ -31,13 +35,15 @@ export const TERM_MAX_LENGTH = 32;
 export const MAX_SEARCH_WORDS = 8;
 
 /** The item fields whose words are searchable, and the copied filter and sort columns. */
-export const TERM_SOURCE_COLUMNS = ['id', 'kind', 'tag', 'rated_kv', 'name', 'make', 'model', 'serial', 'location'] as const;
+export const TERM_SOURCE_COLUMNS = ['id', 'kind', 'tag', 'rated_kv', 'next_inspection_due', 'name', 'make', 'model', 'serial', 'location'] as const;
 
 export interface TermSource {
   id: number;
   kind: ItemKind;
   tag: string;
   rated_kv: number | string | null;
+  /** A DATE: 'YYYY-MM-DD' text as the app reads it, or a Date as some inserts hold it. */
+  next_inspection_due: string | Date | null;
   name: string;
   make: string;
   model: string;
@@ -87,22 +93,27 @@ export function searchWords(q: string): string[] {
 }
 
 export function termRowsOf(item: TermSource) {
-  return termsOf(item).map((term) => ({ term, item_id: item.id, kind: item.kind, tag: item.tag, rated_kv: item.rated_kv }));
+  return termsOf(item).map((term) => ({ term, item_id: item.id, kind: item.kind, tag: item.tag, rated_kv: item.rated_kv, name: item.name, next_inspection_due: item.next_inspection_due }));
 }
+
+/** The columns item_terms has at the latest migration; earlier migrations name their own. */
+const TERM_ROW_COLUMNS = ['term', 'item_id', 'kind', 'tag', 'rated_kv', 'name', 'next_inspection_due'] as const;
+export type TermRowColumn = (typeof TERM_ROW_COLUMNS)[number];
 
 /**
  * Rows inserted per statement when many items are written at once. Counted in rows, not items,
  * so prefix rows (about four times as many per item) do not grow a statement: a row is at most
- * ~330 bytes of SQL (a 32-character term and a 32-character tag at 4 bytes each, kind, number,
- * id), so 2000 rows stay under 1 MB, far below MariaDB's default max_allowed_packet of 16 MB.
+ * ~830 bytes of SQL (a 32-character term, a 32-character tag and a 120-character name at 4 bytes
+ * each, kind, number, date, id), so 2000 rows stay under 2 MB, far below MariaDB's default
+ * max_allowed_packet of 16 MB.
  */
 const INSERT_CHUNK = 2000;
 
 /**
  * Replaces the term rows of the given items. Runs in the caller's transaction (or connection),
- * so an item and its terms never disagree.
+ * so an item and its terms never disagree. A migration passes the columns the table had then.
  */
-export async function writeItemTerms(trx: Knex | Knex.Transaction, items: TermSource | readonly TermSource[]): Promise<void> {
+export async function writeItemTerms(trx: Knex | Knex.Transaction, items: TermSource | readonly TermSource[], columns: readonly TermRowColumn[] = TERM_ROW_COLUMNS): Promise<void> {
   const list = Array.isArray(items) ? (items as readonly TermSource[]) : [items as TermSource];
   if (list.length === 0) return;
   await trx('item_terms')
@@ -111,8 +122,13 @@ export async function writeItemTerms(trx: Knex | Knex.Transaction, items: TermSo
       list.map((i) => i.id),
     )
     .delete();
-  const rows = list.flatMap(termRowsOf);
+  const rows = list.flatMap(termRowsOf).map((row) => Object.fromEntries(columns.map((c) => [c, row[c]])));
   for (let start = 0; start < rows.length; start += INSERT_CHUNK) {
     await trx('item_terms').insert(rows.slice(start, start + INSERT_CHUNK));
   }
+}
+
+/** Keeps the copied due date in step when an inspection moves it (the words stay the same). */
+export async function updateTermsDueDate(trx: Knex.Transaction, itemId: number, nextDue: string | null): Promise<void> {
+  await trx('item_terms').where({ item_id: itemId }).update({ next_inspection_due: nextDue });
 }

@@ -1,7 +1,7 @@
 // Test gear written straight into the database (the registry API has its own tests).
 import type { Db } from '../../server/db';
 import { addDaysIso, todayIso } from '../../server/services/dates';
-import { writeItemTerms } from '../../server/services/item-terms';
+import { TERM_SOURCE_COLUMNS, writeItemTerms } from '../../server/services/item-terms';
 import { ratedKvOf, type ItemKind, type ItemRatings } from '../../shared/schemas/items';
 import { itemBody, uniqueWord } from './test-app';
 
@@ -40,7 +40,7 @@ export async function insertItem(
 /** Renames test gear in place and rewrites its search words, as an edit through the API would. */
 export async function renameItem(db: Db, id: number, name: string): Promise<void> {
   await db('items').where({ id }).update({ name });
-  await writeItemTerms(db, await db('items').where({ id }).first('id', 'kind', 'tag', 'rated_kv', 'name', 'make', 'model', 'serial', 'location'));
+  await writeItemTerms(db, await db('items').where({ id }).first(...TERM_SOURCE_COLUMNS));
 }
 
 /** A complete 30 kV kit: supply with bleeder, grounding stick, stand, interlock and probe. */

@@ -61,6 +61,21 @@ describe('POST /api/items/:id/inspections', () => {
     expect(res.body.item.nextInspectionDue).toBe(addDaysIso(todayIso(), 100));
   });
 
+  it('moves the item in a word search sorted by due date, and in the due filters', async () => {
+    const word = uniqueWord();
+    const [a, b, c] = [await newItem({ name: `${word} stick A`, inspectionIntervalDays: 30 }), await newItem({ name: `${word} stick B`, inspectionIntervalDays: 30 }), await newItem({ name: `${word} stick C`, inspectionIntervalDays: 30 })];
+    // Inspected 40, 10 and 25 days ago on a 30-day interval: A is overdue, C due soon, B current.
+    for (const [item, daysAgo] of [[a, 40], [b, 10], [c, 25]] as const) expect((await inspect(officer, item.id, { result: 'pass', inspectedOn: addDaysIso(todayIso(), -daysAgo) })).status).toBe(201);
+    const search = async (query: string) => ((await manager.agent.get(`/api/items?q=${word}&${query}`).expect(200)).body.items as { id: number }[]).map((i) => i.id);
+    expect(await search('sort=nextDue')).toEqual([a.id, c.id, b.id]);
+    expect(await search('due=overdue')).toEqual([a.id]);
+    expect(await search('due=soon&sort=nextDue')).toEqual([a.id, c.id]);
+    // A new inspection of A moves it last.
+    expect((await inspect(officer, a.id, { result: 'pass' })).status).toBe(201);
+    expect(await search('sort=nextDue')).toEqual([c.id, b.id, a.id]);
+    expect(await search('due=overdue')).toEqual([]);
+  });
+
   it('refuses a failure without notes, a future date, and members', async () => {
     const item = await newItem();
     expect((await inspect(manager, item.id, { result: 'fail' })).status).toBe(400);
