@@ -1,8 +1,9 @@
 // `npm run bench`: the product at scale on its own database, driven over loopback by autocannon
 // from this process, while the server runs in a process of its own (scripts/bench-server.ts).
 // Every figure is also given as a ratio to a reference route (one primary-key SELECT through the
-// same knex pool, no session) measured just before it, because the machine is shared and absolute
-// numbers swing between and within runs. Results: stdout table + bench/results/<time>.json.
+// same knex pool, no session) measured just before and just after it, because the machine is
+// shared and absolute numbers swing between and within runs. Results: stdout table +
+// bench/results/<time>.json.
 import autocannon from 'autocannon';
 import { fork, type ChildProcess } from 'node:child_process';
 import { mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
@@ -35,8 +36,10 @@ interface Row {
   serverMsMedian?: number;
   /** Server process CPU time per request, microseconds. */
   serverCpuUs?: number;
-  /** The reference's req/s measured just before this route; the ratio's denominator. */
+  /** The mean of the reference's req/s measured just before and just after this route: the ratio's denominator. */
   referenceReqPerSec?: number;
+  /** Those two reference runs, before and after, to show how far the machine drifted meanwhile. */
+  referenceAround?: [number, number];
 }
 
 function mainBundle(): { file: string; rawBytes: number; gzipBytes: number } | null {
@@ -187,17 +190,26 @@ async function main(): Promise<void> {
   await db('booking_items').whereIn('item_id', kitRows.map((r) => r.id)).update({ live: false });
 
   const rows: Row[] = [];
-  // Each route is paired with a run of the reference just before it: the shared machine drifts
-  // by half or more within one bench run, so only neighbouring measurements compare.
+  // Each route runs between two runs of the reference, one just before and one just after, and
+  // its ratio is to their mean: the shared machine drifts by half or more within one bench run,
+  // so only neighbouring measurements compare, and two neighbours average out a drift.
   const referenceUrl = `${base}/api/bench/reference`;
   const referenceNow = async () => (await run({ url: referenceUrl, duration: REFERENCE_S })).requests.average;
+  const around = async <T>(measureRoute: () => Promise<T>): Promise<{ result: T; referenceReqPerSec: number; referenceAround: [number, number] }> => {
+    const before = await referenceNow();
+    const result = await measureRoute();
+    const after = await referenceNow();
+    return { result, referenceReqPerSec: (before + after) / 2, referenceAround: [before, after] };
+  };
   const measure = async (key: string, route: string, opts: autocannon.Options, serverUrl?: string) => {
     if (ONLY && key !== 'reference' && !ONLY.includes(key)) return;
-    const referenceReqPerSec = key === 'reference' ? undefined : await referenceNow();
-    const cpuBefore = await serverCpuMicros(child);
-    const result = await run(opts);
-    const cpuPerRequest = (await serverCpuMicros(child)) - cpuBefore;
-    const row: Row = { route, reqPerSec: result.requests.average, p50Ms: result.latency.p50, p99Ms: result.latency.p99, ratio: 0, statuses: statusCounts(result), serverCpuUs: cpuPerRequest / Math.max(1, (result.requests as unknown as { total: number }).total), referenceReqPerSec };
+    const timed = async () => {
+      const cpuBefore = await serverCpuMicros(child);
+      const result = await run(opts);
+      return { result, cpuPerRequest: ((await serverCpuMicros(child)) - cpuBefore) / Math.max(1, (result.requests as unknown as { total: number }).total) };
+    };
+    const { result: { result, cpuPerRequest }, referenceReqPerSec, referenceAround } = key === 'reference' ? { result: await timed(), referenceReqPerSec: undefined, referenceAround: undefined } : await around(timed);
+    const row: Row = { route, reqPerSec: result.requests.average, p50Ms: result.latency.p50, p99Ms: result.latency.p99, ratio: 0, statuses: statusCounts(result), serverCpuUs: cpuPerRequest, referenceReqPerSec, referenceAround };
     if (serverUrl) row.serverMsMedian = await serverTime(base, serverUrl, headers);
     rows.push(row);
     console.log(`[bench] ${route}: ${row.reqPerSec.toFixed(0)} req/s, p50 ${row.p50Ms} ms, p99 ${row.p99Ms} ms, server CPU ${row.serverCpuUs?.toFixed(0)} µs/request`);
@@ -228,11 +240,12 @@ async function main(): Promise<void> {
     body: JSON.stringify({ itemIds: kitIds[lastKit - 1], startsAt: contention.toISOString(), endsAt: new Date(contention.getTime() + 3600_000).toISOString(), location: 'Bench bay', purpose: 'Contention', plan: { plannedKv: 10, polarity: 'negative', maxCurrentMa: 1, peoplePresent: 2 } }),
   });
   if (!ONLY || ONLY.includes('release')) {
-    const referenceReqPerSec = await referenceNow();
-    const cpuBefore = await serverCpuMicros(child);
-    const loop = await releaseLoop(base, member, kits, kitIds);
-    const serverCpuUs = ((await serverCpuMicros(child)) - cpuBefore) / Math.max(1, loop.requestsPerSec * DURATION_S);
-    rows.push({ route: 'release loop, each request (book, 5 scans, checklists, release, return)', reqPerSec: loop.requestsPerSec, p50Ms: Math.round(loop.requestP50), p99Ms: Math.round(loop.requestP99), ratio: 0, statuses: loop.statuses, serverCpuUs, referenceReqPerSec });
+    const { result: { loop, serverCpuUs }, referenceReqPerSec, referenceAround } = await around(async () => {
+      const cpuBefore = await serverCpuMicros(child);
+      const loop = await releaseLoop(base, member, kits, kitIds);
+      return { loop, serverCpuUs: ((await serverCpuMicros(child)) - cpuBefore) / Math.max(1, loop.requestsPerSec * DURATION_S) };
+    });
+    rows.push({ route: 'release loop, each request (book, 5 scans, checklists, release, return)', reqPerSec: loop.requestsPerSec, p50Ms: Math.round(loop.requestP50), p99Ms: Math.round(loop.requestP99), ratio: 0, statuses: loop.statuses, serverCpuUs, referenceReqPerSec, referenceAround });
     rows.push({ route: 'release loop, whole loop (book to release)', reqPerSec: loop.loopsPerSec, p50Ms: Math.round(loop.p50), p99Ms: Math.round(loop.p99), ratio: 0, statuses: {} });
   }
 
@@ -247,9 +260,9 @@ async function main(): Promise<void> {
   const bundle = mainBundle();
 
   const table = [
-    '| route | req/s | reference req/s just before | ratio to reference | p50 ms | p99 ms | server ms (median) | server CPU µs/request | statuses |',
+    '| route | req/s | reference req/s before / after | ratio to reference (mean of the two) | p50 ms | p99 ms | server ms (median) | server CPU µs/request | statuses |',
     '| --- | --- | --- | --- | --- | --- | --- | --- | --- |',
-    ...rows.map((r) => `| ${r.route} | ${r.reqPerSec.toFixed(r.reqPerSec < 10 ? 2 : 0)} | ${r.referenceReqPerSec?.toFixed(0) ?? ''} | ${Number.isNaN(r.ratio) ? '' : r.ratio.toFixed(2)} | ${r.p50Ms} | ${r.p99Ms} | ${r.serverMsMedian?.toFixed(1) ?? ''} | ${r.serverCpuUs?.toFixed(0) ?? ''} | ${Object.entries(r.statuses).filter(([, v]) => v).map(([k, v]) => `${k}:${v}`).join(' ')} |`),
+    ...rows.map((r) => `| ${r.route} | ${r.reqPerSec.toFixed(r.reqPerSec < 10 ? 2 : 0)} | ${r.referenceAround?.map((v) => v.toFixed(0)).join(' / ') ?? ''} | ${Number.isNaN(r.ratio) ? '' : r.ratio.toFixed(2)} | ${r.p50Ms} | ${r.p99Ms} | ${r.serverMsMedian?.toFixed(1) ?? ''} | ${r.serverCpuUs?.toFixed(0) ?? ''} | ${Object.entries(r.statuses).filter(([, v]) => v).map(([k, v]) => `${k}:${v}`).join(' ')} |`),
   ].join('\n');
   const machine = `${os.cpus().length} × ${os.cpus()[0]?.model ?? 'cpu'}, ${(os.totalmem() / 2 ** 30).toFixed(0)} GiB, Node ${process.version}, ${DURATION_S} s per route, ${CONNECTIONS} connections`;
   console.log(`\n${machine}\n\n${table}\n`);
