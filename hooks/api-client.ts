@@ -31,6 +31,14 @@ interface RequestOptions {
   /** JSON, or a FormData for file uploads (the browser sets the multipart boundary). */
   body?: unknown;
   signal?: AbortSignal;
+  /** Told the share of the body sent so far (0 to 1) while an upload goes out. */
+  onUploadProgress?: (fraction: number) => void;
+}
+
+/** What came back: the status and the parsed JSON body (undefined when there was none). */
+interface Answer {
+  status: number;
+  payload: unknown;
 }
 
 const UNREACHABLE_MESSAGE = 'Voltcrib could not reach its server. Check the connection and try again.';
@@ -75,31 +83,71 @@ async function send<T>(path: string, options: RequestOptions & { csrfToken?: str
   const isForm = typeof FormData !== 'undefined' && options.body instanceof FormData;
   if (options.body !== undefined && !isForm) headers['content-type'] = 'application/json';
   if (options.csrfToken !== undefined) headers['x-csrf-token'] = options.csrfToken;
+  const request = {
+    method: options.method ?? 'GET',
+    headers,
+    body: options.body === undefined ? undefined : isForm ? (options.body as FormData) : JSON.stringify(options.body),
+    signal: options.signal,
+  };
 
-  let response: Response;
+  let answer: Answer;
   try {
-    response = await fetch(path, {
-      method: options.method ?? 'GET',
-      headers,
-      credentials: 'same-origin',
-      body: options.body === undefined ? undefined : isForm ? (options.body as FormData) : JSON.stringify(options.body),
-      signal: options.signal,
-    });
+    // fetch cannot report how much of a body has gone out; XMLHttpRequest can.
+    answer = options.onUploadProgress && typeof XMLHttpRequest !== 'undefined' ? await sendWithProgress(path, request, options.onUploadProgress) : await sendWithFetch(path, request);
   } catch (error) {
     if (error instanceof Error && error.name === 'AbortError') throw error;
     throw new ApiError(0, ERROR_CODES.unavailable, UNREACHABLE_MESSAGE);
   }
 
-  if (response.status === 204) return undefined as T;
-
-  const payload: unknown = await response.json().catch(() => undefined);
-  if (response.ok) return payload as T;
-
+  const { status, payload } = answer;
+  if (status === 204) return undefined as T;
+  if (status >= 200 && status < 300) return payload as T;
   if (isErrorBody(payload)) {
     const { code, message, fieldErrors, failures } = payload.error;
-    throw new ApiError(response.status, code, message, fieldErrors, failures);
+    throw new ApiError(status, code, message, fieldErrors, failures);
   }
-  throw new ApiError(response.status, fallbackCode(response.status), fallbackMessage(response.status));
+  throw new ApiError(status, fallbackCode(status), fallbackMessage(status));
+}
+
+interface OutgoingRequest {
+  method: Method;
+  headers: Record<string, string>;
+  body: string | FormData | undefined;
+  signal: AbortSignal | undefined;
+}
+
+async function sendWithFetch(path: string, request: OutgoingRequest): Promise<Answer> {
+  const response = await fetch(path, { ...request, credentials: 'same-origin' });
+  return { status: response.status, payload: response.status === 204 ? undefined : await response.json().catch(() => undefined) };
+}
+
+function sendWithProgress(path: string, request: OutgoingRequest, onProgress: (fraction: number) => void): Promise<Answer> {
+  return new Promise((resolve, reject) => {
+    const xhr = new XMLHttpRequest();
+    xhr.open(request.method, path);
+    xhr.withCredentials = true;
+    for (const [name, value] of Object.entries(request.headers)) xhr.setRequestHeader(name, value);
+    xhr.upload.onprogress = (event) => {
+      if (event.lengthComputable && event.total > 0) onProgress(event.loaded / event.total);
+    };
+    xhr.onload = () => {
+      let payload: unknown;
+      try {
+        payload = xhr.responseText ? JSON.parse(xhr.responseText) : undefined;
+      } catch {
+        payload = undefined;
+      }
+      resolve({ status: xhr.status, payload });
+    };
+    xhr.onerror = () => reject(new Error('network error'));
+    const abort = () => {
+      xhr.abort();
+      reject(new DOMException('The upload was stopped.', 'AbortError'));
+    };
+    if (request.signal?.aborted) return abort();
+    request.signal?.addEventListener('abort', abort, { once: true });
+    xhr.send(request.body ?? null);
+  });
 }
 
 function fallbackCode(status: number): string {
@@ -117,7 +165,10 @@ function fallbackMessage(status: number): string {
   return 'Something went wrong on the server. Try again.';
 }
 
-/** POSTs a multipart form (item photos and documents) through the same path as every write. */
-export function apiUpload<T>(path: string, form: FormData): Promise<T> {
-  return apiRequest<T>(path, { method: 'POST', body: form });
+/**
+ * POSTs a multipart form (item photos and documents, checklist photos) through the same path as
+ * every write, telling `onProgress` how much has been sent.
+ */
+export function apiUpload<T>(path: string, form: FormData, onProgress?: (fraction: number) => void): Promise<T> {
+  return apiRequest<T>(path, { method: 'POST', body: form, onUploadProgress: onProgress });
 }

@@ -5,6 +5,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { ItemFile } from '@/shared/schemas/items';
 
 import { apiUpload, apiRequest } from './api-client';
+import { useUploadProgress } from './use-upload-progress';
 import { itemKeys } from './use-items';
 
 export const itemFileKeys = {
@@ -26,15 +27,17 @@ export interface ItemFileUpload {
   kind: ItemFile['kind'];
 }
 
+/** The upload, with `progress` (0 to 1, or null when none is under way). */
 export function useUploadItemFileMutation(itemId: number) {
   const queryClient = useQueryClient();
-  return useMutation({
+  const { fraction, track } = useUploadProgress();
+  const mutation = useMutation({
     mutationFn: ({ file, kind }: ItemFileUpload) => {
       const form = new FormData();
       // The kind goes first: multer reads fields in order and the server validates them with the file.
       form.append('kind', kind);
       form.append('file', file, file.name);
-      return apiUpload<{ file: ItemFile }>(`/api/items/${itemId}/files`, form);
+      return track((onProgress) => apiUpload<{ file: ItemFile }>(`/api/items/${itemId}/files`, form, onProgress));
     },
     onSuccess: async () => {
       await Promise.all([
@@ -44,4 +47,5 @@ export function useUploadItemFileMutation(itemId: number) {
       ]);
     },
   });
+  return { ...mutation, progress: fraction };
 }

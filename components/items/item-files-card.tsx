@@ -9,6 +9,7 @@ import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { describeError, ErrorState } from '@/components/ui/error-state';
 import { FormAlert } from '@/components/ui/form-alert';
+import { ProgressBar } from '@/components/ui/progress-bar';
 import { Icon } from '@/components/ui/icon';
 import { LoadingState } from '@/components/ui/loading-state';
 import { webLinkProps } from '@/components/ui/web-link';
@@ -103,6 +104,7 @@ export function ItemFilesCard({ item, canUpload }: ItemFilesCardProps) {
           ))}
         </View>
       )}
+      {upload.isPending ? <ProgressBar label={`Uploading ${upload.variables?.file.name ?? 'the file'}`} fraction={upload.progress ?? 0} testID="item-upload-progress" /> : null}
       {upload.isError ? <FormAlert message={describeError(upload.error)} testID="item-upload-error" /> : null}
       {added ? (
         <AppText variant="smallStrong" accessibilityLiveRegion="polite" testID="item-upload-done">

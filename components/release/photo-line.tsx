@@ -8,6 +8,7 @@ import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { describeError } from '@/components/ui/error-state';
 import { FormAlert } from '@/components/ui/form-alert';
+import { ProgressBar } from '@/components/ui/progress-bar';
 import { bookingPhotoUrl, useUploadBookingPhotoMutation } from '@/hooks/use-booking-photos';
 import type { ChecklistEntry } from '@/shared/schemas/bookings';
 
@@ -64,9 +65,12 @@ export function PhotoLine({ bookingId, entry, fileId, onChange, error, testID }:
         </View>
       ) : null}
       {upload.isPending ? (
-        <AppText variant="small" accessibilityLiveRegion="polite" testID={`${testID}-uploading`}>
-          {`Uploading ${upload.variables?.name ?? 'the photo'}… keep this page open.`}
-        </AppText>
+        <View style={styles.uploading} testID={`${testID}-uploading`}>
+          <ProgressBar label={`Uploading ${upload.variables?.name ?? 'the photo'}`} fraction={upload.progress ?? 0} testID={`${testID}-progress`} />
+          <AppText variant="small" tone="muted" accessibilityLiveRegion="polite">
+            Keep this page open until it is attached.
+          </AppText>
+        </View>
       ) : null}
       {upload.isError ? <FormAlert message={`The photo was not attached. ${describeError(upload.error)}`} testID={`${testID}-upload-error`} /> : null}
       {canPickFiles ? (
@@ -98,4 +102,5 @@ const styles = StyleSheet.create({
   attached: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm, padding: spacing.xs, borderWidth: borders.hairline, borderRadius: radii.md },
   thumbnail: { width: layout.markSizeLarge, height: layout.markSizeLarge, borderRadius: radii.sm },
   attachedText: { flex: 1, gap: spacing.xxs },
+  uploading: { gap: spacing.xxs },
 });

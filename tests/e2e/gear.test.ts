@@ -258,6 +258,42 @@ describe('a manager on an item page', () => {
     }
   });
 
+  it('shows how far a photo upload has gone on a slow connection', async () => {
+    const manager = await createPerson(suite.server.db, { role: 'manager' });
+    const item = await insertItem(suite.server.db, 'probe');
+    const { context, page } = await newPage(suite.browser.browser, PHONE);
+    try {
+      await signInThroughUi(page, suite.server.baseUrl, manager.email, manager.password);
+      await page.goto(`${suite.server.baseUrl}/gear/${item.id}`, { waitUntil: 'load' });
+      await shown(page, 'item-add-photo').waitFor({ timeout: 15_000 });
+      // A phone on a weak lab Wi-Fi: about 1.5 MB goes out at 600 KB/s.
+      const cdp = await context.newCDPSession(page);
+      await cdp.send('Network.enable');
+      await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 20, downloadThroughput: -1, uploadThroughput: 600 * 1024 });
+      const chooser = page.waitForEvent('filechooser');
+      await shown(page, 'item-add-photo').click();
+      await (await chooser).setFiles({ name: 'probe-tip.png', mimeType: 'image/png', buffer: noisyPng(620) });
+
+      const seen = new Set<number>();
+      const progress = shown(page, 'item-upload-progress-text');
+      await progress.waitFor({ timeout: 15_000 });
+      while ((await progress.count()) > 0) {
+        const text = await progress.textContent().catch(() => null);
+        const percent = /(\d+) %$/.exec(text ?? '')?.[1];
+        if (percent !== undefined) seen.add(Number(percent));
+        if (seen.size === 3) await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'item-upload-progress-phone.png') }).catch(() => undefined);
+        await page.waitForTimeout(100);
+      }
+      await expect(shown(page, 'item-upload-done').textContent({ timeout: 15_000 })).resolves.toBe('Added probe-tip.png.');
+      // Seen part-way, rising: not only a spinner, and not a bar that jumps straight to the end.
+      const inBetween = [...seen].filter((p) => p > 0 && p < 100);
+      expect(inBetween.length).toBeGreaterThanOrEqual(2);
+      expect(await progress.count()).toBe(0);
+    } finally {
+      await context.close();
+    }
+  });
+
   it('edits its ratings through the same form, with the limits of the shared schema', async () => {
     const manager = await createPerson(suite.server.db, { role: 'manager' });
     const item = await insertItem(suite.server.db, 'hv-supply');
@@ -308,6 +344,14 @@ describe('a manager on an item page', () => {
 });
 
 /** A 2x2 PNG, built in memory: the server checks uploads by their bytes, so it must be a real one. */
+/** A square PNG of noise, which does not compress: about 4 × side² bytes. */
+function noisyPng(side: number): Buffer {
+  const png = new PNG({ width: side, height: side });
+  let seed = 12345;
+  for (let i = 0; i < png.data.length; i += 1) png.data[i] = (seed = (seed * 1103515245 + 12345) % 2 ** 31) >>> 23;
+  return PNG.sync.write(png);
+}
+
 function tinyPng(): Buffer {
   const png = new PNG({ width: 2, height: 2 });
   png.data.fill(200);
