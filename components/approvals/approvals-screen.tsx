@@ -1,12 +1,12 @@
 import { useState } from 'react';
 
 import { Badge } from '@/components/ui/badge';
-import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Screen } from '@/components/ui/screen';
 import { AppText } from '@/components/ui/app-text';
+import { LoadMore } from '@/components/ui/load-more';
 import { useBookingsInfiniteQuery } from '@/hooks/use-bookings';
 import { useCurrentUser } from '@/hooks/use-session';
 
@@ -48,9 +48,7 @@ export function ApprovalsScreen() {
           />
         ))
       )}
-      {queue.hasNextPage ? (
-        <Button label="Load more" variant="secondary" icon="chevron-down" testID="approvals-more" loading={queue.isFetchingNextPage} loadingLabel="Loading more" onPress={() => void queue.fetchNextPage()} />
-      ) : null}
+      <LoadMore query={queue} failedText="More bookings did not load. Try again." testID="approvals-more" />
     </Screen>
   );
 }

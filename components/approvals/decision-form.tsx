@@ -1,5 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { Controller, useForm } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import type { z } from 'zod';
 
@@ -8,7 +8,7 @@ import { spacing } from '@/components/theme/tokens';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
-import { TextField } from '@/components/ui/text-field';
+import { FormTextField } from '@/components/ui/form-fields';
 import { useApprovalDecisionMutation } from '@/hooks/use-bookings';
 import { approvalDecisionSchema } from '@/shared/schemas/bookings';
 
@@ -52,42 +52,24 @@ export function DecisionForm({ bookingId, onDecided }: DecisionFormProps) {
 
   return (
     <View style={styles.root} testID={`${prefix}-form`}>
-      <Controller
+      <FormTextField
         control={control}
         name="conditions"
-        render={({ field }) => (
-          <TextField
-            ref={field.ref}
-            label="Conditions (if approving)"
-            hint="E.g. second person from the group present; barrier at 3 m; stay at or below 25 kV."
-            value={field.value ?? ''}
-            onChangeText={field.onChange}
-            onBlur={field.onBlur}
-            error={errors.conditions?.message}
-            multiline
-            testID={`${prefix}-conditions`}
-          />
-        )}
+        label="Conditions (if approving)"
+        hint="E.g. second person from the group present; barrier at 3 m; stay at or below 25 kV."
+        multiline
+        testID={`${prefix}-conditions`}
       />
       <Button label="Approve this plan" icon="check-circle" block loading={isSubmitting && decide.variables?.decision !== 'refuse'} loadingLabel="Approving" testID={`${prefix}-approve`} onPress={() => submit('approve')} />
       <AppText variant="small" tone="muted">
         Or refuse it, saying what would make it acceptable:
       </AppText>
-      <Controller
+      <FormTextField
         control={control}
         name="reason"
-        render={({ field }) => (
-          <TextField
-            ref={field.ref}
-            label="Reason (if refusing)"
-            value={field.value ?? ''}
-            onChangeText={field.onChange}
-            onBlur={field.onBlur}
-            error={errors.reason?.message}
-            multiline
-            testID={`${prefix}-reason`}
-          />
-        )}
+        label="Reason (if refusing)"
+        multiline
+        testID={`${prefix}-reason`}
       />
       <Button label="Refuse" icon="close-circle" variant="danger" loading={isSubmitting && decide.variables?.decision === 'refuse'} loadingLabel="Refusing" testID={`${prefix}-refuse`} onPress={() => submit('refuse')} />
       {errors.root?.server?.message ? <FormAlert message={errors.root.server.message} testID={`${prefix}-error`} /> : null}

@@ -2,7 +2,6 @@ import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { spacing } from '@/components/theme/tokens';
-import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { ChoiceChips } from '@/components/ui/choice-chips';
 import { EmptyState } from '@/components/ui/empty-state';
@@ -10,6 +9,7 @@ import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Screen } from '@/components/ui/screen';
 import { TextField } from '@/components/ui/text-field';
+import { LoadMore } from '@/components/ui/load-more';
 import { useDebouncedValue } from '@/hooks/use-assessment';
 import { useAuditInfiniteQuery } from '@/hooks/use-audit';
 import { useBreakpoints } from '@/hooks/use-breakpoints';
@@ -57,17 +57,7 @@ export function AuditScreen() {
           ))}
         </Card>
       )}
-      {events.hasNextPage ? (
-        <Button
-          label="Load older entries"
-          variant="secondary"
-          icon="chevron-down"
-          testID="audit-more"
-          loading={events.isFetchingNextPage}
-          loadingLabel="Loading older entries"
-          onPress={() => void events.fetchNextPage()}
-        />
-      ) : null}
+      <LoadMore query={events} label="Load older entries" loadingLabel="Loading older entries" failedText="Older entries did not load. Try again." testID="audit-more" />
     </Screen>
   );
 }

@@ -8,7 +8,7 @@ import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { FormAlert } from '@/components/ui/form-alert';
-import { TextField } from '@/components/ui/text-field';
+import { FormTextField } from '@/components/ui/form-fields';
 import { useLiveAssessment } from '@/hooks/use-assessment';
 import { useGearItems } from '@/hooks/use-booking-gear';
 import { useCreateBookingMutation, useUpdateBookingMutation, type Booking } from '@/hooks/use-bookings';
@@ -100,38 +100,20 @@ export function BookForm({ booking }: BookFormProps) {
             />
           )}
         />
-        <Controller
+        <FormTextField
           control={control}
           name="location"
-          render={({ field }) => (
-            <TextField
-              ref={field.ref}
-              label="Bench or bay"
-              value={field.value}
-              onChangeText={field.onChange}
-              onBlur={field.onBlur}
-              error={errors.location?.message}
-              hint="Where the test will run, e.g. Bay 1 (interlocked cage)"
-              testID="book-location"
-            />
-          )}
+          label="Bench or bay"
+          hint="Where the test will run, e.g. Bay 1 (interlocked cage)"
+          testID="book-location"
         />
-        <Controller
+        <FormTextField
           control={control}
           name="purpose"
-          render={({ field }) => (
-            <TextField
-              ref={field.ref}
-              label="Purpose"
-              value={field.value}
-              onChangeText={field.onChange}
-              onBlur={field.onBlur}
-              error={errors.purpose?.message}
-              hint="What the test is for; the safety officer reads it."
-              multiline
-              testID="book-purpose"
-            />
-          )}
+          label="Purpose"
+          hint="What the test is for; the safety officer reads it."
+          multiline
+          testID="book-purpose"
         />
       </Card>
       <Card title="Test plan">

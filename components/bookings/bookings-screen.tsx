@@ -10,6 +10,7 @@ import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Screen } from '@/components/ui/screen';
+import { LoadMore } from '@/components/ui/load-more';
 import { useBookingsInfiniteQuery, type BookingListStatus } from '@/hooks/use-bookings';
 import { useBreakpoints } from '@/hooks/use-breakpoints';
 import { useCurrentUser } from '@/hooks/use-session';
@@ -74,17 +75,7 @@ export function BookingsScreen() {
           ))}
         </Card>
       )}
-      {bookings.hasNextPage ? (
-        <Button
-          label="Load more"
-          variant="secondary"
-          icon="chevron-down"
-          testID="bookings-more"
-          loading={bookings.isFetchingNextPage}
-          loadingLabel="Loading more"
-          onPress={() => void bookings.fetchNextPage()}
-        />
-      ) : null}
+      <LoadMore query={bookings} failedText="More bookings did not load. Try again." testID="bookings-more" />
     </Screen>
   );
 }

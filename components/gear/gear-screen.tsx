@@ -9,6 +9,7 @@ import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Screen } from '@/components/ui/screen';
+import { LoadMore } from '@/components/ui/load-more';
 import { useBreakpoints } from '@/hooks/use-breakpoints';
 import { useItemsInfiniteQuery, type ItemFilters } from '@/hooks/use-items';
 import { useCurrentUser } from '@/hooks/use-session';
@@ -114,23 +115,7 @@ function GearResults({ items, rows, filtered, isWide, isManager, onClear }: Gear
         {items.hasNextPage ? `Showing the first ${rows.length} items` : `${rows.length} ${rows.length === 1 ? 'item' : 'items'}`}
       </AppText>
       {isWide ? <GearTable items={rows} /> : <GearList items={rows} />}
-      {items.isFetchNextPageError ? (
-        <AppText tone="error" accessibilityRole="alert">
-          More gear did not load. Try again.
-        </AppText>
-      ) : null}
-      {items.hasNextPage ? (
-        <Button
-          label="Load more"
-          icon="chevron-down"
-          variant="secondary"
-          block
-          onPress={() => void items.fetchNextPage()}
-          loading={items.isFetchingNextPage}
-          loadingLabel="Loading more gear"
-          testID="gear-load-more"
-        />
-      ) : null}
+      <LoadMore query={items} loadingLabel="Loading more gear" failedText="More gear did not load. Try again." block testID="gear-load-more" />
     </View>
   );
 }

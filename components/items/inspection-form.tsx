@@ -11,6 +11,7 @@ import { Button } from '@/components/ui/button';
 import { ChoiceChips } from '@/components/ui/choice-chips';
 import { FormAlert } from '@/components/ui/form-alert';
 import { NumberField } from '@/components/ui/number-field';
+import { FormTextField } from '@/components/ui/form-fields';
 import { TextField } from '@/components/ui/text-field';
 import { useRecordInspectionMutation } from '@/hooks/use-inspections';
 import { SAFETY_CAUTION } from '@/shared/rules/assessment';
@@ -151,22 +152,13 @@ export function InspectionForm({ item, onDone, onCancel }: InspectionFormProps) 
           />
         ) : null}
       </View>
-      <Controller
+      <FormTextField
         control={control}
         name="notes"
-        render={({ field, fieldState }) => (
-          <TextField
-            ref={field.ref}
-            label={result === 'fail' ? 'What failed' : 'Notes'}
-            hint={result === 'fail' ? 'Becomes the tag-out reason' : 'Optional'}
-            value={field.value ?? ''}
-            onChangeText={field.onChange}
-            onBlur={field.onBlur}
-            error={fieldState.error?.message}
-            multiline
-            testID="inspection-notes"
-          />
-        )}
+        label={result === 'fail' ? 'What failed' : 'Notes'}
+        hint={result === 'fail' ? 'Becomes the tag-out reason' : 'Optional'}
+        multiline
+        testID="inspection-notes"
       />
       {formError ? <FormAlert message={formError} testID="inspection-form-error" /> : null}
       <View style={styles.buttons}>

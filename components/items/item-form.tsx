@@ -14,7 +14,7 @@ import { Card } from '@/components/ui/card';
 import { ChoiceChips } from '@/components/ui/choice-chips';
 import { FormAlert } from '@/components/ui/form-alert';
 import { NumberField } from '@/components/ui/number-field';
-import { TextField } from '@/components/ui/text-field';
+import { FormTextField } from '@/components/ui/form-fields';
 import { isApiError } from '@/hooks/api-client';
 import { useCreateItemMutation, useUpdateItemMutation } from '@/hooks/use-items';
 import {
@@ -162,7 +162,7 @@ export function ItemForm({ item }: ItemFormProps) {
             )}
           />
         )}
-        <TextInputField control={control} name="name" label="Name" hint="What people call it, e.g. 80 kV Cockcroft–Walton stack" testID="item-form-name" />
+        <FormTextField control={control} name="name" label="Name" hint="What people call it, e.g. 80 kV Cockcroft–Walton stack" testID="item-form-name" />
       </Card>
 
       <Card title="Ratings">
@@ -175,9 +175,9 @@ export function ItemForm({ item }: ItemFormProps) {
       </Card>
 
       <Card title="Where and which">
-        <TextInputField control={control} name="location" label="Kept at" hint="Room, bay or cabinet" testID="item-form-location" />
+        <FormTextField control={control} name="location" label="Kept at" hint="Room, bay or cabinet" testID="item-form-location" />
         {editing ? null : (
-          <TextInputField
+          <FormTextField
             control={control}
             name="tag"
             label="Asset tag (optional)"
@@ -186,9 +186,9 @@ export function ItemForm({ item }: ItemFormProps) {
             testID="item-form-tag"
           />
         )}
-        <TextInputField control={control} name="make" label="Make (optional)" testID="item-form-make" />
-        <TextInputField control={control} name="model" label="Model (optional)" testID="item-form-model" />
-        <TextInputField control={control} name="serial" label="Serial number (optional)" autoCapitalize="characters" testID="item-form-serial" />
+        <FormTextField control={control} name="make" label="Make (optional)" testID="item-form-make" />
+        <FormTextField control={control} name="model" label="Model (optional)" testID="item-form-model" />
+        <FormTextField control={control} name="serial" label="Serial number (optional)" autoCapitalize="characters" testID="item-form-serial" />
         <Controller
           control={control}
           name="inspectionIntervalDays"
@@ -207,7 +207,7 @@ export function ItemForm({ item }: ItemFormProps) {
             />
           )}
         />
-        <TextInputField control={control} name="notes" label="Notes (optional)" multiline testID="item-form-notes" />
+        <FormTextField control={control} name="notes" label="Notes (optional)" multiline testID="item-form-notes" />
       </Card>
 
       {formError ? <FormAlert message={formError} testID="item-form-error" /> : null}
@@ -229,41 +229,6 @@ export function ItemForm({ item }: ItemFormProps) {
         />
       </View>
     </View>
-  );
-}
-
-type TextName = 'name' | 'tag' | 'make' | 'model' | 'serial' | 'location' | 'notes';
-
-interface TextInputFieldProps {
-  control: Control<ItemFormValues, unknown, ItemCreateOutput>;
-  name: TextName;
-  label: string;
-  hint?: string;
-  multiline?: boolean;
-  autoCapitalize?: 'none' | 'characters' | 'sentences';
-  testID: string;
-}
-
-function TextInputField({ control, name, label, hint, multiline, autoCapitalize, testID }: TextInputFieldProps) {
-  return (
-    <Controller
-      control={control}
-      name={name}
-      render={({ field, fieldState }) => (
-        <TextField
-          ref={field.ref}
-          label={label}
-          hint={hint}
-          value={field.value}
-          onChangeText={field.onChange}
-          onBlur={field.onBlur}
-          error={fieldState.error?.message}
-          multiline={multiline}
-          autoCapitalize={autoCapitalize}
-          testID={testID}
-        />
-      )}
-    />
   );
 }
 

@@ -2,7 +2,7 @@
 // being decided is the only thing on offer. All three are PATCH /api/items/:id status changes.
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
-import { Controller, useForm } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import type { z } from 'zod';
 
@@ -11,7 +11,7 @@ import { useTheme } from '@/components/theme/use-theme';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
-import { TextField } from '@/components/ui/text-field';
+import { FormTextField } from '@/components/ui/form-fields';
 import { useUpdateItemMutation } from '@/hooks/use-items';
 import { itemUpdateSchema, type Item, type ItemUpdateInput } from '@/shared/schemas/items';
 
@@ -60,22 +60,13 @@ function StatusReasonPanel({ item, onDone, onCancel, status }: PanelProps & { st
           ? 'It can then not be booked or released, and anyone who scans it sees why. Put a physical tag on it too.'
           : 'Retired gear leaves the gear list, cannot be booked, and can never be changed again. Its record, inspections and history are kept.'}
       </AppText>
-      <Controller
+      <FormTextField
         control={control}
         name="statusReason"
-        render={({ field, fieldState }) => (
-          <TextField
-            ref={field.ref}
-            label={tagOut ? 'Why is it out of service?' : 'Why retire it? (optional)'}
-            hint={tagOut ? 'What is wrong, as the next person needs to read it' : undefined}
-            value={field.value ?? ''}
-            onChangeText={field.onChange}
-            onBlur={field.onBlur}
-            error={fieldState.error?.message}
-            multiline
-            testID={tagOut ? 'tag-out-reason' : 'retire-reason'}
-          />
-        )}
+        label={tagOut ? 'Why is it out of service?' : 'Why retire it? (optional)'}
+        hint={tagOut ? 'What is wrong, as the next person needs to read it' : undefined}
+        multiline
+        testID={tagOut ? 'tag-out-reason' : 'retire-reason'}
       />
       {formError ? <FormAlert message={formError} /> : null}
       <View style={styles.buttons}>

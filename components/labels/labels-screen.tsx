@@ -15,6 +15,7 @@ import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Screen } from '@/components/ui/screen';
 import { TextField } from '@/components/ui/text-field';
+import { LoadMore } from '@/components/ui/load-more';
 import { useItemsInfiniteQuery, itemUrls } from '@/hooks/use-items';
 import { KIND_LABELS, type ItemSummary } from '@/shared/schemas/items';
 
@@ -105,17 +106,7 @@ export default function LabelsScreen() {
               testID={`labels-item-${item.id}`}
             />
           ))}
-          {items.hasNextPage ? (
-            <Button
-              label="Load more"
-              icon="chevron-down"
-              variant="secondary"
-              block
-              onPress={() => void items.fetchNextPage()}
-              loading={items.isFetchingNextPage}
-              testID="labels-load-more"
-            />
-          ) : null}
+          <LoadMore query={items} loadingLabel="Loading more gear" failedText="More gear did not load. Try again." block testID="labels-load-more" />
         </View>
       )}
     </Screen>

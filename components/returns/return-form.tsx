@@ -13,7 +13,7 @@ import { Card } from '@/components/ui/card';
 import { Checkbox } from '@/components/ui/checkbox';
 import { describeError } from '@/components/ui/error-state';
 import { FormAlert } from '@/components/ui/form-alert';
-import { TextField } from '@/components/ui/text-field';
+import { FormTextField } from '@/components/ui/form-fields';
 import { isGateRefusedError, useReturnMutation, type Booking } from '@/hooks/use-bookings';
 import { checklistSubmitSchema, returnSchema } from '@/shared/schemas/bookings';
 
@@ -106,22 +106,13 @@ export function ReturnForm({ booking, safeResidualV }: ReturnFormProps) {
             </View>
           )}
         />
-        <Controller
+        <FormTextField
           control={control}
           name="ret.notes"
-          render={({ field }) => (
-            <TextField
-              ref={field.ref}
-              label={damaged.length > 0 ? 'What is damaged, and how' : 'Notes (optional)'}
-              value={field.value ?? ''}
-              onChangeText={field.onChange}
-              onBlur={field.onBlur}
-              error={errors.ret?.notes?.message}
-              hint={damaged.length > 0 ? 'Required when an item is marked damaged.' : undefined}
-              multiline
-              testID="return-notes"
-            />
-          )}
+          label={damaged.length > 0 ? 'What is damaged, and how' : 'Notes (optional)'}
+          hint={damaged.length > 0 ? 'Required when an item is marked damaged.' : undefined}
+          multiline
+          testID="return-notes"
         />
       </Card>
       {refusal ? <ReleaseFailures testID="return-failures" title={refusal.message} failures={refusal.failures} /> : null}

@@ -1,11 +1,11 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { Controller, useForm } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import { z } from 'zod';
 
 import { spacing } from '@/components/theme/tokens';
 import { Button } from '@/components/ui/button';
-import { TextField } from '@/components/ui/text-field';
+import { FormTextField } from '@/components/ui/form-fields';
 import { tagSchema } from '@/shared/schemas/items';
 
 import { extractTag } from './extract-tag';
@@ -45,27 +45,18 @@ export function TypedTagForm({ onTag, disabled = false, testID }: TypedTagFormPr
   return (
     <View style={styles.row} testID={testID}>
       <View style={styles.field}>
-        <Controller
+        <FormTextField
           control={control}
           name="tag"
-          render={({ field, fieldState }) => (
-            <TextField
-              ref={field.ref}
-              label="Or type the tag"
-              hint="Printed beside the QR code, e.g. MUL-0007"
-              value={field.value}
-              onChangeText={field.onChange}
-              onBlur={field.onBlur}
-              onSubmitEditing={() => void submit()}
-              error={fieldState.error?.message}
-              autoCapitalize="characters"
-              autoCorrect={false}
-              autoComplete="off"
-              returnKeyType="go"
-              disabled={disabled}
-              testID={`${testID}-input`}
-            />
-          )}
+          label="Or type the tag"
+          hint="Printed beside the QR code, e.g. MUL-0007"
+          onSubmitEditing={() => void submit()}
+          autoCapitalize="characters"
+          autoCorrect={false}
+          autoComplete="off"
+          returnKeyType="go"
+          disabled={disabled}
+          testID={`${testID}-input`}
         />
       </View>
       <View style={styles.button}>

@@ -4,8 +4,9 @@ import { Controller, type Control, type FieldPath, type FieldValues } from 'reac
 import { NumberField } from './number-field';
 import { TextField } from './text-field';
 
-type FormTextFieldProps<T extends FieldValues> = Omit<ComponentProps<typeof TextField>, 'value' | 'onChangeText' | 'onBlur' | 'ref' | 'error'> & {
-  control: Control<T>;
+// TOut: what the form's resolver turns the values into on submit (a zod schema's output).
+type FormTextFieldProps<T extends FieldValues, TOut> = Omit<ComponentProps<typeof TextField>, 'value' | 'onChangeText' | 'onBlur' | 'ref' | 'error'> & {
+  control: Control<T, unknown, TOut>;
   name: FieldPath<T>;
 };
 
@@ -13,25 +14,26 @@ type FormTextFieldProps<T extends FieldValues> = Omit<ComponentProps<typeof Text
  * A TextField bound to one react-hook-form field: its value, changes, blur, the field's message,
  * and the ref a failed submit focuses.
  */
-export function FormTextField<T extends FieldValues>({ control, name, ...fieldProps }: FormTextFieldProps<T>) {
+export function FormTextField<T extends FieldValues, TOut = T>({ control, name, ...fieldProps }: FormTextFieldProps<T, TOut>) {
   return (
     <Controller
       control={control}
       name={name}
       render={({ field: { ref, value, onChange, onBlur }, fieldState }) => (
-        <TextField {...fieldProps} ref={ref} value={value} onChangeText={onChange} onBlur={onBlur} error={fieldState.error?.message} />
+        // An optional field starts undefined; the input stays controlled with empty text.
+        <TextField {...fieldProps} ref={ref} value={value ?? ''} onChangeText={onChange} onBlur={onBlur} error={fieldState.error?.message} />
       )}
     />
   );
 }
 
-type FormNumberFieldProps<T extends FieldValues> = Omit<ComponentProps<typeof NumberField>, 'value' | 'onChange' | 'onBlur' | 'ref' | 'error'> & {
-  control: Control<T>;
+type FormNumberFieldProps<T extends FieldValues, TOut> = Omit<ComponentProps<typeof NumberField>, 'value' | 'onChange' | 'onBlur' | 'ref' | 'error'> & {
+  control: Control<T, unknown, TOut>;
   name: FieldPath<T>;
 };
 
 /** A NumberField bound to one react-hook-form field, as FormTextField is for text. */
-export function FormNumberField<T extends FieldValues>({ control, name, ...fieldProps }: FormNumberFieldProps<T>) {
+export function FormNumberField<T extends FieldValues, TOut = T>({ control, name, ...fieldProps }: FormNumberFieldProps<T, TOut>) {
   return (
     <Controller
       control={control}
