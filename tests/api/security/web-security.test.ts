@@ -133,6 +133,21 @@ describe('caching', () => {
       expect(res.headers.etag).toBeUndefined();
     }
   });
+
+  it('lets the browser revalidate the web app (ETag, no-cache) and keep its hashed bundles', async () => {
+    // `npm test` builds the web app before the suites run.
+    const index = await request(ctx.app).get('/gear');
+    expect(index.status).toBe(200);
+    expect(index.headers['cache-control']).toBe('no-cache');
+    expect(index.headers.etag).toMatch(/^W\/"/);
+    expect((await request(ctx.app).get('/gear').set('If-None-Match', index.headers.etag!)).status).toBe(304);
+    const bundle = /src="(\/_expo\/static\/js\/web\/[^"]+\.js)"/.exec(index.text)?.[1];
+    expect(bundle).toBeDefined();
+    const js = await request(ctx.app).get(bundle!);
+    expect(js.status).toBe(200);
+    expect(js.headers['cache-control']).toBe('public, max-age=31536000, immutable');
+    expect(js.headers['x-powered-by']).toBeUndefined();
+  });
 });
 
 describe('stored uploads', () => {
