@@ -23,6 +23,16 @@ declare module 'on-headers' {
 
 declare module 'autocannon' {
   namespace autocannon {
+    /** One request of a sequence each connection sends in turn, starting over after the last. */
+    interface SequenceRequest {
+      method?: string;
+      path?: string;
+      headers?: Record<string, string>;
+      body?: string;
+      /** Builds the request from the connection's context; null ends the sequence early (not on the first). */
+      setupRequest?: (request: SequenceRequest, context: Record<string, unknown>) => SequenceRequest | null;
+      onResponse?: (status: number, body: string, context: Record<string, unknown>) => void;
+    }
     interface Options {
       url: string;
       method?: string;
@@ -30,6 +40,7 @@ declare module 'autocannon' {
       body?: string;
       connections?: number;
       duration?: number;
+      requests?: SequenceRequest[];
     }
     interface Histogram {
       average: number;
