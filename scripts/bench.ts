@@ -24,7 +24,7 @@ const CONNECTIONS = 50;
 const REFERENCE_S = Math.max(3, Math.round(DURATION_S / 2));
 /** BENCH_ONLY=session,search measures just the routes whose key is listed (the reference always). */
 const ONLY = process.env.BENCH_ONLY?.split(',').filter(Boolean) ?? null;
-const LIST_URLS = ['/api/items?q=corona&kind=probe&minKv=50', '/api/items?q=c&sort=name', '/api/items?q=corona&kind=probe&sort=nextDue', '/api/items', '/api/items?kind=probe&minKv=50&sort=ratedKv', '/api/items?due=overdue&sort=nextDue', '/api/bookings?mine=1', '/api/bookings?status=overdue', '/api/audit?limit=50'];
+const LIST_URLS = ['/api/items?q=corona&kind=probe&minKv=50', '/api/items?q=c&sort=name', '/api/items?q=corona&kind=probe&sort=nextDue', '/api/items?q=corona&status=out-of-service&sort=name', '/api/items', '/api/items?kind=probe&minKv=50&sort=ratedKv', '/api/items?due=overdue&sort=nextDue', '/api/bookings?mine=1', '/api/bookings?status=overdue', '/api/audit?limit=50'];
 
 interface Row {
   route: string;

@@ -246,6 +246,25 @@ describe('word search paging', () => {
     }
   });
 
+  it('with status=out-of-service (searched from the items with that status), pages list each match once in every sort', async () => {
+    // Every third item, of every kind.
+    const out = made.filter((_, i) => i % 3 === 1);
+    await ctx.db('items').whereIn('id', ids(out)).update({ status: 'out-of-service' });
+    try {
+      for (const sort of ITEM_SORTS) {
+        const { seen } = await walk({ q: word, status: 'out-of-service', sort, limit: 4 });
+        expect({ sort, ids: new Set(ids(seen)) }).toEqual({ sort, ids: new Set(ids(out)) });
+        expect(ids(seen)).toEqual(ids(await search({ q: word, status: 'out-of-service', sort })));
+      }
+      // Two words, a kind and a rating, as the word-driven search takes them.
+      const probes = out.filter((m) => m.kind === 'probe' && (m.ratedKv ?? 0) >= 40);
+      expect(probes.length).toBeGreaterThan(0);
+      expect(new Set(ids(await search({ q: `${word} unit`, status: 'out-of-service', kind: 'probe', minKv: 40 })))).toEqual(new Set(ids(probes.filter((m) => m.name.includes(' unit')))));
+    } finally {
+      await ctx.db('items').whereIn('id', ids(out)).update({ status: 'in-service' });
+    }
+  });
+
   it.each([
     // "W" stands for the word of these items.
     [{ q: 'Wx' }, 20],
