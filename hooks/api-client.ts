@@ -130,20 +130,26 @@ function sendWithProgress(path: string, request: OutgoingRequest, onProgress: (f
     xhr.upload.onprogress = (event) => {
       if (event.lengthComputable && event.total > 0) onProgress(event.loaded / event.total);
     };
-    xhr.onload = () => {
-      let payload: unknown;
-      try {
-        payload = xhr.responseText ? JSON.parse(xhr.responseText) : undefined;
-      } catch {
-        payload = undefined;
-      }
-      resolve({ status: xhr.status, payload });
-    };
-    xhr.onerror = () => reject(new Error('network error'));
     const abort = () => {
       xhr.abort();
       reject(new DOMException('The upload was stopped.', 'AbortError'));
     };
+    // Once answered, a later abort of the signal has nothing left to stop.
+    const settle = (outcome: () => void) => {
+      request.signal?.removeEventListener('abort', abort);
+      outcome();
+    };
+    xhr.onload = () =>
+      settle(() => {
+        let payload: unknown;
+        try {
+          payload = xhr.responseText ? JSON.parse(xhr.responseText) : undefined;
+        } catch {
+          payload = undefined;
+        }
+        resolve({ status: xhr.status, payload });
+      });
+    xhr.onerror = () => settle(() => reject(new Error('network error')));
     if (request.signal?.aborted) return abort();
     request.signal?.addEventListener('abort', abort, { once: true });
     xhr.send(request.body ?? null);

@@ -106,9 +106,9 @@ const answersFor = (list: ChecklistLine[]) => list.filter((e) => e.required).map
 /**
  * The counter loop: book a kit, scan its five items, pre-energize checklist, release, make-safe
  * checklist, return. Driven by autocannon like every other route: each of the 50 connections sends
- * the ten requests in turn with its own kit, carried in the connection's context, so the load
- * generator costs the machine as little here as elsewhere (a fetch loop took about 1 ms of the
- * two cores' CPU per request, half of what the server took).
+ * the ten requests in turn with its own kit, carried in the connection's context. (The fetch loop
+ * it replaces spent about 1 ms of CPU per request in the bench process, on the two cores the
+ * server needs.)
  */
 async function releaseLoop(base: string, auth: { cookie: string; csrf: string }, kits: string[][], kitIds: number[][]) {
   const freeKits = kits.map((_, k) => k);
