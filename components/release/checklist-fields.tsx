@@ -1,6 +1,5 @@
 import { StyleSheet, View } from 'react-native';
 
-import { trimNumber } from '@/components/assessment/quantities';
 import { spacing } from '@/components/theme/tokens';
 import { Badge } from '@/components/ui/badge';
 import { Checkbox } from '@/components/ui/checkbox';
@@ -9,6 +8,7 @@ import { NumberField } from '@/components/ui/number-field';
 import { isApiError } from '@/hooks/api-client';
 import type { ChecklistEntry, ChecklistSubmitInput } from '@/shared/schemas/bookings';
 
+import { hasRange, limitsPhrase } from './checklist-limits';
 import { PhotoLine } from './photo-line';
 
 export type ChecklistAnswer = ChecklistSubmitInput['answers'][number];
@@ -37,12 +37,9 @@ export function serverLineErrors(error: unknown): Record<number, string> {
 }
 
 export function limitsText(entry: ChecklistEntry, limitSource?: string): string | null {
-  const unit = entry.unit ?? '';
-  const from = limitSource ? ` (${limitSource})` : '';
-  if (entry.min !== undefined && entry.max !== undefined) return `Limits: ${trimNumber(entry.min, 3)} to ${trimNumber(entry.max, 3)} ${unit}${from}`;
-  if (entry.max !== undefined) return `Limit: at most ${trimNumber(entry.max, 3)} ${unit}${from}`;
-  if (entry.min !== undefined) return `Limit: at least ${trimNumber(entry.min, 3)} ${unit}${from}`;
-  return null;
+  const phrase = limitsPhrase(entry);
+  if (phrase === null) return null;
+  return `${hasRange(entry) ? 'Limits' : 'Limit'}: ${phrase}${limitSource ? ` (${limitSource})` : ''}`;
 }
 
 export function insideLimits(entry: ChecklistEntry, value: number): boolean {
