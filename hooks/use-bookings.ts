@@ -131,15 +131,20 @@ export function useCancelBookingMutation(id: number) {
 
 export interface ApprovalDecisionInput {
   decision: 'approve' | 'refuse';
+  /** The plan version on the officer's screen. */
+  planVersion: number;
   conditions?: string;
   reason?: string;
 }
 
 export function useApprovalDecisionMutation(id: number) {
   const written = useBookingWritten();
+  const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: ApprovalDecisionInput) => apiRequest<{ booking: Booking }>(`/api/bookings/${id}/approval`, { method: 'POST', body: input }).then(bookingOf),
     onSuccess: written,
+    // PLAN_CHANGED: the booking moved on while the officer read it; show it as it is now.
+    onError: () => queryClient.invalidateQueries({ queryKey: bookingKeys.detail(id) }),
   });
 }
 

@@ -102,7 +102,7 @@ export function createApp({ db, config, logger, objectStore, mailbox, mountBefor
   app.use('/api', csrf.csrfSynchronisedProtection);
 
   app.use('/api/session', sessionRouter(db, passport, config));
-  app.use('/api/people', peopleRouter(db));
+  app.use('/api/people', peopleRouter(db, config));
   app.use('/api/groups', groupsRouter(db));
   app.use('/api/qualifications', qualificationsRouter(db));
   app.use('/api/calc', calcRouter());

@@ -35,7 +35,18 @@ export function createDb(config: Pick<Config, 'db'>): Db {
         return next();
       },
     },
-    pool: { min: 0, max: config.db.poolMax },
+    pool: {
+      min: 0,
+      max: config.db.poolMax,
+      // READ COMMITTED on every connection: a statement sees every transaction committed before
+      // it. The gate's checks lock the rows they depend on first (booking, then items in id
+      // order; server/services/booking-holds.ts) and then read; at MariaDB's default REPEATABLE
+      // READ a plain read earlier in the transaction would pin an older snapshot and the check
+      // would miss a booking committed while it waited for the lock.
+      afterCreate(connection: { query(sql: string, done: (error: Error | null) => void): void }, done: (error: Error | null, connection: unknown) => void) {
+        connection.query('SET SESSION TRANSACTION ISOLATION LEVEL READ COMMITTED', (error) => done(error, connection));
+      },
+    },
     // Fail fast while the database is down, so requests get a 503 instead of hanging.
     acquireConnectionTimeout: 2000,
     // Knex prints pool errors with console.log; they also reject the query, which the error

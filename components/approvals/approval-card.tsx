@@ -33,9 +33,9 @@ export function ApprovalCard({ summary, own, open, onOpen, onDecided }: Approval
     <Card testID={prefix}>
       <BookingStatusBadge status={summary.status} overdue={summary.overdue} />
       <AppText variant="heading" headingLevel={2}>{`${summary.personName}: up to ${formatKv(summary.plannedKv)}`}</AppText>
-      <AppText>{`${formatWindow(summary.startsAt, summary.endsAt)} · ${summary.location}`}</AppText>
-      <AppText tone="muted">{summary.purpose}</AppText>
-      <AppText variant="small" tone="muted">{`Gear: ${summary.itemTags.join(', ')}`}</AppText>
+      <AppText>{`${formatWindow(detail.data?.startsAt ?? summary.startsAt, detail.data?.endsAt ?? summary.endsAt)} · ${detail.data?.location ?? summary.location}`}</AppText>
+      <AppText tone="muted">{detail.data?.purpose ?? summary.purpose}</AppText>
+      <AppText variant="small" tone="muted">{`Gear: ${(detail.data?.items.map((i) => i.tag) ?? summary.itemTags).join(', ')}`}</AppText>
       {detail.isPending ? (
         <LoadingState label="Loading the assessment" />
       ) : detail.isError ? (
@@ -48,8 +48,10 @@ export function ApprovalCard({ summary, own, open, onOpen, onDecided }: Approval
         <View style={styles.own}>
           <Badge label="Your own booking: needs another officer" icon="account-off" testID={`${prefix}-own`} />
         </View>
-      ) : open ? (
-        <DecisionForm bookingId={summary.id} onDecided={onDecided} />
+      ) : open && detail.data ? (
+        // The decision carries the plan version on screen: if the booking changed since, the
+        // server refuses (PLAN_CHANGED) and the card reloads what changed.
+        <DecisionForm bookingId={summary.id} planVersion={detail.data.planVersion} onDecided={onDecided} />
       ) : (
         <Button label="Decide" icon="clipboard-check" variant="secondary" block testID={`${prefix}-review`} onPress={onOpen} />
       )}

@@ -16,11 +16,13 @@ type DecisionInput = z.input<typeof approvalDecisionSchema>;
 
 interface DecisionFormProps {
   bookingId: number;
+  /** The version of the plan the officer is reading; the decision binds to it. */
+  planVersion: number;
   onDecided: (decision: 'approve' | 'refuse') => void;
 }
 
 /** Approve, with conditions if any, or refuse with a reason; the decision binds to this plan only. */
-export function DecisionForm({ bookingId, onDecided }: DecisionFormProps) {
+export function DecisionForm({ bookingId, planVersion, onDecided }: DecisionFormProps) {
   const decide = useApprovalDecisionMutation(bookingId);
   const prefix = `approval-${bookingId}`;
   const {
@@ -31,15 +33,17 @@ export function DecisionForm({ bookingId, onDecided }: DecisionFormProps) {
     formState: { errors, isSubmitting },
   } = useForm<DecisionInput>({
     resolver: zodResolver(approvalDecisionSchema),
-    defaultValues: { decision: 'approve', conditions: '', reason: '' },
+    defaultValues: { decision: 'approve', planVersion, conditions: '', reason: '' },
   });
 
   const submit = (decision: 'approve' | 'refuse') => {
     setValue('decision', decision);
+    setValue('planVersion', planVersion);
     void handleSubmit(async (input) => {
       try {
         await decide.mutateAsync({
           decision: input.decision,
+          planVersion,
           conditions: input.decision === 'approve' && input.conditions ? input.conditions : undefined,
           reason: input.decision === 'refuse' ? input.reason : undefined,
         });

@@ -99,4 +99,14 @@ export const messages = {
       { url: `${baseUrl}/reset-password/${token}`, label: 'Choose a new password' },
     );
   },
+  bookingsCancelledOnDeactivation(baseUrl: string, personName: string, bookingIds: number[]): MailContent {
+    return compose(
+      `Bookings of ${personName} cancelled`,
+      [
+        `${personName}'s account was deactivated, so their bookings that were not yet released were cancelled: ${bookingIds.map((id) => `booking ${id}`).join(', ')}.`,
+        'Gear they already have out stays listed as needing return until it is back.',
+      ],
+      { url: `${baseUrl}/bookings`, label: 'Open the bookings' },
+    );
+  },
 };

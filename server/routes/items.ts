@@ -50,7 +50,7 @@ export function itemsRouter(db: Db, config: Config, store: ObjectStore): Router 
   router.patch('/:id', requireRole('manager'), async (req, res) => {
     const itemId = id(req);
     const input = validate(itemUpdateSchema, req.body, 'item change');
-    res.json({ item: toItem(await updateItem(db, currentUser(req), itemId, input), config.publicUrl) });
+    res.json({ item: toItem(await updateItem(db, currentUser(req), itemId, input, { publicUrl: config.publicUrl }), config.publicUrl) });
   });
 
   router.get('/:id/history', requireSignedIn, async (req, res) => {

@@ -2,6 +2,7 @@ import { Router } from 'express';
 import { personUpdateSchema } from '../../shared/schemas/accounts';
 import { qualificationSchema } from '../../shared/schemas/bookings';
 import { idParamSchema } from '../../shared/schemas/common';
+import type { Config } from '../config';
 import type { Db } from '../db';
 import { ForbiddenError, NotFoundError } from '../errors';
 import { currentUser, requireRole, requireSignedIn } from '../middleware/require-role';
@@ -10,7 +11,7 @@ import { updatePerson } from '../services/accounts';
 import { listPeople } from '../services/people';
 import { getQualification, setQualification } from '../services/qualifications';
 
-export function peopleRouter(db: Db): Router {
+export function peopleRouter(db: Db, config: Config): Router {
   const router = Router();
   router.get('/', requireRole('manager'), async (_req, res) => {
     res.json({ people: await listPeople(db) });
@@ -18,7 +19,7 @@ export function peopleRouter(db: Db): Router {
 
   router.patch('/:id', requireRole('manager'), async (req, res) => {
     const { id } = validate(idParamSchema, req.params, 'person id');
-    res.json({ person: await updatePerson(db, currentUser(req), id, validate(personUpdateSchema, req.body, 'change')) });
+    res.json({ person: await updatePerson(db, currentUser(req), id, validate(personUpdateSchema, req.body, 'change'), { publicUrl: config.publicUrl }) });
   });
 
   router.get('/:id/qualification', requireSignedIn, async (req, res) => {

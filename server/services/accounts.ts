@@ -9,6 +9,7 @@ import { AppError, ConflictError, ForbiddenError, NotFoundError } from '../error
 import { messages } from '../mail/messages';
 import { enqueueMail } from '../mail/outbox';
 import { appendAudit, auditedTransaction } from './audit';
+import { cancelOpenBookingsOf, type MailContext } from './bookings';
 import { endSessionsOf } from './people';
 
 const INVITATION_HOURS = 7 * 24;
@@ -73,7 +74,7 @@ export async function requestPasswordReset(db: Db, email: string, publicUrl: str
   });
 }
 
-export async function updatePerson(db: Db, actor: SessionUser, personId: number, input: PersonUpdateInput) {
+export async function updatePerson(db: Db, actor: SessionUser, personId: number, input: PersonUpdateInput, mail: MailContext) {
   if (personId === actor.id && (input.active === false || (input.role && input.role !== actor.role))) {
     throw new ForbiddenError('You cannot deactivate yourself or change your own role; ask another manager.');
   }
@@ -92,6 +93,8 @@ export async function updatePerson(db: Db, actor: SessionUser, personId: number,
       updated_at: new Date(),
     };
     await trx('people').where({ id: personId }).update(changes);
+    // A deactivated person's bookings not yet released are cancelled in the same transaction.
+    if (before.active && input.active === false) await cancelOpenBookingsOf(trx, actor, personId, mail);
     const after = await trx('people').where({ id: personId }).first('id', 'email', 'name', 'role', 'active', 'group_id');
     await appendAudit(trx, {
       actorId: actor.id,

@@ -1,8 +1,11 @@
 // Bookings and the safety gate. Every state change runs in one transaction that locks the booking
 // row first, then its items in id order, and appends its audit entry last (the audit chain lock),
 // so concurrent requests queue instead of deadlocking.
+import { approvalBasisOf, type ApprovalBasis } from '../../shared/rules/approval-basis';
 import { assessSetup, type AssessedItem, type Assessment } from '../../shared/rules/assessment';
-import { releaseFailures } from '../../shared/rules/release';
+import { bookingWindowErrors } from '../../shared/rules/booking-window';
+import { checklistCoverage } from '../../shared/rules/checklist-coverage';
+import { approvalStanding, releaseFailures, returnFailures, type ApprovalRecord, type CompletedChecklist } from '../../shared/rules/release';
 import {
   LIVE_STATUSES,
   type Booking,
@@ -12,12 +15,12 @@ import {
   type BookingCreateInput,
   type BookingStatus,
   type BookingUpdateInput,
-  type ChecklistEntry,
+  type ChecklistAnswerRecord,
   type ChecklistSubmitInput,
   type LabRules,
   type TestPlan,
 } from '../../shared/schemas/bookings';
-import type { ItemKind, ItemSummary } from '../../shared/schemas/items';
+import type { ItemKind } from '../../shared/schemas/items';
 import type { SessionUser } from '../../shared/schemas/session';
 import type { Db, Trx } from '../db';
 import { AppError, ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../errors';
@@ -25,11 +28,13 @@ import { messages, type BookingFacts } from '../mail/messages';
 import { enqueueMail } from '../mail/outbox';
 import { appendAudit, auditedTransaction } from './audit';
 import { assertCounterAccess, canSeeBooking, lockBooking, STAFF } from './booking-access';
+import { clashingTags, holdItems, itemTaken, lockItems } from './booking-holds';
 import { bookingPhotoIdsAmong } from './booking-photos';
 import { activeTemplates, applicableEntries, evaluateAnswers, type TemplateRow } from './checklists';
 import { timestampToIso, todayIso } from './dates';
-import { inspectionStateOf, tagOutInTransaction, toItemSummary, type ItemRow } from './items';
-import { getLabRules } from './lab-rules';
+import { inspectionStateOf, tagOutInTransaction, toItemSummary, type ItemRow } from './item-rows';
+import { getLabRulesState, labRulesFor } from './lab-rules';
+import { rulesForPerson } from '../../shared/rules/lab-rules';
 import { getQualification } from './qualifications';
 
 export interface BookingRow {
@@ -83,82 +88,107 @@ function toAssessedItem(row: ItemRow): AssessedItem {
   };
 }
 
-async function loadItems(db: Db | Trx, itemIds: number[], lock: boolean): Promise<ItemRow[]> {
-  const query = db<ItemRow>('items').whereIn('id', itemIds).orderBy('id');
-  if (lock) query.forUpdate();
-  const rows = (await query) as ItemRow[];
+async function loadItems(db: Db | Trx, itemIds: number[]): Promise<ItemRow[]> {
+  const rows = (await db<ItemRow>('items').whereIn('id', itemIds).orderBy('id')) as ItemRow[];
   const missing = itemIds.filter((id) => !rows.some((r) => r.id === id));
   if (missing.length > 0) throw new ValidationError(`No item with id ${missing.join(', ')}.`, { itemIds: [`Unknown item ${missing.join(', ')}`] });
   return rows;
 }
 
+/** The assessment of a plan with these items for this person, under the lab rules that apply to them. */
 export async function assess(db: Db | Trx, items: ItemRow[], plan: TestPlan, personId: number, rules?: LabRules): Promise<Assessment> {
-  const [labRules, qualification] = await Promise.all([rules ?? getLabRules(db), getQualification(db, personId)]);
+  const [labRules, qualification] = await Promise.all([rules ?? labRulesFor(db, personId), getQualification(db, personId)]);
   return assessSetup({ items: items.map(toAssessedItem), plan, rules: labRules, qualification, today: todayIso() });
 }
 
 export async function assessPlan(db: Db, itemIds: number[], plan: TestPlan, personId: number): Promise<Assessment> {
-  return assess(db, await loadItems(db, itemIds, false), plan, personId);
+  return assess(db, await loadItems(db, itemIds), plan, personId);
 }
+
+/** The booking as an approval records it, from its row (or a change to it) and its items now. */
+function basisOf(booking: { plan: TestPlan; startsAt: Date; endsAt: Date; location: string; purpose: string }, items: ItemRow[], assessment: Assessment): ApprovalBasis {
+  return approvalBasisOf(
+    { plan: booking.plan, startsAt: booking.startsAt.toISOString(), endsAt: booking.endsAt.toISOString(), location: booking.location, purpose: booking.purpose },
+    items.map(toAssessedItem),
+    assessment,
+  );
+}
+
+const rowBasisInput = (row: BookingRow) => ({ plan: planOf(row), startsAt: new Date(row.starts_at), endsAt: new Date(row.ends_at), location: row.location, purpose: row.purpose });
 
 // ------------------------------------------------------------------------------------------
 // Reading bookings
 
 
-type Approval = Booking['approval'];
-type RunSummary = { complete: boolean; withinLimits: boolean; completedAt: string } | null;
-
-/** What officers and members decided about a booking: its approval and its checklist runs. */
-interface Decisions {
-  approval: Approval;
-  /** The latest run of each phase for the booking's current plan. */
-  runs: { pre: RunSummary; return: RunSummary };
+/** A completed checklist run as the gate reads it. */
+interface StoredRun extends CompletedChecklist {
+  withinLimits: boolean;
+  completedAt: string;
 }
 
-// The latest approval and the current plan's checklist runs, as two JSON columns of a query on
-// `bookings AS b`: each is one key lookup, and the booking's answer needs no query of its own for
-// them. Times go out as epoch milliseconds (UNIX_TIMESTAMP of a TIMESTAMP ignores the session's
-// time zone).
+/** What officers and members decided about a booking: its latest approval and checklist runs. */
+interface Decisions {
+  approval: (ApprovalRecord & { officerName: string; conditions: string | null; reason: string | null; decidedAt: string }) | null;
+  /** The latest run of each phase for the booking's current plan. */
+  runs: { pre: StoredRun | null; return: StoredRun | null };
+}
+
+// The latest approval and the current plan's latest checklist run of each phase, as JSON columns
+// of a query on `bookings AS b`: each is one key lookup, and the booking's answer needs no query
+// of its own for them. JSON_EXTRACT(…, '$') embeds a stored JSON document as JSON rather than as
+// a string. Times go out as epoch milliseconds (UNIX_TIMESTAMP of a TIMESTAMP ignores the
+// session's time zone).
+const runSql = (phase: 'pre' | 'return') => `
+  (SELECT JSON_OBJECT('planVersion', r.plan_version, 'withinLimits', r.within_limits,
+      'completedAtMs', UNIX_TIMESTAMP(r.completed_at) * 1000, 'answers', JSON_EXTRACT(r.answers, '$'))
+    FROM checklist_runs AS r WHERE r.booking_id = b.id AND r.phase = '${phase}' AND r.plan_version = b.plan_version
+    ORDER BY r.id DESC LIMIT 1) AS ${phase}_run_json`;
 const DECISIONS_SQL = `
   (SELECT JSON_OBJECT('decision', a.decision, 'officerName', o.name, 'conditions', a.conditions, 'reason', a.reason,
-      'decidedAtMs', UNIX_TIMESTAMP(a.decided_at) * 1000, 'voided', a.voided_at IS NOT NULL, 'planVersion', a.plan_version)
+      'decidedAtMs', UNIX_TIMESTAMP(a.decided_at) * 1000, 'voided', a.voided_at IS NOT NULL, 'planVersion', a.plan_version,
+      'basis', JSON_EXTRACT(a.basis, '$'))
     FROM approvals AS a JOIN people AS o ON o.id = a.officer_id WHERE a.booking_id = b.id ORDER BY a.id DESC LIMIT 1) AS approval_json,
-  (SELECT JSON_ARRAYAGG(JSON_OBJECT('phase', r.phase, 'complete', r.complete, 'withinLimits', r.within_limits,
-      'completedAtMs', UNIX_TIMESTAMP(r.completed_at) * 1000) ORDER BY r.id DESC)
-    FROM checklist_runs AS r WHERE r.booking_id = b.id AND r.plan_version = b.plan_version) AS runs_json`;
+  ${runSql('pre')},
+  ${runSql('return')}`;
 
 interface DecisionColumns {
   approval_json: unknown;
-  runs_json: unknown;
+  pre_run_json: unknown;
+  return_run_json: unknown;
 }
 
-function decisionsOf(row: Pick<BookingRow, 'plan_version'> & DecisionColumns): Decisions {
-  type StoredApproval = { decision: 'approve' | 'refuse'; officerName: string; conditions: string | null; reason: string | null; decidedAtMs: number; voided: number; planVersion: number };
-  type StoredRun = { phase: 'pre' | 'return'; complete: number; withinLimits: number; completedAtMs: number };
-  const a = row.approval_json === null ? null : json<StoredApproval>(row.approval_json);
-  const runs = row.runs_json === null ? [] : json<StoredRun[]>(row.runs_json);
-  const latest = (phase: 'pre' | 'return'): RunSummary => {
-    const run = runs.find((r) => r.phase === phase);
-    return run ? { complete: Boolean(run.complete), withinLimits: Boolean(run.withinLimits), completedAt: new Date(Number(run.completedAtMs)).toISOString() } : null;
+function decisionsOf(row: DecisionColumns): Decisions {
+  type Stored = { decision: 'approve' | 'refuse'; officerName: string; conditions: string | null; reason: string | null; decidedAtMs: number; voided: number | boolean; planVersion: number; basis: ApprovalBasis | null };
+  type Run = { planVersion: number; withinLimits: number | boolean; completedAtMs: number; answers: ChecklistAnswerRecord[] | string };
+  const a = row.approval_json === null ? null : json<Stored>(row.approval_json);
+  const run = (value: unknown): StoredRun | null => {
+    if (value === null || value === undefined) return null;
+    const r = json<Run>(value);
+    return { planVersion: r.planVersion, withinLimits: Boolean(r.withinLimits), completedAt: new Date(Number(r.completedAtMs)).toISOString(), answers: json<ChecklistAnswerRecord[]>(r.answers) };
   };
   return {
     approval: a && {
       decision: a.decision,
+      planVersion: a.planVersion,
+      voided: Boolean(a.voided),
+      basis: a.basis === null ? null : json<ApprovalBasis>(a.basis),
       officerName: a.officerName,
       conditions: a.conditions,
       reason: a.reason,
       decidedAt: new Date(Number(a.decidedAtMs)).toISOString(),
-      current: !a.voided && a.planVersion === row.plan_version,
     },
-    runs: { pre: latest('pre'), return: latest('return') },
+    runs: { pre: run(row.pre_run_json), return: run(row.return_run_json) },
   };
 }
 
 /** The decisions about a booking locked in this transaction: one query. */
-async function decisionsInTransaction(trx: Trx, row: BookingRow): Promise<Decisions> {
-  const columns = (await trx('bookings as b').where('b.id', row.id).first(trx.raw(DECISIONS_SQL))) as DecisionColumns;
-  return decisionsOf({ ...columns, plan_version: row.plan_version });
+async function decisionsInTransaction(trx: Trx, id: number): Promise<Decisions> {
+  const columns = (await trx('bookings as b').where('b.id', id).first(trx.raw(DECISIONS_SQL))) as DecisionColumns;
+  return decisionsOf(columns);
 }
+
+/** An approval counts for the view while it is an approval of the current plan version that nothing voided. */
+const approvalHolds = (approval: Decisions['approval'], planVersion: number) => Boolean(approval && approval.decision === 'approve' && !approval.voided && approval.planVersion === planVersion);
 
 // The booking's items (summary columns) with whether each was scanned for it, in tag order, as a
 // JSON column of the same query: booking_scans' key is booking + item. DATE values come out as
@@ -173,20 +203,31 @@ const ITEMS_SQL = `
     WHERE bi.booking_id = b.id) AS items_json`;
 
 type BookedItem = Parameters<typeof toItemSummary>[0] & { scanned: boolean | number };
-type ViewRow = BookingRow & DecisionColumns & { person_name: string; items_json: unknown };
+type ViewRow = BookingRow & DecisionColumns & { person_name: string; person_active: boolean; items_json: unknown };
 
 function bookingView(row: ViewRow, templates: readonly TemplateRow[], rules: LabRules): Booking {
   const { approval, runs } = decisionsOf(row);
-  const { pre, return: ret } = runs;
   const plan = planOf(row);
   const itemRows = row.items_json === null ? [] : json<BookedItem[]>(row.items_json);
   const kinds = [...new Set(itemRows.map((i) => i.kind as string))];
+  const checklist = { pre: applicableEntries(templates, 'pre', plan.plannedKv, kinds, rules), return: applicableEntries(templates, 'return', plan.plannedKv, kinds, rules) };
+  const runState = (phase: 'pre' | 'return') => {
+    const run = runs[phase];
+    if (!run) return null;
+    // Counted against the lines in force now: a line added or changed since makes it incomplete.
+    const coverage = checklistCoverage(checklist[phase], run.answers);
+    return { completedAt: run.completedAt, withinLimits: coverage.withinLimits, complete: coverage.complete, gaps: coverage.gaps };
+  };
+  const overdue = isOverdue(row);
+  const bookerActive = Boolean(row.person_active);
   return {
     id: row.id,
     personId: row.person_id,
     personName: row.person_name,
+    bookerActive,
     status: row.status,
-    overdue: isOverdue(row),
+    overdue,
+    needsReturn: row.status === 'released' && (overdue || !bookerActive),
     startsAt: timestampToIso(row.starts_at)!,
     endsAt: timestampToIso(row.ends_at)!,
     location: row.location,
@@ -197,12 +238,17 @@ function bookingView(row: ViewRow, templates: readonly TemplateRow[], rules: Lab
     items: itemRows.map(toItemSummary),
     assessment: json<Assessment>(row.assessment),
     approvalRequired: Boolean(row.approval_required),
-    approval,
-    checklist: { pre: applicableEntries(templates, 'pre', plan.plannedKv, kinds, rules), return: applicableEntries(templates, 'return', plan.plannedKv, kinds, rules) },
-    checklistRuns: {
-      pre: pre ? { completedAt: pre.completedAt, withinLimits: pre.withinLimits } : null,
-      return: ret ? { completedAt: ret.completedAt, withinLimits: ret.withinLimits } : null,
+    approval: approval && {
+      decision: approval.decision,
+      officerName: approval.officerName,
+      conditions: approval.conditions,
+      reason: approval.reason,
+      decidedAt: approval.decidedAt,
+      planVersion: approval.planVersion,
+      current: approvalHolds(approval, row.plan_version),
     },
+    checklist,
+    checklistRuns: { pre: runState('pre'), return: runState('return') },
     scannedItemIds: itemRows.flatMap((i) => (i.scanned ? [i.id] : [])),
     releasedAt: timestampToIso(row.released_at),
     returnedAt: timestampToIso(row.returned_at),
@@ -214,12 +260,12 @@ function bookingView(row: ViewRow, templates: readonly TemplateRow[], rules: Lab
 /** A booking as its page shows it: one query, whatever it holds (checklist lines and lab rules are shared reads). */
 export async function getBooking(db: Db, actor: SessionUser, id: number): Promise<Booking> {
   const [row, templates, rules] = await Promise.all([
-    db('bookings as b').join('people as p', 'p.id', 'b.person_id').where('b.id', id).first('b.*', 'p.name as person_name', db.raw(DECISIONS_SQL), db.raw(ITEMS_SQL)) as Promise<ViewRow | undefined>,
+    db('bookings as b').join('people as p', 'p.id', 'b.person_id').where('b.id', id).first('b.*', 'p.name as person_name', 'p.active as person_active', db.raw(DECISIONS_SQL), db.raw(ITEMS_SQL)) as Promise<ViewRow | undefined>,
     activeTemplates(db),
-    getLabRules(db),
+    getLabRulesState(db),
   ]);
   if (!row || !canSeeBooking(actor, row)) throw new NotFoundError(`No booking with id ${id}.`);
-  return bookingView(row, templates, rules);
+  return bookingView(row, templates, rulesForPerson(rules, row.person_id));
 }
 
 
@@ -310,55 +356,36 @@ export function bookingItemTags(items: readonly { tag: string }[]): string {
   return JSON.stringify(items.map((i) => i.tag).sort());
 }
 
-/** Tags of the items held by another live booking overlapping the window. */
-async function clashingTags(q: Db | Trx, itemIds: number[], startsAt: Date, endsAt: Date, exceptBookingId?: number): Promise<string[]> {
-  const clashes = await q('booking_items as bi')
-    .join('items as i', 'i.id', 'bi.item_id')
-    .whereIn('bi.item_id', itemIds)
-    .andWhere('bi.live', true)
-    .andWhere('bi.starts_at', '<', endsAt)
-    .andWhere('bi.ends_at', '>', startsAt)
-    .modify((b) => {
-      if (exceptBookingId) b.andWhereNot('bi.booking_id', exceptBookingId);
-    })
-    .select<{ tag: string }[]>('i.tag');
-  return [...new Set(clashes.map((c) => c.tag))];
-}
-
-function itemTaken(tags: string[]): ConflictError {
-  return new ConflictError(`Already booked in that window: ${tags.join(', ')}. Pick another time or other gear.`, 'ITEM_TAKEN');
-}
-
-/** Refuses when any item is held by another live booking overlapping the window. Items must be locked. */
-async function assertItemsFree(trx: Trx, items: ItemRow[], startsAt: Date, endsAt: Date, exceptBookingId?: number): Promise<void> {
-  const tags = await clashingTags(trx, items.map((i) => i.id), startsAt, endsAt, exceptBookingId);
-  if (tags.length > 0) throw itemTaken(tags);
-  const retired = items.filter((i) => i.status === 'retired').map((i) => i.tag);
-  if (retired.length > 0) throw new ConflictError(`Retired gear cannot be booked: ${retired.join(', ')}.`, 'ITEM_RETIRED');
-}
-
-function checkWindow(startsAt: Date, endsAt: Date): void {
-  // A few minutes of slack: a booking made at the counter starts "now".
-  if (endsAt.getTime() <= Date.now()) throw new ValidationError('The booking window has already ended.', { endsAt: ['Pick an end in the future'] });
-  if (startsAt.getTime() < Date.now() - 10 * 60_000) throw new ValidationError('The booking cannot start in the past.', { startsAt: ['Pick a start from now on'] });
+function assertWindow(startsAt: Date, endsAt: Date): void {
+  const errors = bookingWindowErrors(startsAt, endsAt, new Date());
+  if (Object.keys(errors).length > 0) throw new ValidationError(Object.values(errors)[0]![0]!, errors);
 }
 
 function statusFor(assessment: Assessment): BookingStatus {
   return assessment.approvalRequired ? 'awaiting-approval' : 'requested';
 }
 
+/**
+ * Voids the booking's standing approval (if any) because what it covered changed, in the
+ * caller's transaction: audited with what changed. The caller bumps the plan version.
+ */
+async function voidApproval(trx: Trx, actorId: number, row: BookingRow, planVersion: number, changes: string[]): Promise<void> {
+  const voided = await trx('approvals').where({ booking_id: row.id }).whereNull('voided_at').update({ voided_at: new Date() });
+  if (voided === 0) return;
+  await appendAudit(trx, { actorId, entity: 'booking', entityId: row.id, action: 'approval.voided', before: { status: row.status, planVersion: row.plan_version }, after: { planVersion, changes } });
+}
+
 export async function createBooking(db: Db, actor: SessionUser, input: BookingCreateInput, mail: MailContext): Promise<Booking> {
   const startsAt = new Date(input.startsAt);
   const endsAt = new Date(input.endsAt);
-  checkWindow(startsAt, endsAt);
+  assertWindow(startsAt, endsAt);
   // A clash already committed is refused without a transaction or a lock: when many people
   // reach for the same gear at once, the losers no longer queue behind the item locks.
-  // The check under lock below still decides every race this one cannot see.
+  // holdItems below still decides every race this one cannot see.
   const taken = await clashingTags(db, input.itemIds, startsAt, endsAt);
   if (taken.length > 0) throw itemTaken(taken);
   const id = await auditedTransaction(db, async (trx) => {
-    const items = await loadItems(trx, [...input.itemIds].sort((a, b) => a - b), true);
-    await assertItemsFree(trx, items, startsAt, endsAt);
+    const items = await holdItems(trx, input.itemIds, { startsAt, endsAt });
     const assessment = await assess(trx, items, input.plan, actor.id);
     const record = {
       person_id: actor.id,
@@ -382,7 +409,7 @@ export async function createBooking(db: Db, actor: SessionUser, input: BookingCr
       entity: 'booking',
       entityId: bookingId,
       action: 'booking.created',
-      after: { status: record.status, itemIds: items.map((i) => i.id), startsAt: input.startsAt, endsAt: input.endsAt, plan: input.plan, approvalReasons: assessment.approvalReasons.map((r) => r.code) },
+      after: { status: record.status, itemIds: items.map((i) => i.id), startsAt: input.startsAt, endsAt: input.endsAt, location: input.location, purpose: input.purpose, plan: input.plan, approvalReasons: assessment.approvalReasons.map((r) => r.code) },
     });
     if (record.status === 'awaiting-approval') await notifyOfficers(trx, bookingId, 1, assessment, mail);
     return bookingId;
@@ -390,25 +417,33 @@ export async function createBooking(db: Db, actor: SessionUser, input: BookingCr
   return getBooking(db, actor, id);
 }
 
+const sameIds = (a: readonly number[], b: readonly number[]) => [...a].sort((x, y) => x - y).join() === [...b].sort((x, y) => x - y).join();
+
 export async function updateBooking(db: Db, actor: SessionUser, id: number, input: BookingUpdateInput, mail: MailContext): Promise<Booking> {
   await auditedTransaction(db, async (trx) => {
     const row = await lockBooking(trx, id);
     if (row.person_id !== actor.id) throw new ForbiddenError('Only the person who booked can change the booking.');
     if (!EDITABLE.includes(row.status)) throw new ConflictError(`A ${row.status} booking cannot be changed.`, 'BOOKING_LOCKED');
+    // The booking row is locked, so its item set cannot change under us.
     const currentItems = (await trx('booking_items').where({ booking_id: id }).select('item_id')).map((r) => r.item_id as number);
     const itemIds = input.itemIds ?? currentItems;
     const startsAt = input.startsAt ? new Date(input.startsAt) : new Date(row.starts_at);
     const endsAt = input.endsAt ? new Date(input.endsAt) : new Date(row.ends_at);
-    if (endsAt <= startsAt) throw new ValidationError('The end must be after the start.', { endsAt: ['The end must be after the start'] });
+    const location = input.location ?? row.location;
+    const purpose = input.purpose ?? row.purpose;
     const plan = input.plan ?? planOf(row);
-    const itemsChanged = input.itemIds !== undefined && [...itemIds].sort().join() !== [...currentItems].sort().join();
+    const itemsChanged = !sameIds(itemIds, currentItems);
     const windowChanged = startsAt.getTime() !== new Date(row.starts_at).getTime() || endsAt.getTime() !== new Date(row.ends_at).getTime();
-    const planChanged = input.plan !== undefined && JSON.stringify(plan) !== JSON.stringify(planOf(row));
-    const bumps = itemsChanged || windowChanged || planChanged;
-    if (windowChanged) checkWindow(startsAt, endsAt);
-
-    const items = await loadItems(trx, [...itemIds].sort((a, b) => a - b), true);
-    if (itemsChanged || windowChanged || row.status === 'refused') await assertItemsFree(trx, items, startsAt, endsAt, id);
+    const planChanged = JSON.stringify(plan) !== JSON.stringify(planOf(row));
+    const detailsChanged = location !== row.location || purpose !== row.purpose;
+    // The merged window is checked exactly as a new booking's would be.
+    if (windowChanged) assertWindow(startsAt, endsAt);
+    // Everything an approval covers bumps the version: an officer's decision binds to one version.
+    const bumps = itemsChanged || windowChanged || planChanged || detailsChanged;
+    const reholds = itemsChanged || windowChanged || row.status === 'refused';
+    const items = reholds
+      ? await holdItems(trx, itemIds, { startsAt, endsAt }, { exceptBookingId: id, lockAlso: currentItems })
+      : await lockItems(trx, itemIds);
     const assessment = await assess(trx, items, plan, row.person_id);
     const status = bumps || row.status === 'refused' ? statusFor(assessment) : row.status;
     const planVersion = bumps ? row.plan_version + 1 : row.plan_version;
@@ -416,8 +451,8 @@ export async function updateBooking(db: Db, actor: SessionUser, id: number, inpu
       status,
       starts_at: startsAt,
       ends_at: endsAt,
-      location: input.location ?? row.location,
-      purpose: input.purpose ?? row.purpose,
+      location,
+      purpose,
       planned_kv: plan.plannedKv,
       polarity: plan.polarity,
       max_current_ma: plan.maxCurrentMa,
@@ -429,11 +464,11 @@ export async function updateBooking(db: Db, actor: SessionUser, id: number, inpu
       updated_at: new Date(),
     });
     if (bumps) {
-      // An approval binds to the plan it was given for; the new plan needs a new decision.
-      await trx('approvals').where({ booking_id: id }).whereNull('voided_at').update({ voided_at: new Date() });
+      const changes = [itemsChanged && 'items', windowChanged && 'window', planChanged && 'plan', location !== row.location && 'location', purpose !== row.purpose && 'purpose'].filter((c): c is string => Boolean(c));
+      await voidApproval(trx, actor.id, row, planVersion, changes);
       await trx('booking_scans').where({ booking_id: id }).whereNotIn('item_id', itemIds).delete();
     }
-    if (itemsChanged || windowChanged || row.status === 'refused') {
+    if (reholds) {
       await trx('booking_items').where({ booking_id: id }).delete();
       await trx('booking_items').insert(items.map((i) => ({ booking_id: id, item_id: i.id, starts_at: startsAt, ends_at: endsAt, live: true })));
     }
@@ -443,7 +478,7 @@ export async function updateBooking(db: Db, actor: SessionUser, id: number, inpu
       entityId: id,
       action: bumps ? 'booking.plan-changed' : 'booking.updated',
       before: { status: row.status, planVersion: row.plan_version, itemIds: currentItems, startsAt: row.starts_at, endsAt: row.ends_at, plan: planOf(row), location: row.location, purpose: row.purpose },
-      after: { status, planVersion, itemIds, startsAt, endsAt, plan, location: input.location ?? row.location, purpose: input.purpose ?? row.purpose },
+      after: { status, planVersion, itemIds, startsAt, endsAt, plan, location, purpose },
     });
     if (status === 'awaiting-approval' && (bumps || row.status === 'refused')) await notifyOfficers(trx, id, planVersion, assessment, mail);
   });
@@ -467,7 +502,7 @@ export async function decideApproval(
   db: Db,
   actor: SessionUser,
   id: number,
-  input: { decision: 'approve' | 'refuse'; conditions?: string; reason?: string },
+  input: { decision: 'approve' | 'refuse'; planVersion?: number; conditions?: string; reason?: string },
   mail: MailContext,
 ): Promise<Booking> {
   await auditedTransaction(db, async (trx) => {
@@ -475,6 +510,15 @@ export async function decideApproval(
     // Nobody approves their own test, whatever their role.
     if (row.person_id === actor.id) throw new ForbiddenError('You cannot decide on your own booking; another officer must.');
     if (row.status !== 'awaiting-approval') throw new ConflictError(`Only bookings awaiting approval can be decided; this one is ${row.status}.`, 'NOT_AWAITING_APPROVAL');
+    // The decision binds to the version the officer read, never to whatever is current at the click.
+    if (input.planVersion !== undefined && input.planVersion !== row.plan_version) {
+      throw new ConflictError(`The plan changed while you were reviewing it (version ${input.planVersion} → ${row.plan_version}). Read it again before deciding.`, 'PLAN_CHANGED');
+    }
+    // What the officer approves, recorded as it stands under the locks: release compares it with the booking then.
+    const itemIds = (await trx('booking_items').where({ booking_id: id }).select('item_id')).map((r) => r.item_id as number);
+    const items = await lockItems(trx, itemIds);
+    const assessment = await assess(trx, items, planOf(row), row.person_id);
+    const basis = basisOf(rowBasisInput(row), items, assessment);
     await trx('approvals').insert({
       booking_id: id,
       officer_id: actor.id,
@@ -482,6 +526,7 @@ export async function decideApproval(
       conditions: input.conditions || null,
       reason: input.reason || null,
       plan_version: row.plan_version,
+      basis: JSON.stringify(basis),
     });
     const status: BookingStatus = input.decision === 'approve' ? 'approved' : 'refused';
     await trx('bookings').where({ id }).update({ status, updated_at: new Date() });
@@ -492,7 +537,7 @@ export async function decideApproval(
       entityId: id,
       action: input.decision === 'approve' ? 'approval.granted' : 'approval.refused',
       before: { status: row.status },
-      after: { status, planVersion: row.plan_version, conditions: input.conditions ?? null, reason: input.reason ?? null },
+      after: { status, planVersion: row.plan_version, conditions: input.conditions ?? null, reason: input.reason ?? null, basis },
     });
     const facts = await factsFor(trx, id);
     const note = (input.decision === 'approve' ? input.conditions : input.reason) || null;
@@ -512,7 +557,7 @@ export async function recordScan(db: Db, actor: SessionUser, id: number, tag: st
       .leftJoin('booking_scans as bs', (j) => j.on('bs.item_id', 'i.id').andOnVal('bs.booking_id', id))
       .where('i.tag', tag.trim().toUpperCase())
       .first('i.id', 'i.tag', 'bi.item_id as booked', 'bs.item_id as scanned')) as { id: number; tag: string; booked: number | null; scanned: number | null } | undefined;
-    if (!item) throw new NotFoundError(`No item carries the tag ${tag}.`);
+    if (!item) throw new NotFoundError(`No gear carries the tag ${tag}.`);
     if (item.booked === null) throw new AppError(409, 'ITEM_NOT_IN_BOOKING', `${item.tag} is not part of this booking. Put it back and scan the booked gear.`);
     if (item.scanned === null) {
       await trx('booking_scans').insert({ booking_id: id, item_id: item.id, scanned_by: actor.id });
@@ -530,7 +575,7 @@ export async function submitChecklist(db: Db, actor: SessionUser, id: number, in
     if (input.phase === 'return' && row.status !== 'released') throw new ConflictError('The make-safe checklist is for returning released gear.', 'BOOKING_LOCKED');
     const [templates, rules, kinds] = await Promise.all([
       activeTemplates(trx),
-      getLabRules(trx),
+      labRulesFor(trx, row.person_id),
       trx('booking_items as bi').join('items as i', 'i.id', 'bi.item_id').where('bi.booking_id', id).distinct('i.kind'),
     ]);
     const entries = applicableEntries(templates, input.phase, Number(row.planned_kv), kinds.map((k: { kind: ItemKind }) => k.kind), rules);
@@ -556,34 +601,50 @@ export async function submitChecklist(db: Db, actor: SessionUser, id: number, in
   return getBooking(db, actor, id);
 }
 
+/** The lines of a phase that apply to a booking now, from its plan and the kinds of its items. */
+function entriesFor(templates: readonly TemplateRow[], phase: 'pre' | 'return', row: BookingRow, items: readonly { kind: ItemKind }[], rules: LabRules) {
+  return applicableEntries(templates, phase, Number(row.planned_kv), [...new Set(items.map((i) => i.kind))], rules);
+}
+
 export async function releaseBooking(db: Db, actor: SessionUser, id: number, now = new Date()): Promise<Booking> {
   await auditedTransaction(db, async (trx) => {
     const row = await lockBooking(trx, id);
     assertCounterAccess(actor, row);
     const itemIds = (await trx('booking_items').where({ booking_id: id }).orderBy('item_id').select('item_id')).map((r) => r.item_id as number);
-    const items = await loadItems(trx, itemIds, true);
-    const rules = await getLabRules(trx);
-    // Recomputed now, from the gear's and the member's state at this moment: the stored
-    // assessment may be days old.
+    const items = await lockItems(trx, itemIds);
+    // Everything below is read under the booking and item locks, at READ COMMITTED: the gear, the
+    // person, the rules and the lines as they are at this moment, not as they were when booked.
+    const [rules, templates, booker, scans, { approval, runs }, clashes] = await Promise.all([
+      labRulesFor(trx, row.person_id),
+      activeTemplates(trx),
+      trx('people').where({ id: row.person_id }).first('active'),
+      trx('booking_scans').where({ booking_id: id }).select('item_id'),
+      decisionsInTransaction(trx, id),
+      clashingTags(trx, itemIds, new Date(row.starts_at), new Date(row.ends_at), id),
+    ]);
     const assessment = await assess(trx, items, planOf(row), row.person_id, rules);
-    const [scans, { approval, runs }] = await Promise.all([trx('booking_scans').where({ booking_id: id }).select('item_id'), decisionsInTransaction(trx, row)]);
-    const pre = runs.pre;
+    const basis = basisOf(rowBasisInput(row), items, assessment);
     const failures = releaseFailures({
       status: row.status,
-      approvalRequired: assessment.approvalRequired,
-      approvalCurrent: Boolean(approval?.current && approval.decision === 'approve'),
+      bookerActive: Boolean(booker?.active),
       now,
       startsAt: new Date(row.starts_at),
       endsAt: new Date(row.ends_at),
       earlyPickupMin: rules.earlyPickupMin,
+      planVersion: row.plan_version,
       itemIds,
       scannedItemIds: scans.map((s: { item_id: number }) => s.item_id),
       assessment,
-      checklist: pre,
+      basis,
+      approval,
+      checklistEntries: entriesFor(templates, 'pre', row, items, rules),
+      checklist: runs.pre,
+      clashingTags: clashes,
     });
     if (failures.length > 0) {
       throw new ConflictError(`Release refused: ${failures.length} rule${failures.length === 1 ? '' : 's'} not met.`, 'RELEASE_REFUSED', failures);
     }
+    const approvedBy = approval && approvalStanding(approval, row.plan_version, basis).current ? { officer: approval.officerName, conditions: approval.conditions } : null;
     await trx('bookings').where({ id }).update({ status: 'released', released_at: now, assessment: JSON.stringify(assessment), approval_required: assessment.approvalRequired, updated_at: new Date() });
     await appendAudit(trx, {
       actorId: actor.id,
@@ -591,7 +652,7 @@ export async function releaseBooking(db: Db, actor: SessionUser, id: number, now
       entityId: id,
       action: 'booking.released',
       before: { status: row.status },
-      after: { status: 'released', planVersion: row.plan_version, plannedKv: Number(row.planned_kv), itemIds, approval: approval ? { officer: approval.officerName, conditions: approval.conditions } : null },
+      after: { status: 'released', planVersion: row.plan_version, plannedKv: Number(row.planned_kv), itemIds, approval: approvedBy, basis, rules },
     });
   });
   return getBooking(db, actor, id);
@@ -605,13 +666,11 @@ export async function returnBooking(db: Db, actor: SessionUser, id: number, inpu
     const itemIds = (await trx('booking_items').where({ booking_id: id }).orderBy('item_id').select('item_id')).map((r) => r.item_id as number);
     const stray = input.damagedItemIds.filter((d) => !itemIds.includes(d));
     if (stray.length > 0) throw new ValidationError(`Items ${stray.join(', ')} are not part of this booking.`, { damagedItemIds: ['Only items of this booking'] });
-    const run = (await decisionsInTransaction(trx, row)).runs.return;
-    const failures: { rule: string; message: string }[] = [];
-    if (!run) failures.push({ rule: 'make-safe-checklist', message: 'Complete the make-safe checklist first.' });
-    else if (!run.withinLimits) failures.push({ rule: 'make-safe-checklist', message: 'A make-safe reading is outside its limits (e.g. residual voltage above the safe level): ground the output again and measure.' });
+    const items = await lockItems(trx, itemIds);
+    const [rules, templates, { runs }] = await Promise.all([labRulesFor(trx, row.person_id), activeTemplates(trx), decisionsInTransaction(trx, id)]);
+    const failures = returnFailures({ status: row.status, planVersion: row.plan_version, checklistEntries: entriesFor(templates, 'return', row, items, rules), checklist: runs.return });
     if (failures.length > 0) throw new ConflictError('Return refused: the gear is not yet made safe.', 'RETURN_REFUSED', failures);
 
-    await trx('items').whereIn('id', itemIds).orderBy('id').forUpdate().select('id');
     for (const itemId of input.damagedItemIds) {
       await trx('incidents').insert({ booking_id: id, item_id: itemId, kind: 'damage', description: input.notes, reported_by: actor.id });
       await tagOutInTransaction(trx, actor.id, itemId, `Damaged on return of booking ${id}: ${input.notes}`, 'item.tagged-out-at-return');
@@ -629,6 +688,72 @@ export async function returnBooking(db: Db, actor: SessionUser, id: number, inpu
     });
   });
   return getBooking(db, actor, id);
+}
+
+/**
+ * An item's ratings changed (server/services/items.ts, in its transaction, with the item row
+ * locked): every booking that holds it and is not yet released is assessed again under a new plan
+ * version, so an officer's approval or a checklist answered for the old figures no longer counts
+ * and an officer reviewing the booking must read it again.
+ */
+export async function replanBookingsHolding(trx: Trx, actor: SessionUser, itemId: number, mail: MailContext): Promise<number[]> {
+  const affected = await trx('booking_items as bi')
+    .join('bookings as b', 'b.id', 'bi.booking_id')
+    .where('bi.item_id', itemId)
+    .andWhere('bi.live', true)
+    .whereIn('b.status', PRE_RELEASE)
+    .orderBy('b.id')
+    .pluck('b.id');
+  for (const bookingId of affected as number[]) {
+    // Booking rows after the item row here; release takes them the other way round, and a
+    // deadlock between the two is retried (server/services/audit.ts).
+    const row = await lockBooking(trx, bookingId);
+    if (!PRE_RELEASE.includes(row.status)) continue;
+    const itemIds = (await trx('booking_items').where({ booking_id: bookingId }).select('item_id')).map((r) => r.item_id as number);
+    const items = await lockItems(trx, itemIds);
+    const assessment = await assess(trx, items, planOf(row), row.person_id);
+    const status = statusFor(assessment);
+    const planVersion = row.plan_version + 1;
+    await trx('bookings').where({ id: bookingId }).update({ status, plan_version: planVersion, assessment: JSON.stringify(assessment), approval_required: assessment.approvalRequired, updated_at: new Date() });
+    await voidApproval(trx, actor.id, row, planVersion, [`item ${itemId} ratings`]);
+    await appendAudit(trx, {
+      actorId: actor.id,
+      entity: 'booking',
+      entityId: bookingId,
+      action: 'booking.gear-changed',
+      before: { status: row.status, planVersion: row.plan_version },
+      after: { status, planVersion, itemId },
+    });
+    if (status === 'awaiting-approval') await notifyOfficers(trx, bookingId, planVersion, assessment, mail);
+  }
+  return affected as number[];
+}
+
+/**
+ * A person was deactivated (in the caller's transaction, person row locked): their bookings not
+ * yet released are cancelled, and officers are told once. Gear already out stays out until it is
+ * returned; the booking shows it as needing return.
+ */
+export async function cancelOpenBookingsOf(trx: Trx, actor: SessionUser, personId: number, mail: MailContext): Promise<number[]> {
+  const open = (await trx('bookings').where({ person_id: personId }).whereIn('status', EDITABLE).orderBy('id').pluck('id')) as number[];
+  const cancelled: number[] = [];
+  for (const bookingId of open) {
+    const row = await lockBooking(trx, bookingId);
+    if (!EDITABLE.includes(row.status)) continue;
+    await trx('bookings').where({ id: bookingId }).update({ status: 'cancelled', cancelled_at: new Date(), updated_at: new Date() });
+    await trx('booking_items').where({ booking_id: bookingId }).update({ live: false });
+    await appendAudit(trx, { actorId: actor.id, entity: 'booking', entityId: bookingId, action: 'booking.cancelled-on-deactivation', before: { status: row.status }, after: { status: 'cancelled', personId } });
+    cancelled.push(bookingId);
+  }
+  if (cancelled.length > 0) {
+    const person = await trx('people').where({ id: personId }).first('name');
+    const officers = await trx('people').where({ role: 'officer', active: true }).whereNot('id', personId).select('id', 'email');
+    const content = messages.bookingsCancelledOnDeactivation(mail.publicUrl, String(person?.name ?? `Person ${personId}`), cancelled);
+    for (const officer of officers) {
+      await enqueueMail(trx, { kind: 'bookings-cancelled', to: officer.email, dedupeKey: `deactivated:${personId}:${cancelled.join('-')}:${officer.id}`, ...content });
+    }
+  }
+  return cancelled;
 }
 
 /** An item's booking history for its page (newest first). */

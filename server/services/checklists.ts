@@ -91,7 +91,7 @@ export function evaluateAnswers(entries: ChecklistEntry[], answers: ChecklistSub
       (fieldErrors[key] ??= []).push('That photo was not taken for this booking: attach the photo again.');
     }
     if (entry.kind !== 'photo' && answer?.fileId !== undefined) (fieldErrors[key] ??= []).push('This line takes no photo.');
-    snapshot.push({ id: entry.id, text: entry.text, kind: entry.kind, unit: entry.unit, min: entry.min, max: entry.max, confirmed: answer?.confirmed, value: answer?.value, fileId: answer?.fileId, withinLimits: inside });
+    snapshot.push({ id: entry.id, text: entry.text, kind: entry.kind, unit: entry.unit, min: entry.min, max: entry.max, required: entry.required, confirmed: answer?.confirmed, value: answer?.value, fileId: answer?.fileId, withinLimits: inside });
   }
   if (Object.keys(fieldErrors).length > 0) throw new ValidationError('The checklist is not complete.', fieldErrors);
   return { complete: true, withinLimits, snapshot };

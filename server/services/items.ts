@@ -24,60 +24,15 @@ import { isDuplicateKey, type Db, type Trx } from '../db';
 import { ConflictError, NotFoundError, ValidationError } from '../errors';
 import { validate } from '../middleware/validate';
 import { appendAudit, auditedTransaction } from './audit';
-import { addDaysIso, dateColumnToIso, timestampToIso, todayIso } from './dates';
+import { addDaysIso, dateColumnToIso, isoOfMillis, timestampToIso, todayIso } from './dates';
+import { replanBookingsHolding, type MailContext } from './bookings';
 import { searchWords, updateTermsDueDate, writeItemTerms } from './item-terms';
+import { lockItem, SUMMARY_COLUMNS, tagOutInTransaction, toItemSummary, type ItemRow } from './item-rows';
 
-export interface ItemRow {
-  id: number;
-  tag: string;
-  kind: ItemKind;
-  name: string;
-  make: string;
-  model: string;
-  serial: string;
-  location: string;
-  notes: string;
-  ratings: unknown;
-  rated_kv: number | null;
-  status: ItemStatus;
-  status_reason: string | null;
-  inspection_interval_days: number;
-  last_inspected_on: string | null;
-  next_inspection_due: string | null;
-  photo_file_id: number | null;
-  status_changed_at: Date | null;
-  last_inspection_result: 'pass' | 'fail' | null;
-  created_at: Date;
-  updated_at: Date;
-}
-
-const SUMMARY_COLUMNS = ['id', 'tag', 'kind', 'name', 'status', 'status_reason', 'rated_kv', 'location', 'next_inspection_due'] as const;
-
-export function inspectionStateOf(nextDue: string | null, today = todayIso()): InspectionState {
-  if (!nextDue) return 'never';
-  if (nextDue < today) return 'overdue';
-  if (nextDue <= addDaysIso(today, DUE_SOON_DAYS)) return 'due-soon';
-  return 'current';
-}
+export { inspectionStateOf, toItemSummary, type ItemRow } from './item-rows';
 
 function parseRatings(value: unknown): ItemRatings['ratings'] {
   return (typeof value === 'string' ? JSON.parse(value) : value) as ItemRatings['ratings'];
-}
-
-export function toItemSummary(row: Pick<ItemRow, (typeof SUMMARY_COLUMNS)[number]>): ItemSummary {
-  const nextDue = dateColumnToIso(row.next_inspection_due);
-  return {
-    id: row.id,
-    tag: row.tag,
-    kind: row.kind,
-    name: row.name,
-    status: row.status,
-    statusReason: row.status_reason,
-    ratedKv: row.rated_kv === null ? null : Number(row.rated_kv),
-    location: row.location,
-    nextInspectionDue: nextDue,
-    inspectionState: inspectionStateOf(nextDue),
-  };
 }
 
 export function toItem(row: ItemRow, publicUrl: string): Item {
@@ -110,11 +65,6 @@ async function issueTag(trx: Trx, kind: ItemKind): Promise<string> {
   return `${code}-${String(row!.last_value).padStart(4, '0')}`;
 }
 
-async function lockItem(trx: Trx, id: number): Promise<ItemRow> {
-  const row = await trx<ItemRow>('items').where({ id }).forUpdate().first();
-  if (!row) throw new NotFoundError(`No item with id ${id}.`);
-  return row;
-}
 
 export async function getItem(db: Db, id: number): Promise<ItemRow> {
   const row = await db<ItemRow>('items').where({ id }).first();
@@ -173,7 +123,7 @@ function auditView(row: ItemRow) {
   };
 }
 
-export async function updateItem(db: Db, actor: SessionUser, id: number, input: ItemUpdateInput): Promise<ItemRow> {
+export async function updateItem(db: Db, actor: SessionUser, id: number, input: ItemUpdateInput, mail: MailContext): Promise<ItemRow> {
   return auditedTransaction(db, async (trx) => {
     const before = await lockItem(trx, id);
     if (before.status === 'retired') throw new ConflictError(`${before.tag} is retired; retired gear cannot be changed.`, 'ITEM_RETIRED');
@@ -191,10 +141,17 @@ export async function updateItem(db: Db, actor: SessionUser, id: number, input: 
       changes.rated_kv = ratedKvOf({ kind: before.kind, ratings } as ItemRatings);
     }
     if (input.status === 'in-service' && before.status === 'out-of-service') {
-      // Lockout/tagout practice: a tag comes off after the item is inspected and passes.
+      // Lockout/tagout practice: a tag comes off after the item is inspected and passes. The
+      // inspection must be recorded after the tag-out and carried out on or after its day (an
+      // old inspection entered late is no evidence), and not dated in the future.
       const since = before.status_changed_at ?? new Date(0);
-      const passed = await trx('inspections').where({ item_id: id, result: 'pass' }).andWhere('created_at', '>=', since).first('id');
-      if (!passed) throw new ConflictError(`${before.tag} is tagged out: record a passing inspection before clearing it.`, 'INSPECTION_REQUIRED');
+      const passed = await trx('inspections')
+        .where({ item_id: id, result: 'pass' })
+        .andWhere('created_at', '>=', since)
+        .andWhere('inspected_on', '>=', isoOfMillis(new Date(since).getTime()).slice(0, 10))
+        .andWhere('inspected_on', '<=', todayIso())
+        .first('id');
+      if (!passed) throw new ConflictError(`${before.tag} is tagged out: record a passing inspection carried out since the tag-out before clearing it.`, 'INSPECTION_REQUIRED');
     }
     if (input.status !== undefined && input.status !== before.status) {
       changes.status = input.status;
@@ -205,27 +162,17 @@ export async function updateItem(db: Db, actor: SessionUser, id: number, input: 
     }
     await trx('items').where({ id }).update(changes);
     const after = await lockItem(trx, id);
+    // New ratings change what every open booking of the item means: each is assessed again
+    // under a new plan version, voiding an approval given for the old figures.
+    if (changes.ratings !== undefined && changes.ratings !== JSON.stringify(typeof before.ratings === 'string' ? JSON.parse(before.ratings) : before.ratings)) {
+      await replanBookingsHolding(trx, actor, id, mail);
+    }
     // Name, make, model, serial, location and rating can all change what the item is found by.
     await writeItemTerms(trx, after);
     const action =
       changes.status === 'out-of-service' ? 'item.tagged-out' : changes.status === 'in-service' ? 'item.cleared' : changes.status === 'retired' ? 'item.retired' : 'item.updated';
     await appendAudit(trx, { actorId: actor.id, entity: 'item', entityId: id, action, before: auditView(before), after: auditView(after) });
     return after;
-  });
-}
-
-/** Tags an item out of service inside a caller's transaction (failed inspection, damage at return). */
-export async function tagOutInTransaction(trx: Trx, actorId: number, id: number, reason: string, action = 'item.tagged-out'): Promise<void> {
-  const before = await lockItem(trx, id);
-  if (before.status === 'retired') return;
-  await trx('items').where({ id }).update({ status: 'out-of-service', status_reason: reason.slice(0, 500), status_changed_at: new Date(), updated_at: new Date() });
-  await appendAudit(trx, {
-    actorId,
-    entity: 'item',
-    entityId: id,
-    action,
-    before: { status: before.status, statusReason: before.status_reason },
-    after: { status: 'out-of-service', statusReason: reason.slice(0, 500) },
   });
 }
 

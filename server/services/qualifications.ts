@@ -1,7 +1,7 @@
 import type { Qualification, QualificationInput } from '../../shared/schemas/bookings';
 import type { SessionUser } from '../../shared/schemas/session';
 import type { Db, Trx } from '../db';
-import { NotFoundError } from '../errors';
+import { ForbiddenError, NotFoundError } from '../errors';
 import { appendAudit, auditedTransaction } from './audit';
 import { dateColumnToIso, timestampToIso } from './dates';
 
@@ -19,6 +19,8 @@ export async function getQualification(db: Db | Trx, personId: number): Promise<
 }
 
 export async function setQualification(db: Db, actor: SessionUser, personId: number, input: QualificationInput): Promise<Qualification> {
+  // A qualification decides whether a test needs an officer: nobody decides their own.
+  if (personId === actor.id) throw new ForbiddenError('Nobody records or changes their own qualification; ask another officer.');
   await auditedTransaction(db, async (trx) => {
     const person = await trx('people').where({ id: personId }).forUpdate().first('id');
     if (!person) throw new NotFoundError(`No person with id ${personId}.`);

@@ -1,7 +1,7 @@
 // The setup assessment: what a planned test with a set of gear means in volts, joules, seconds and
 // metres, and whether a safety officer must approve it. Pure: the app runs it as the member types;
 // the server runs the same code and stores the result with the booking.
-import { approachBoundaries, classifyHazardousLive, dischargePlan, HvInputError, multiplierOutput, ratingMargin } from '../hv';
+import { approachBoundaries, classifyHazardousLive, dischargePlan, HvInputError, multiplierOutput, ratingMargin, storedEnergyJ as capacitorEnergyJ } from '../hv';
 import type { ItemKind } from '../schemas/items';
 import type { LabRules, TestPlan } from '../schemas/bookings';
 
@@ -73,7 +73,9 @@ function qualificationReason(plannedKv: number, qualification: QualificationStat
 export function assessSetup(input: { items: AssessedItem[]; plan: TestPlan; rules: LabRules; qualification: QualificationState | null; today: string }): Assessment {
   const { items, plan, rules, today } = input;
   const plannedV = plan.plannedKv * 1000;
-  const requiredKv = plan.plannedKv * (1 + rules.ratingMarginPct / 100);
+  // One comparison for every rating in the set, with the margin and tolerance of shared/hv.
+  const marginFor = (ratedKv: number) => ratingMargin({ ratedKv, plannedKv: plan.plannedKv, marginPct: rules.ratingMarginPct });
+  const requiredKv = marginFor(0).requiredKv;
   const cautions: string[] = [];
 
   const itemChecks: ItemCheck[] = items.map((item) => {
@@ -83,7 +85,7 @@ export function assessSetup(input: { items: AssessedItem[]; plan: TestPlan; rule
     if (item.ratedKv === null) {
       notes.push('No voltage rating: keep it out of the high-voltage circuit.');
     } else {
-      const margin = ratingMargin({ ratedKv: item.ratedKv, plannedKv: plan.plannedKv, marginPct: rules.ratingMarginPct });
+      const margin = marginFor(item.ratedKv);
       ratingOk = margin.ok;
       marginKv = margin.marginKv;
       if (!margin.ok) notes.push(`Rated ${item.ratedKv} kV; the plan needs at least ${margin.requiredKv.toFixed(1)} kV with the lab's ${rules.ratingMarginPct} % margin.`);
@@ -96,7 +98,7 @@ export function assessSetup(input: { items: AssessedItem[]; plan: TestPlan; rule
   });
 
   // Companions the set must carry, rated for the plan with the margin.
-  const ratedFor = (kind: ItemKind) => items.some((i) => i.kind === kind && i.ratedKv !== null && i.ratedKv >= requiredKv - 1e-9);
+  const ratedFor = (kind: ItemKind) => items.some((i) => i.kind === kind && i.ratedKv !== null && marginFor(i.ratedKv).ok);
   const missingCompanions: Reason[] = [];
   if (!ratedFor('grounding-stick')) missingCompanions.push({ code: 'grounding-stick', message: `Add a grounding stick rated for at least ${requiredKv.toFixed(1)} kV.` });
   if (!ratedFor('isolation-stand')) missingCompanions.push({ code: 'isolation-stand', message: `Add an isolation stand rated for at least ${requiredKv.toFixed(1)} kV.` });
@@ -116,7 +118,7 @@ export function assessSetup(input: { items: AssessedItem[]; plan: TestPlan; rule
     const r = item.ratings;
     if (item.kind === 'hv-supply') {
       const c = (num(r.outputCapacitanceNf) ?? 0) * 1e-9;
-      storedEnergyJ += 0.5 * c * plannedV * plannedV;
+      storedEnergyJ += capacitorEnergyJ({ capacitanceF: c, voltageV: plannedV });
       outputCapacitanceF += c;
       availableA = Math.max(availableA, (num(r.maxMa) ?? 0) / 1000);
       sourcePeakKv = Math.max(sourcePeakKv, num(r.maxKv) ?? 0);

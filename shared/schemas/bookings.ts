@@ -1,7 +1,15 @@
 // Booking payloads, lab rules and qualifications: one schema each, for the form and the API.
 import { z } from 'zod';
 import type { Assessment } from '../rules/assessment';
+import { BOOKING_WINDOW } from '../rules/booking-window';
 import { polaritySchema, type ItemSummary } from './items';
+
+/**
+ * A number with at most `places` decimals: the schema refuses what the database column would
+ * round, so a value is stored exactly as it was assessed (15.004 kV is not silently 15 kV).
+ */
+export const decimalNumber = (places: number) =>
+  z.number().refine((v) => Number(v.toFixed(places)) === v, { message: places === 0 ? 'Use a whole number' : `Use at most ${places} decimal place${places === 1 ? '' : 's'}` });
 
 export const BOOKING_STATUSES = ['requested', 'awaiting-approval', 'approved', 'refused', 'released', 'returned', 'cancelled'] as const;
 export type BookingStatus = (typeof BOOKING_STATUSES)[number];
@@ -10,9 +18,10 @@ export const LIVE_STATUSES: BookingStatus[] = ['requested', 'awaiting-approval',
 
 export const testPlanSchema = z
   .object({
-    plannedKv: z.number().min(0.05, 'At least 0.05 kV').max(300, 'At most 300 kV'),
+    // Columns: planned_kv DECIMAL(7,2), max_current_ma DECIMAL(10,3).
+    plannedKv: decimalNumber(2).min(0.05, 'At least 0.05 kV').max(300, 'At most 300 kV'),
     polarity: polaritySchema,
-    maxCurrentMa: z.number().min(0).max(10_000),
+    maxCurrentMa: decimalNumber(3).min(0, 'At least 0 mA').max(10_000, 'At most 10 000 mA'),
     peoplePresent: z.number().int().min(1, 'Count yourself').max(50),
   })
   .strict();
@@ -23,34 +32,39 @@ const isoTime = z.iso.datetime({ offset: true, message: 'Use an ISO date and tim
 
 const windowRefine = <T extends { startsAt?: string; endsAt?: string }>(v: T) => !v.startsAt || !v.endsAt || new Date(v.endsAt) > new Date(v.startsAt);
 
+// The fields of a booking, shared by a new booking and a change to one so that both accept
+// exactly the same values; the window as a whole is checked by shared/rules/booking-window.ts
+// (here for the form, and on the server against its own clock for the merged window of a change).
+const bookingFields = {
+  itemIds,
+  startsAt: isoTime,
+  endsAt: isoTime,
+  location: z.string().trim().min(1, 'Which bench or bay?').max(120, 'At most 120 characters'),
+  purpose: z.string().trim().min(3, 'Say what the test is for').max(500, 'At most 500 characters'),
+  plan: testPlanSchema,
+};
+
+const maxLengthMs = BOOKING_WINDOW.maxLengthDays * 24 * 3600_000;
+const windowLengthRefine = <T extends { startsAt?: string; endsAt?: string }>(v: T) =>
+  !v.startsAt || !v.endsAt || new Date(v.endsAt).getTime() - new Date(v.startsAt).getTime() <= maxLengthMs;
+const distinctItems = <T extends { itemIds?: number[] }>(v: T) => !v.itemIds || new Set(v.itemIds).size === v.itemIds.length;
+
 export const bookingCreateSchema = z
-  .object({
-    itemIds,
-    startsAt: isoTime,
-    endsAt: isoTime,
-    location: z.string().trim().min(1, 'Which bench or bay?').max(120),
-    purpose: z.string().trim().min(3, 'Say what the test is for').max(500),
-    plan: testPlanSchema,
-  })
+  .object(bookingFields)
   .strict()
   .refine(windowRefine, { message: 'The end must be after the start', path: ['endsAt'] })
-  .refine((v) => new Date(v.endsAt).getTime() - new Date(v.startsAt).getTime() <= 14 * 24 * 3600_000, { message: 'A booking can last at most 14 days', path: ['endsAt'] })
-  .refine((v) => new Set(v.itemIds).size === v.itemIds.length, { message: 'An item is listed twice', path: ['itemIds'] });
+  .refine(windowLengthRefine, { message: `A booking can last at most ${BOOKING_WINDOW.maxLengthDays} days`, path: ['endsAt'] })
+  .refine(distinctItems, { message: 'An item is listed twice', path: ['itemIds'] });
 export type BookingCreateInput = z.infer<typeof bookingCreateSchema>;
 
 export const bookingUpdateSchema = z
-  .object({
-    itemIds: itemIds.optional(),
-    startsAt: isoTime.optional(),
-    endsAt: isoTime.optional(),
-    location: z.string().trim().min(1).max(120).optional(),
-    purpose: z.string().trim().min(3).max(500).optional(),
-    plan: testPlanSchema.optional(),
-  })
+  .object(bookingFields)
+  .partial()
   .strict()
   .refine((v) => Object.keys(v).length > 0, 'Nothing to change')
   .refine(windowRefine, { message: 'The end must be after the start', path: ['endsAt'] })
-  .refine((v) => !v.itemIds || new Set(v.itemIds).size === v.itemIds.length, { message: 'An item is listed twice', path: ['itemIds'] });
+  .refine(windowLengthRefine, { message: `A booking can last at most ${BOOKING_WINDOW.maxLengthDays} days`, path: ['endsAt'] })
+  .refine(distinctItems, { message: 'An item is listed twice', path: ['itemIds'] });
 export type BookingUpdateInput = z.infer<typeof bookingUpdateSchema>;
 
 export const bookingListQuerySchema = z
@@ -70,11 +84,14 @@ export const assessmentRequestSchema = z
 export const approvalDecisionSchema = z
   .object({
     decision: z.enum(['approve', 'refuse']),
+    /** The plan version the officer had on screen; required to approve (POST /api/bookings/:id/approval). */
+    planVersion: z.number().int().positive().optional(),
     conditions: z.string().trim().max(1000).optional(),
     reason: z.string().trim().max(1000).optional(),
   })
   .strict()
-  .refine((v) => v.decision !== 'refuse' || (v.reason ?? '').length > 0, { message: 'Say why the test is refused', path: ['reason'] });
+  .refine((v) => v.decision !== 'refuse' || (v.reason ?? '').length > 0, { message: 'Say why the test is refused', path: ['reason'] })
+  .refine((v) => v.decision !== 'approve' || v.planVersion !== undefined, { message: 'Approve the plan version you reviewed', path: ['planVersion'] });
 
 export const scanSchema = z.object({ tag: z.string().trim().min(1).max(40) }).strict();
 
@@ -107,11 +124,12 @@ export const returnSchema = z
 
 export const labRulesSchema = z
   .object({
-    approvalKv: z.number().min(0).max(300),
-    energyThresholdJ: z.number().min(0).max(10_000),
-    ratingMarginPct: z.number().min(0).max(200),
-    interlockKv: z.number().min(0).max(300),
-    safeResidualV: z.number().min(1).max(1000),
+    // Columns: DECIMAL(7,2), (12,4), (6,2), (7,2), (8,2).
+    approvalKv: decimalNumber(2).min(0).max(300),
+    energyThresholdJ: decimalNumber(4).min(0).max(10_000),
+    ratingMarginPct: decimalNumber(2).min(0).max(200),
+    interlockKv: decimalNumber(2).min(0).max(300),
+    safeResidualV: decimalNumber(2).min(1).max(1000),
     earlyPickupMin: z.number().int().min(0).max(24 * 60),
     overdueGraceMin: z.number().int().min(0).max(7 * 24 * 60),
   })
@@ -120,7 +138,7 @@ export type LabRules = z.infer<typeof labRulesSchema>;
 
 export const qualificationSchema = z
   .object({
-    authorisedKv: z.number().min(0).max(300),
+    authorisedKv: decimalNumber(2).min(0).max(300),
     expiresOn: z.iso.date(),
     notes: z.string().trim().max(500).default(''),
   })
@@ -143,12 +161,12 @@ export const checklistTemplateItemSchema = z
     kind: z.enum(CHECKLIST_KINDS),
     text: z.string().trim().min(3).max(300),
     unit: z.string().trim().max(20).nullable().default(null),
-    min: z.number().nullable().default(null),
-    max: z.number().nullable().default(null),
+    min: decimalNumber(4).min(-1e9).max(1e9).nullable().default(null),
+    max: decimalNumber(4).min(-1e9).max(1e9).nullable().default(null),
     /** The upper limit comes from a lab rule instead of a fixed number. */
     maxFromRule: z.enum(['safeResidualV']).nullable().default(null),
     required: z.boolean().default(true),
-    appliesFromKv: z.number().min(0).max(300).nullable().default(null),
+    appliesFromKv: decimalNumber(2).min(0).max(300).nullable().default(null),
     appliesWithKind: z.string().max(30).nullable().default(null),
     position: z.number().int().min(0).max(1000).default(0),
   })
@@ -191,6 +209,8 @@ export interface ChecklistAnswerRecord {
   unit?: string;
   min?: number;
   max?: number;
+  /** Whether the line was required when answered (absent on runs recorded before it was kept). */
+  required?: boolean;
   confirmed?: boolean;
   value?: number;
   /** A photo taken for the booking at the counter (GET /api/files/:id). */
@@ -217,21 +237,32 @@ export interface BookingApproval {
   conditions: string | null;
   reason: string | null;
   decidedAt: string;
+  /** The plan version the decision was given for. */
+  planVersion: number;
   /** False once the plan changed after the decision: it no longer covers the booking. */
   current: boolean;
 }
 
 export interface ChecklistRunState {
   completedAt: string;
+  /** Every reading inside the limits in force now. */
   withinLimits: boolean;
+  /** Every line in force now answered as it stands (a line added or changed since makes it false). */
+  complete: boolean;
+  /** What stops the run from counting, one sentence a line. */
+  gaps: string[];
 }
 
 export interface Booking {
   id: number;
   personId: number;
   personName: string;
+  /** False once the booker's account is deactivated: the booking cannot be released. */
+  bookerActive: boolean;
   status: BookingStatus;
   overdue: boolean;
+  /** Gear out that must come back now: overdue, or out with a person since deactivated. */
+  needsReturn: boolean;
   startsAt: string;
   endsAt: string;
   location: string;
