@@ -55,7 +55,7 @@ export async function seed(knex: Knex): Promise<void> {
     purpose: 'Ionic wind thrust sweep, wire-to-mesh gap 30 mm',
     plan: { plannedKv: 12, polarity: 'positive', maxCurrentMa: 0.5, peoplePresent: 2 },
   });
-  if (sweep.status === 'awaiting-approval') await decideApproval(knex, officer, sweep.id, { decision: 'approve', conditions: 'Barrier at the limited approach distance before energizing.' }, MAIL);
+  if (sweep.status === 'awaiting-approval') await decideApproval(knex, officer, sweep.id, { decision: 'approve', planVersion: sweep.planVersion, conditions: 'Barrier at the limited approach distance before energizing.' }, MAIL);
 
   // The day after: Kofi's corona onset run above the approval voltage, waiting in the queue.
   await book(kofi, ['HI-60N', 'OW-GS100S', 'KS-PT150', 'KS-IL1', 'OW-RD100'], hourFromNow(2, 13), 2, {
@@ -70,7 +70,7 @@ export async function seed(knex: Knex): Promise<void> {
     purpose: 'Corona wind demonstration for first-year students',
     plan: { plannedKv: 8, polarity: 'positive', maxCurrentMa: 0.5, peoplePresent: 3 },
   });
-  if (demo.status === 'awaiting-approval') demo = await decideApproval(knex, officer, demo.id, { decision: 'approve', conditions: 'Students stay behind the enclosure.' }, MAIL);
+  if (demo.status === 'awaiting-approval') demo = await decideApproval(knex, officer, demo.id, { decision: 'approve', planVersion: demo.planVersion, conditions: 'Students stay behind the enclosure.' }, MAIL);
   for (const item of demo.items) demo = await recordScan(knex, ansel, demo.id, item.tag);
   // A required photo line (if an officer has added one) cannot be answered by a seed: the demo
   // booking then simply waits at the counter.

@@ -171,7 +171,7 @@ const sha256 = (value: string) => createHash('sha256').update(value).digest('hex
 // The world the fixtures build in. It remembers every person, item and checklist line it made,
 // so the fuzz suite can watch exactly those rows.
 
-type BookingView = { id: number; status: string; items: { id: number; tag: string }[]; checklist: { pre: Entry[]; return: Entry[] } };
+type BookingView = { id: number; status: string; planVersion: number; items: { id: number; tag: string }[]; checklist: { pre: Entry[]; return: Entry[] } };
 type Entry = { id: number; kind: string; unit?: string; min?: number; max?: number; required: boolean };
 
 export class World {
@@ -418,7 +418,10 @@ export const ROUTES: Record<string, RouteFixture> = {
   'POST /api/bookings/:id/approval': {
     access: OFFICER,
     // Nobody decides on their own booking: the officer decides on the owner's.
-    build: async (world) => ({ params: { id: (await world.awaitingApproval()).id }, body: { decision: 'approve', conditions: 'Barrier at 3 m' }, status: 200 }),
+    build: async (world) => {
+      const booking = await world.awaitingApproval();
+      return { params: { id: booking.id }, body: { decision: 'approve', planVersion: booking.planVersion, conditions: 'Barrier at 3 m' }, status: 200 };
+    },
   },
   'POST /api/bookings/:id/scans': {
     access: 'signed-in',
@@ -448,6 +451,16 @@ export const ROUTES: Record<string, RouteFixture> = {
     access: OFFICER,
     // Written back unchanged: the rules are shared by every test running at the same time.
     build: async (world) => ({ body: (await world.staff.agent.get('/api/lab-rules')).body, status: 200 }),
+  },
+  'GET /api/lab-rules/confirmation': { access: STAFF, build: ok() },
+  'POST /api/lab-rules/confirm': {
+    access: OFFICER,
+    // A change by another officer waits for confirmation; the rules themselves stay as they are.
+    build: async (world) => {
+      const editor = await world.person('officer');
+      await world.db('lab_rules').where({ id: 1 }).update({ pending_editors: JSON.stringify([editor.id]) });
+      return { status: 200 };
+    },
   },
 
   'GET /api/checklist-templates': { access: 'signed-in', build: ok() },

@@ -84,7 +84,7 @@ describe('POST /api/bookings', () => {
 describe('approval', () => {
   it('an officer approves with conditions; the booking becomes approved', async () => {
     const { booking } = await newBooking(25);
-    const res = await post(officer, `/api/bookings/${booking.id}/approval`, { decision: 'approve', conditions: 'Observer from the Corona group present' });
+    const res = await post(officer, `/api/bookings/${booking.id}/approval`, { decision: 'approve', planVersion: booking.planVersion, conditions: 'Observer from the Corona group present' });
     expect(res.status).toBe(200);
     expect(res.body.booking.status).toBe('approved');
     expect(res.body.booking.approval).toMatchObject({ decision: 'approve', conditions: 'Observer from the Corona group present', current: true });
@@ -101,7 +101,7 @@ describe('approval', () => {
 
   it('changing the plan after approval voids it and puts the booking back to awaiting approval', async () => {
     const { booking } = await newBooking(25);
-    await post(officer, `/api/bookings/${booking.id}/approval`, { decision: 'approve' }).expect(200);
+    await post(officer, `/api/bookings/${booking.id}/approval`, { decision: 'approve', planVersion: booking.planVersion }).expect(200);
     const res = await member.agent.patch(`/api/bookings/${booking.id}`).set('x-csrf-token', member.csrf()).send({ plan: plan(28) });
     expect(res.status).toBe(200);
     expect(res.body.booking.status).toBe('awaiting-approval');
@@ -109,18 +109,25 @@ describe('approval', () => {
     expect(res.body.booking.approval.current).toBe(false);
   });
 
-  it('changing only the purpose keeps the approval', async () => {
+  // The officer approved a test for a purpose at a place: another purpose or place is another test.
+  it.each([
+    ['purpose', { purpose: 'Corona onset sweep, second run' }],
+    ['location', { location: 'Bay 3' }],
+  ])('changing only the %s voids the approval, audited, and the booking goes back to the officer', async (_field, change) => {
     const { booking } = await newBooking(25);
-    await post(officer, `/api/bookings/${booking.id}/approval`, { decision: 'approve' }).expect(200);
-    const res = await member.agent.patch(`/api/bookings/${booking.id}`).set('x-csrf-token', member.csrf()).send({ purpose: 'Corona onset sweep, second run' });
-    expect(res.body.booking.status).toBe('approved');
-    expect(res.body.booking.approval.current).toBe(true);
+    await post(officer, `/api/bookings/${booking.id}/approval`, { decision: 'approve', planVersion: booking.planVersion }).expect(200);
+    const res = await member.agent.patch(`/api/bookings/${booking.id}`).set('x-csrf-token', member.csrf()).send(change);
+    expect(res.status).toBe(200);
+    expect(res.body.booking.status).toBe('awaiting-approval');
+    expect(res.body.booking.approval.current).toBe(false);
+    const voided = await ctx.db('audit_events').where({ entity: 'booking', entity_id: String(booking.id), action: 'approval.voided' });
+    expect(voided).toHaveLength(1);
   });
 
   it('an officer can never approve their own booking', async () => {
     await qualify(ctx.db, officer.person.id, 50);
     const { booking } = await newBooking(25, officer);
-    const res = await post(officer, `/api/bookings/${booking.id}/approval`, { decision: 'approve' });
+    const res = await post(officer, `/api/bookings/${booking.id}/approval`, { decision: 'approve', planVersion: booking.planVersion });
     expect(res.status).toBe(403);
     const after = await officer.agent.get(`/api/bookings/${booking.id}`);
     expect(after.body.booking.status).toBe('awaiting-approval');
@@ -129,9 +136,9 @@ describe('approval', () => {
   it('members and managers cannot decide', async () => {
     const { booking } = await newBooking(25);
     const manager = await signedInAs(ctx, 'manager');
-    expect((await post(manager, `/api/bookings/${booking.id}/approval`, { decision: 'approve' })).status).toBe(403);
+    expect((await post(manager, `/api/bookings/${booking.id}/approval`, { decision: 'approve', planVersion: booking.planVersion })).status).toBe(403);
     const other = await signedInAs(ctx, 'member');
-    expect((await post(other, `/api/bookings/${booking.id}/approval`, { decision: 'approve' })).status).toBe(403);
+    expect((await post(other, `/api/bookings/${booking.id}/approval`, { decision: 'approve', planVersion: booking.planVersion })).status).toBe(403);
   });
 });
 

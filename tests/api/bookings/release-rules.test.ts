@@ -27,7 +27,7 @@ async function book(itemIds: number[], plannedKv: number, window = windowFromNow
 async function readyBooking(plannedKv = 10, options: { skip?: 'scan' | 'checklist'; itemIds?: number[] } = {}) {
   const kit = await insertKit(ctx.db);
   let booking = await book(options.itemIds ?? kit.all.map((i) => i.id), plannedKv);
-  if (booking.status === 'awaiting-approval') booking = (await post(officer, `/api/bookings/${booking.id}/approval`, { decision: 'approve' })).body.booking;
+  if (booking.status === 'awaiting-approval') booking = (await post(officer, `/api/bookings/${booking.id}/approval`, { decision: 'approve', planVersion: booking.planVersion })).body.booking;
   if (options.skip !== 'scan') await scanAll(member, booking);
   if (options.skip !== 'checklist') booking = await completePre(member, booking);
   return { kit, booking };
@@ -167,14 +167,14 @@ describe('POST /api/bookings/:id/release', () => {
     expect(release.status).toBe(409);
     expect(release.body.error.failures.map((f: { rule: string }) => f.rule).sort()).toEqual(['approval', 'qualification']);
     // An officer's approval covers it.
-    await post(officer, `/api/bookings/${booking.id}/approval`, { decision: 'approve', conditions: 'Supervised by I. Achterberg' }).expect(200);
+    await post(officer, `/api/bookings/${booking.id}/approval`, { decision: 'approve', planVersion: booking.planVersion, conditions: 'Supervised by I. Achterberg' }).expect(200);
     const released = await post(unqualified, `/api/bookings/${booking.id}/release`);
     expect(released.status).toBe(200);
     // The answer shows the stored approval and checklist run as they are, times to the millisecond.
     const approvalRow = await ctx.db('approvals').where({ booking_id: booking.id }).first();
     const runRow = await ctx.db('checklist_runs').where({ booking_id: booking.id, phase: 'pre' }).orderBy('id', 'desc').first();
     const { name: officerName } = await ctx.db('people').where({ id: officer.person.id }).first('name');
-    expect(released.body.booking.approval).toEqual({ decision: 'approve', officerName, conditions: 'Supervised by I. Achterberg', reason: null, decidedAt: new Date(approvalRow.decided_at).toISOString(), current: true });
+    expect(released.body.booking.approval).toEqual({ decision: 'approve', officerName, conditions: 'Supervised by I. Achterberg', reason: null, decidedAt: new Date(approvalRow.decided_at).toISOString(), planVersion: 1, current: true });
     expect(released.body.booking.checklistRuns.pre).toEqual({ completedAt: new Date(runRow.completed_at).toISOString(), withinLimits: true });
     expect(released.body.booking.checklistRuns.return).toBeNull();
   });

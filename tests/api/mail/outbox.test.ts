@@ -52,7 +52,7 @@ describe('approval mail', () => {
     expect(request_.text).toContain(`${ctx.config.publicUrl}/approvals`);
     expect(request_.html).toContain('<a href=');
 
-    await post(officer, `/api/bookings/${id}/approval`, { decision: 'approve', conditions: 'Observer present' }).expect(200);
+    await post(officer, `/api/bookings/${id}/approval`, { decision: 'approve', planVersion: res.body.booking.planVersion, conditions: 'Observer present' }).expect(200);
     await drainUntil(() => smtp.list().some((m) => m.to.includes(member.person.email) && m.subject.startsWith('Approved')));
     const decision = smtp.list().find((m) => m.to.includes(member.person.email) && m.subject.startsWith('Approved'))!;
     expect(decision.text).toContain('Conditions: Observer present');
