@@ -8,7 +8,7 @@ import { CHROMIUM, ensureDebianPackages, MARIADB, POPPLER } from './lib/debian-p
 import { testInstance } from './lib/instances';
 import { startFakeS3 } from '../server/storage/fake-s3';
 import { startInstance, stopInstance } from './lib/mariadb';
-import { recreateDatabase, recreateMailDatabase } from './lib/test-database';
+import { recreateDatabase, recreateMailDatabase, recreateModelDatabase } from './lib/test-database';
 
 const ROOT = path.resolve(__dirname, '..');
 
@@ -29,6 +29,7 @@ async function main(): Promise<number> {
   try {
     await recreateDatabase(options);
     await recreateMailDatabase(options);
+    await recreateModelDatabase(options);
     buildWebIfStale();
     mkdirSync(path.join(ROOT, '.data'), { recursive: true });
     const resultsFile = path.join(ROOT, '.data', 'jest-results.json');

@@ -23,3 +23,13 @@ export const MAIL_TEST_DATABASE = 'voltcrib_test_mail';
 export async function recreateMailDatabase(options: InstanceOptions): Promise<void> {
   await recreateDatabase({ ...options, database: MAIL_TEST_DATABASE });
 }
+
+/**
+ * The model-based gate test edits lab rules and checklist lines, which every booking in the
+ * database reads: it gets a database of its own so the other suites never see its edits.
+ */
+export const MODEL_TEST_DATABASE = 'voltcrib_test_model';
+
+export async function recreateModelDatabase(options: InstanceOptions): Promise<void> {
+  await recreateDatabase({ ...options, database: MODEL_TEST_DATABASE });
+}

@@ -690,6 +690,27 @@ export async function returnBooking(db: Db, actor: SessionUser, id: number, inpu
   return getBooking(db, actor, id);
 }
 
+/** Open bookings holding an item. */
+function openBookingsHolding(trx: Trx, itemId: number): Promise<number[]> {
+  return trx('booking_items as bi')
+    .join('bookings as b', 'b.id', 'bi.booking_id')
+    .where('bi.item_id', itemId)
+    .andWhere('bi.live', true)
+    .whereIn('b.status', PRE_RELEASE)
+    .orderBy('b.id')
+    .pluck('b.id');
+}
+
+/**
+ * Before an item's ratings change: locks the rows of the open bookings holding it, in id order,
+ * so the edit takes its locks in the gate's order (bookings, then items) and never deadlocks
+ * against a release or a change of one of those bookings.
+ */
+export async function lockBookingsHolding(trx: Trx, itemId: number): Promise<void> {
+  const ids = await openBookingsHolding(trx, itemId);
+  if (ids.length > 0) await trx('bookings').whereIn('id', ids).orderBy('id').forUpdate().select('id');
+}
+
 /**
  * An item's ratings changed (server/services/items.ts, in its transaction, with the item row
  * locked): every booking that holds it and is not yet released is assessed again under a new plan
@@ -697,16 +718,10 @@ export async function returnBooking(db: Db, actor: SessionUser, id: number, inpu
  * and an officer reviewing the booking must read it again.
  */
 export async function replanBookingsHolding(trx: Trx, actor: SessionUser, itemId: number, mail: MailContext): Promise<number[]> {
-  const affected = await trx('booking_items as bi')
-    .join('bookings as b', 'b.id', 'bi.booking_id')
-    .where('bi.item_id', itemId)
-    .andWhere('bi.live', true)
-    .whereIn('b.status', PRE_RELEASE)
-    .orderBy('b.id')
-    .pluck('b.id');
-  for (const bookingId of affected as number[]) {
-    // Booking rows after the item row here; release takes them the other way round, and a
-    // deadlock between the two is retried (server/services/audit.ts).
+  const affected = await openBookingsHolding(trx, itemId);
+  for (const bookingId of affected) {
+    // Locked already by lockBookingsHolding, except a booking that took the item while this
+    // edit waited for the item lock; a deadlock there is retried (server/services/audit.ts).
     const row = await lockBooking(trx, bookingId);
     if (!PRE_RELEASE.includes(row.status)) continue;
     const itemIds = (await trx('booking_items').where({ booking_id: bookingId }).select('item_id')).map((r) => r.item_id as number);
@@ -726,7 +741,7 @@ export async function replanBookingsHolding(trx: Trx, actor: SessionUser, itemId
     });
     if (status === 'awaiting-approval') await notifyOfficers(trx, bookingId, planVersion, assessment, mail);
   }
-  return affected as number[];
+  return affected;
 }
 
 /**

@@ -25,7 +25,7 @@ import { ConflictError, NotFoundError, ValidationError } from '../errors';
 import { validate } from '../middleware/validate';
 import { appendAudit, auditedTransaction } from './audit';
 import { addDaysIso, dateColumnToIso, isoOfMillis, timestampToIso, todayIso } from './dates';
-import { replanBookingsHolding, type MailContext } from './bookings';
+import { lockBookingsHolding, replanBookingsHolding, type MailContext } from './bookings';
 import { searchWords, updateTermsDueDate, writeItemTerms } from './item-terms';
 import { lockItem, SUMMARY_COLUMNS, tagOutInTransaction, toItemSummary, type ItemRow } from './item-rows';
 
@@ -125,6 +125,7 @@ function auditView(row: ItemRow) {
 
 export async function updateItem(db: Db, actor: SessionUser, id: number, input: ItemUpdateInput, mail: MailContext): Promise<ItemRow> {
   return auditedTransaction(db, async (trx) => {
+    if (input.ratings !== undefined) await lockBookingsHolding(trx, id);
     const before = await lockItem(trx, id);
     if (before.status === 'retired') throw new ConflictError(`${before.tag} is retired; retired gear cannot be changed.`, 'ITEM_RETIRED');
     const changes: Partial<ItemRow> & { ratings?: string; updated_at: Date } = { updated_at: new Date() };

@@ -22,12 +22,15 @@ export async function setQualification(db: Db, actor: SessionUser, personId: num
   // A qualification decides whether a test needs an officer: nobody decides their own.
   if (personId === actor.id) throw new ForbiddenError('Nobody records or changes their own qualification; ask another officer.');
   await auditedTransaction(db, async (trx) => {
-    const person = await trx('people').where({ id: personId }).forUpdate().first('id');
+    // No lock on the person's row: the audit entry's foreign key takes a shared lock on its
+    // actor's row at commit, under the audit chain's lock, so an exclusive lock here would
+    // deadlock against any audited write by that person. The qualification row is the lock.
+    const person = await trx('people').where({ id: personId }).first('id');
     if (!person) throw new NotFoundError(`No person with id ${personId}.`);
-    const before = await getQualification(trx, personId);
+    const existing = await trx('qualifications').where({ person_id: personId }).forUpdate().first('person_id');
+    const before = existing ? await getQualification(trx, personId) : null;
     const record = { authorised_kv: input.authorisedKv, expires_on: input.expiresOn, notes: input.notes ?? '', recorded_by: actor.id, updated_at: new Date() };
-    if (before) await trx('qualifications').where({ person_id: personId }).update(record);
-    else await trx('qualifications').insert({ person_id: personId, ...record });
+    await trx('qualifications').insert({ person_id: personId, ...record }).onConflict('person_id').merge(record);
     await appendAudit(trx, {
       actorId: actor.id,
       entity: 'qualification',

@@ -35,7 +35,7 @@ export interface TestContext {
 export function createTestContext(overrides: Record<string, string> = {}): TestContext {
   const config = testConfig(overrides);
   const db = createDb(config);
-  const app = createApp({ db, config, logger: createLogger('silent') });
+  const app = createApp({ db, config, logger: createLogger((process.env.TEST_LOG_LEVEL as 'silent') ?? 'silent') });
   return { db, app, config, close: () => db.destroy() };
 }
 
