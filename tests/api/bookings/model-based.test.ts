@@ -20,7 +20,7 @@ import { insertItem, qualify } from '../../helpers/gear';
 import { createPerson, createTestContext, signedInAgent, type TestContext } from '../../helpers/test-app';
 
 const SEED = Number(process.env.MODEL_SEED ?? Math.floor(Math.random() * 2 ** 31));
-const ROUNDS = Number(process.env.MODEL_ROUNDS ?? 40);
+const ROUNDS = Number(process.env.MODEL_ROUNDS ?? 50);
 const PER_ROUND = 8;
 const LIVE = ['requested', 'awaiting-approval', 'approved', 'released'];
 
@@ -55,7 +55,7 @@ interface Actor {
   seen: Map<number, BookingView>;
 }
 interface Entry { id: number; kind: string; min?: number; max?: number; required: boolean }
-interface BookingView { id: number; personId: number; status: string; planVersion: number; items: { id: number; tag: string }[]; checklist: { pre: Entry[]; return: Entry[] } }
+interface BookingView { id: number; personId: number; status: string; startsAt: string; planVersion: number; items: { id: number; tag: string }[]; checklist: { pre: Entry[]; return: Entry[] } }
 interface ModelItem { id: number; tag: string; kind: ItemKind }
 
 let ctx: TestContext;
@@ -93,10 +93,10 @@ beforeAll(async () => {
   manager = await actor('Model manager Femi', 'manager');
   for (const m of [...members, switched]) await qualify(ctx.db, m.person.id, 30, addDaysIso(todayIso(), 365));
   const make = async (kind: ItemKind, ratings: Record<string, unknown>) => ({ ...(await insertItem(ctx.db, kind, { ratings })), kind });
-  // Three kits' worth of gear: enough for several bookings to go through, few enough to clash.
+  // Four kits' worth of gear: enough for several bookings to go through, few enough to clash.
   items = [];
-  for (let k = 0; k < 3; k += 1) {
-    const capacitanceNf = [5, 0.1, 1][k]!;
+  for (let k = 0; k < 4; k += 1) {
+    const capacitanceNf = [5, 0.1, 1, 0.1][k]!;
     items.push(
       await make('hv-supply', { maxKv: 30, maxMa: 2, polarity: 'negative', outputCapacitanceNf: capacitanceNf, bleederMohm: 300, hasInterlockInput: true }),
       await make('grounding-stick', { ratedKv: 100, hookResistanceMohm: 10, cableLengthM: 3 }),
@@ -122,10 +122,18 @@ const SLOTS = [
 const KVS = [5, 10, 10, 20];
 const plan = (plannedKv: number, peoplePresent = 2) => ({ plannedKv, polarity: 'negative', maxCurrentMa: 1, peoplePresent });
 
+/** The last state any answer showed for each booking: steers the schedule towards live work. */
+const lastSeen = new Map<number, BookingView>();
+const note = (res: { status: number; body?: { booking?: BookingView } }) => {
+  if (res.status < 300 && res.body?.booking) lastSeen.set(res.body.booking.id, res.body.booking);
+  return res.status;
+};
+
 async function read(a: Actor, id: number): Promise<BookingView | null> {
   const res = await a.session.agent.get(`/api/bookings/${id}`);
   if (res.status !== 200) return null;
   a.seen.set(id, res.body.booking);
+  note(res);
   return res.body.booking;
 }
 
@@ -147,6 +155,17 @@ const ownBooking = (a: Actor) => {
   return mine.length > 0 && random.next() < 0.9 ? random.pick(mine) : anyBooking();
 };
 const anyBooking = () => (bookings.length > 0 ? random.pick(bookings) : null);
+const PRE_RELEASE = ['requested', 'awaiting-approval', 'approved'];
+/** One of the person's bookings that may still be released now, if any; else any of theirs. */
+const releasable = (a: Actor) => {
+  const open = bookings.filter((id) => owners.get(id) === a.person.id && PRE_RELEASE.includes(lastSeen.get(id)?.status ?? 'requested') && lastSeen.get(id)?.startsAt === new Date(SLOTS[0]!.startsAt).toISOString());
+  return open.length > 0 ? random.pick(open) : ownBooking(a);
+};
+/** Mostly a booking last seen waiting for an officer. */
+const awaiting = () => {
+  const waiting = bookings.filter((id) => lastSeen.get(id)?.status === 'awaiting-approval');
+  return waiting.length > 0 && random.next() < 0.8 ? random.pick(waiting) : anyBooking();
+};
 const aMember = () => random.pick([...members, ...members, ...members, switched]);
 
 type Op = { name: string; run: () => Promise<number> };
@@ -163,6 +182,7 @@ function nextOp(): Op {
       name: 'create',
       run: async () => {
         const res = await post(who(m), '/api/bookings', body);
+        note(res);
         if (res.status === 201) {
           bookings.push(res.body.booking.id);
           owners.set(res.body.booking.id, m.person.id);
@@ -182,16 +202,16 @@ function nextOp(): Op {
       () => ({ purpose: `Model run ${random.int(1000)}` }),
       () => ({ location: random.pick(['Bay 1', 'Bay 2', 'Bay 3']) }),
     ])();
-    return { name: 'update', run: async () => (id ? (await patch(m, `/api/bookings/${id}`, change)).status : 0) };
+    return { name: 'update', run: async () => (id ? note(await patch(m, `/api/bookings/${id}`, change)) : 0) };
   }
   if (r < 28) {
     const m = aMember();
     const id = ownBooking(m);
-    return { name: 'cancel', run: async () => (id ? (await post(who(m), `/api/bookings/${id}/cancel`)).status : 0) };
+    return { name: 'cancel', run: async () => (id ? note(await post(who(m), `/api/bookings/${id}/cancel`)) : 0) };
   }
   if (r < 40) {
     const o = random.pick(officers);
-    const id = anyBooking();
+    const id = awaiting();
     const stale = random.next() < 0.3;
     return {
       name: 'approve',
@@ -201,7 +221,7 @@ function nextOp(): Op {
         if (!view) return 0;
         const refuse = random.next() < 0.15;
         const body = refuse ? { decision: 'refuse', planVersion: view.planVersion, reason: 'Model refusal' } : { decision: 'approve', planVersion: view.planVersion };
-        return (await post(who(o), `/api/bookings/${id}/approval`, body)).status;
+        return note(await post(who(o), `/api/bookings/${id}/approval`, body));
       },
     };
   }
@@ -234,13 +254,13 @@ function nextOp(): Op {
   }
   if (r < 53) {
     const m = aMember();
-    const id = ownBooking(m);
-    return { name: 'release', run: async () => (id ? (await post(who(m), `/api/bookings/${id}/release`)).status : 0) };
+    const id = releasable(m);
+    return { name: 'release', run: async () => (id ? note(await post(who(m), `/api/bookings/${id}/release`)) : 0) };
   }
   if (r < 68) {
     // The whole counter visit in one go: read, scan, answer, release.
     const m = aMember();
-    const id = ownBooking(m);
+    const id = releasable(m);
     return {
       name: 'counter',
       run: async () => {
@@ -249,6 +269,7 @@ function nextOp(): Op {
         for (const item of view.items) await post(who(m), `/api/bookings/${view.id}/scans`, { tag: item.tag });
         await post(who(m), `/api/bookings/${view.id}/checklist`, { phase: 'pre', answers: answers(view.checklist.pre, false) });
         const res = await post(who(m), `/api/bookings/${view.id}/release`);
+        note(res);
         for (const f of res.body?.error?.failures ?? []) refusals[f.rule] = (refusals[f.rule] ?? 0) + 1;
         if (res.status === 409 && !res.body?.error?.failures) refusals[res.body?.error?.code] = (refusals[res.body?.error?.code] ?? 0) + 1;
         return res.status;
@@ -264,7 +285,7 @@ function nextOp(): Op {
         const view = id ? await read(m, id) : null;
         if (!view || view.status !== 'released') return 0;
         await post(who(m), `/api/bookings/${view.id}/checklist`, { phase: 'return', answers: answers(view.checklist.return, false) });
-        return (await post(who(m), `/api/bookings/${view.id}/return`, {})).status;
+        return note(await post(who(m), `/api/bookings/${view.id}/return`, {}));
       },
     };
   }
@@ -283,14 +304,17 @@ function nextOp(): Op {
     };
   }
   if (r < 84) {
-    const target = random.pick(items);
-    const tagOut = random.next() < 0.3;
+    const tagOut = random.next() < 0.4;
     return {
       name: 'item status',
       run: async () => {
-        if (tagOut) return (await patch(manager, `/api/items/${target.id}`, { status: 'out-of-service', statusReason: 'Model: cracked insulation' })).status;
-        await post(who(manager), `/api/items/${target.id}/inspections`, { result: 'pass', readings: [], notes: 'Model inspection' });
-        return (await patch(manager, `/api/items/${target.id}`, { status: 'in-service' })).status;
+        if (tagOut) return (await patch(manager, `/api/items/${random.pick(items).id}`, { status: 'out-of-service', statusReason: 'Model: cracked insulation' })).status;
+        // Put a tagged-out item back: inspect it, then clear the tag.
+        const out = await ctx.db('items').whereIn('id', items.map((i) => i.id)).andWhere({ status: 'out-of-service' }).pluck('id');
+        if (out.length === 0) return 0;
+        const id = random.pick(out as number[]);
+        await post(who(manager), `/api/items/${id}/inspections`, { result: 'pass', readings: [], notes: 'Model inspection' });
+        return (await patch(manager, `/api/items/${id}`, { status: 'in-service' })).status;
       },
     };
   }
