@@ -13,13 +13,14 @@ import type {
   ChecklistRunRecord,
   ChecklistRunState,
   ChecklistSubmitInput,
+  ReleasePreview,
 } from '@/shared/schemas/bookings';
 
 import { apiRequest, isApiError } from './api-client';
 import { auditKeys } from './use-audit';
 import { bookingGearKeys } from './use-booking-gear';
 
-export type { Booking, BookingApproval, BookingSummary, ChecklistRunRecord, ChecklistRunState };
+export type { Booking, BookingApproval, BookingSummary, ChecklistRunRecord, ChecklistRunState, ReleasePreview };
 
 export type BookingListStatus = BookingStatus | 'overdue' | 'live';
 
@@ -37,6 +38,7 @@ export const bookingKeys = {
   details: () => [...bookingKeys.all, 'detail'] as const,
   detail: (id: number) => [...bookingKeys.details(), id] as const,
   checklistRuns: (id: number) => [...bookingKeys.all, 'checklist-runs', id] as const,
+  releaseCheck: (id: number) => [...bookingKeys.all, 'release-check', id] as const,
 };
 
 interface BookingPage {
@@ -80,6 +82,20 @@ export function useBookingQuery(id: number) {
   });
 }
 
+/**
+ * What release would answer now: the server runs the release rules (shared/rules/release.ts) on
+ * the booking as it stands, so the counter sees every refusal before the last button. Checked
+ * again every half minute while shown: the window opens by the clock.
+ */
+export function useReleaseCheckQuery(id: number, enabled = true) {
+  return useQuery({
+    queryKey: bookingKeys.releaseCheck(id),
+    queryFn: ({ signal }) => apiRequest<ReleasePreview>(`/api/bookings/${id}/release-check`, { signal }),
+    enabled: enabled && Number.isInteger(id) && id > 0,
+    refetchInterval: 30_000,
+  });
+}
+
 /** The booking's completed checklists as answered, newest first (its page shows them). */
 export function useChecklistRunsQuery(id: number) {
   return useQuery({
@@ -97,6 +113,7 @@ function useBookingWritten() {
     await Promise.all([
       queryClient.invalidateQueries({ queryKey: bookingKeys.lists() }),
       queryClient.invalidateQueries({ queryKey: bookingKeys.checklistRuns(booking.id) }),
+      queryClient.invalidateQueries({ queryKey: bookingKeys.releaseCheck(booking.id) }),
       queryClient.invalidateQueries({ queryKey: bookingGearKeys.availabilities() }),
       queryClient.invalidateQueries({ queryKey: auditKeys.all }),
     ]);
@@ -200,7 +217,7 @@ export function useReleaseMutation(id: number) {
     },
     onSuccess: written,
     // A refusal may be news (an inspection lapsed, an approval was voided): show the booking as it is.
-    onError: () => queryClient.invalidateQueries({ queryKey: bookingKeys.detail(id) }),
+    onError: () => Promise.all([queryClient.invalidateQueries({ queryKey: bookingKeys.detail(id) }), queryClient.invalidateQueries({ queryKey: bookingKeys.releaseCheck(id) })]),
   });
 }
 

@@ -37,7 +37,9 @@ export function ReleaseFailures({ title, failures, testID }: ReleaseFailuresProp
 
 const ruleNames: Record<string, string> = {
   status: 'Booking state',
+  booker: 'Booker’s account',
   approval: 'Officer approval',
+  clash: 'Gear held elsewhere',
   window: 'Booking window',
   scanned: 'Scanning',
   'in-service': 'Gear in service',

@@ -24,6 +24,7 @@ import {
   decideApproval,
   getBooking,
   listBookings,
+  previewRelease,
   recordScan,
   releaseBooking,
   returnBooking,
@@ -95,6 +96,9 @@ export function bookingsRouter(db: Db, config: Config, store: ObjectStore): Rout
   router.post('/:id/checklist', async (req, res) => {
     const bookingId = id(req);
     res.json({ booking: await submitChecklist(db, currentUser(req), bookingId, validate(checklistSubmitSchema, req.body, 'checklist')) });
+  });
+  router.get('/:id/release-check', async (req, res) => {
+    res.json(await previewRelease(db, currentUser(req), id(req)));
   });
   router.post('/:id/release', async (req, res) => {
     res.json({ booking: await releaseBooking(db, currentUser(req), id(req)) });

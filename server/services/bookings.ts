@@ -16,6 +16,7 @@ import {
   type BookingStatus,
   type BookingUpdateInput,
   type ChecklistAnswerRecord,
+  type ReleasePreview,
   type ChecklistSubmitInput,
   type LabRules,
   type TestPlan,
@@ -606,41 +607,62 @@ function entriesFor(templates: readonly TemplateRow[], phase: 'pre' | 'return', 
   return applicableEntries(templates, phase, Number(row.planned_kv), [...new Set(items.map((i) => i.kind))], rules);
 }
 
+/**
+ * The release rules on the booking as it stands: the gear, the person, the lab rules that apply
+ * to them, the lines in force, the approval and the checklist run, read through `q`. The release
+ * runs it inside its transaction after locking the booking and its items; the release screen asks
+ * for it beforehand (GET /api/bookings/:id/release-check), so both say the same thing.
+ */
+async function releaseCheck(q: Db | Trx, row: BookingRow, items: ItemRow[], now: Date) {
+  const itemIds = items.map((i) => i.id);
+  const [rules, templates, booker, scans, { approval, runs }, clashes] = await Promise.all([
+    labRulesFor(q, row.person_id),
+    activeTemplates(q),
+    q('people').where({ id: row.person_id }).first('active'),
+    q('booking_scans').where({ booking_id: row.id }).select('item_id'),
+    decisionsOf((await q('bookings as b').where('b.id', row.id).first(q.raw(DECISIONS_SQL))) as DecisionColumns),
+    clashingTags(q, itemIds, new Date(row.starts_at), new Date(row.ends_at), row.id),
+  ]);
+  const assessment = await assess(q, items, planOf(row), row.person_id, rules);
+  const basis = basisOf(rowBasisInput(row), items, assessment);
+  const failures = releaseFailures({
+    status: row.status,
+    bookerActive: Boolean(booker?.active),
+    now,
+    startsAt: new Date(row.starts_at),
+    endsAt: new Date(row.ends_at),
+    earlyPickupMin: rules.earlyPickupMin,
+    planVersion: row.plan_version,
+    itemIds,
+    scannedItemIds: scans.map((s: { item_id: number }) => s.item_id),
+    assessment,
+    basis,
+    approval,
+    checklistEntries: entriesFor(templates, 'pre', row, items, rules),
+    checklist: runs.pre,
+    clashingTags: clashes,
+  });
+  return { failures, assessment, basis, approval, rules, opensAt: new Date(new Date(row.starts_at).getTime() - rules.earlyPickupMin * 60_000) };
+}
+
+/** What release would answer now, for the screen before the last button (no locks, no writes). */
+export async function previewRelease(db: Db, actor: SessionUser, id: number, now = new Date()): Promise<ReleasePreview> {
+  const row = await db<BookingRow>('bookings').where({ id }).first();
+  if (!row || !canSeeBooking(actor, row)) throw new NotFoundError(`No booking with id ${id}.`);
+  const itemIds = (await db('booking_items').where({ booking_id: id }).pluck('item_id')) as number[];
+  const { failures, opensAt } = await releaseCheck(db, row, await loadItems(db, [...itemIds].sort((a, b) => a - b)), now);
+  return { failures, opensAt: opensAt.toISOString(), checkedAt: now.toISOString() };
+}
+
 export async function releaseBooking(db: Db, actor: SessionUser, id: number, now = new Date()): Promise<Booking> {
   await auditedTransaction(db, async (trx) => {
     const row = await lockBooking(trx, id);
     assertCounterAccess(actor, row);
     const itemIds = (await trx('booking_items').where({ booking_id: id }).orderBy('item_id').select('item_id')).map((r) => r.item_id as number);
+    // Everything the check reads is read under the booking and item locks, at READ COMMITTED:
+    // the gear, the person, the rules and the lines as they are now, not as they were when booked.
     const items = await lockItems(trx, itemIds);
-    // Everything below is read under the booking and item locks, at READ COMMITTED: the gear, the
-    // person, the rules and the lines as they are at this moment, not as they were when booked.
-    const [rules, templates, booker, scans, { approval, runs }, clashes] = await Promise.all([
-      labRulesFor(trx, row.person_id),
-      activeTemplates(trx),
-      trx('people').where({ id: row.person_id }).first('active'),
-      trx('booking_scans').where({ booking_id: id }).select('item_id'),
-      decisionsInTransaction(trx, id),
-      clashingTags(trx, itemIds, new Date(row.starts_at), new Date(row.ends_at), id),
-    ]);
-    const assessment = await assess(trx, items, planOf(row), row.person_id, rules);
-    const basis = basisOf(rowBasisInput(row), items, assessment);
-    const failures = releaseFailures({
-      status: row.status,
-      bookerActive: Boolean(booker?.active),
-      now,
-      startsAt: new Date(row.starts_at),
-      endsAt: new Date(row.ends_at),
-      earlyPickupMin: rules.earlyPickupMin,
-      planVersion: row.plan_version,
-      itemIds,
-      scannedItemIds: scans.map((s: { item_id: number }) => s.item_id),
-      assessment,
-      basis,
-      approval,
-      checklistEntries: entriesFor(templates, 'pre', row, items, rules),
-      checklist: runs.pre,
-      clashingTags: clashes,
-    });
+    const { failures, assessment, basis, approval, rules } = await releaseCheck(trx, row, items, now);
     if (failures.length > 0) {
       throw new ConflictError(`Release refused: ${failures.length} rule${failures.length === 1 ? '' : 's'} not met.`, 'RELEASE_REFUSED', failures);
     }

@@ -334,3 +334,11 @@ export interface ChecklistTemplate {
   appliesWithKind: string | null;
   position: number;
 }
+
+/** What release would answer now (GET /api/bookings/:id/release-check): the screen shows it before the last button. */
+export interface ReleasePreview {
+  failures: { rule: string; message: string }[];
+  /** When the counter may release at the earliest (the start less the lab's early pick-up). */
+  opensAt: string;
+  checkedAt: string;
+}

@@ -108,12 +108,13 @@ it('books above the approval voltage, gets approved, releases at the counter and
     await page.getByTestId('booking-go-release').click();
     await page.getByTestId('release-screen').waitFor();
 
-    // Releasing before scanning and the checklist is refused, naming each rule.
-    await page.getByTestId('release-submit').click();
-    await page.getByTestId('release-failures').waitFor({ timeout: 15_000 });
-    await page.getByTestId('release-failures-scanned').waitFor();
-    await page.getByTestId('release-failures-checklist').waitFor();
-    expect(await page.getByTestId('release-failures').textContent()).toContain('Scan every item at the counter.');
+    // Before scanning and the checklist, the release step says what stands in the way, naming
+    // each rule, and the button waits.
+    await page.getByTestId('release-check').waitFor({ timeout: 15_000 });
+    await page.getByTestId('release-check-scanned').waitFor();
+    await page.getByTestId('release-check-checklist').waitFor();
+    expect(await page.getByTestId('release-check').textContent()).toContain('Scan every item at the counter.');
+    expect(await page.getByTestId('release-submit').isDisabled()).toBe(true);
     await shot(page, '3-release-refused');
     expect(await statusInDb(bookingId)).toBe('approved');
 
@@ -135,6 +136,7 @@ it('books above the approval voltage, gets approved, releases at the counter and
     await page.getByTestId('release-checklist-submit').click();
     await page.getByTestId('release-checklist-done').waitFor({ timeout: 15_000 });
 
+    await page.getByTestId('release-check-clear').waitFor({ timeout: 15_000 });
     await page.getByTestId('release-submit').click();
     await page.getByTestId('release-done').waitFor({ timeout: 15_000 });
     expect(await page.getByTestId('release-done-barrier-value').textContent()).toMatch(/\d m \(\d+ ft/);

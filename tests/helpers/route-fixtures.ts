@@ -414,6 +414,7 @@ export const ROUTES: Record<string, RouteFixture> = {
     access: 'signed-in',
     build: async (world, caller) => ({ params: { id: (await world.booking(caller)).id }, body: { purpose: 'Changed by the security suite' }, status: 200 }),
   },
+  'GET /api/bookings/:id/release-check': { access: 'signed-in', build: async (world, caller) => ({ params: { id: (await world.booking(caller)).id }, status: 200 }) },
   'POST /api/bookings/:id/cancel': { access: 'signed-in', build: async (world, caller) => ({ params: { id: (await world.booking(caller)).id }, status: 200 }) },
   'POST /api/bookings/:id/approval': {
     access: OFFICER,
