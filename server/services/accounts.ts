@@ -9,7 +9,7 @@ import { AppError, ConflictError, ForbiddenError, NotFoundError } from '../error
 import { messages } from '../mail/messages';
 import { enqueueMail } from '../mail/outbox';
 import { appendAudit, auditedTransaction } from './audit';
-import { cancelOpenBookingsOf, type MailContext } from './bookings';
+import { cancelOpenBookingsOf, lockOpenBookingsOf, type MailContext } from './bookings';
 import { endSessionsOf } from './people';
 
 const INVITATION_HOURS = 7 * 24;
@@ -79,6 +79,7 @@ export async function updatePerson(db: Db, actor: SessionUser, personId: number,
     throw new ForbiddenError('You cannot deactivate yourself or change your own role; ask another manager.');
   }
   const result = await auditedTransaction(db, async (trx) => {
+    if (input.active === false) await lockOpenBookingsOf(trx, personId);
     const before = await trx('people').where({ id: personId }).forUpdate().first('id', 'email', 'name', 'role', 'active', 'group_id');
     if (!before) throw new NotFoundError(`No person with id ${personId}.`);
     if (input.groupId) {

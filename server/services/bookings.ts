@@ -386,6 +386,11 @@ export async function createBooking(db: Db, actor: SessionUser, input: BookingCr
   const taken = await clashingTags(db, input.itemIds, startsAt, endsAt);
   if (taken.length > 0) throw itemTaken(taken);
   const id = await auditedTransaction(db, async (trx) => {
+    // The booker's row, shared-locked first: a deactivation (which takes it exclusively, after
+    // the person's open bookings) either waits for this booking and cancels it, or has already
+    // committed and this request is refused.
+    const booker = await trx('people').where({ id: actor.id }).forShare().first('active');
+    if (!booker?.active) throw new ForbiddenError('Your account is not active.');
     const items = await holdItems(trx, input.itemIds, { startsAt, endsAt });
     const assessment = await assess(trx, items, input.plan, actor.id);
     const record = {
@@ -764,6 +769,16 @@ export async function replanBookingsHolding(trx: Trx, actor: SessionUser, itemId
     if (status === 'awaiting-approval') await notifyOfficers(trx, bookingId, planVersion, assessment, mail);
   }
   return affected;
+}
+
+/**
+ * Before a person's row is locked to deactivate them: locks their open bookings, in id order.
+ * Counter writes lock a booking and then, through their rows' foreign keys, share-lock the
+ * person; taking the bookings first keeps that order, so the two never deadlock.
+ */
+export async function lockOpenBookingsOf(trx: Trx, personId: number): Promise<void> {
+  const ids = (await trx('bookings').where({ person_id: personId }).whereIn('status', EDITABLE).pluck('id')) as number[];
+  if (ids.length > 0) await trx('bookings').whereIn('id', ids).orderBy('id').forUpdate().select('id');
 }
 
 /**

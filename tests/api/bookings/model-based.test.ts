@@ -278,7 +278,8 @@ function nextOp(): Op {
   }
   if (r < 76) {
     const m = aMember();
-    const id = ownBooking(m);
+    const out = bookings.filter((b) => owners.get(b) === m.person.id && lastSeen.get(b)?.status === 'released');
+    const id = out.length > 0 ? random.pick(out) : ownBooking(m);
     return {
       name: 'return',
       run: async () => {
@@ -298,7 +299,7 @@ function nextOp(): Op {
         const ratings =
           target.kind === 'hv-supply'
             ? { ...item.ratings, outputCapacitanceNf: random.pick([0.1, 1, 5, 50]) }
-            : { ...item.ratings, ratedKv: random.pick([20, 100, 100]) };
+            : { ...item.ratings, ratedKv: random.pick([20, 100, 100, 100]) };
         return (await patch(manager, `/api/items/${target.id}`, { ratings })).status;
       },
     };

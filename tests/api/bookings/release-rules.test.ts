@@ -175,7 +175,7 @@ describe('POST /api/bookings/:id/release', () => {
     const runRow = await ctx.db('checklist_runs').where({ booking_id: booking.id, phase: 'pre' }).orderBy('id', 'desc').first();
     const { name: officerName } = await ctx.db('people').where({ id: officer.person.id }).first('name');
     expect(released.body.booking.approval).toEqual({ decision: 'approve', officerName, conditions: 'Supervised by I. Achterberg', reason: null, decidedAt: new Date(approvalRow.decided_at).toISOString(), planVersion: 1, current: true });
-    expect(released.body.booking.checklistRuns.pre).toEqual({ completedAt: new Date(runRow.completed_at).toISOString(), withinLimits: true });
+    expect(released.body.booking.checklistRuns.pre).toEqual({ completedAt: new Date(runRow.completed_at).toISOString(), withinLimits: true, complete: true, gaps: [] });
     expect(released.body.booking.checklistRuns.return).toBeNull();
   });
 
