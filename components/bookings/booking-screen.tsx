@@ -1,6 +1,7 @@
 import { StyleSheet, View } from 'react-native';
 
 import { AssessmentPanel } from '@/components/assessment/assessment-panel';
+import { BenchLogSection } from '@/components/bench-log/bench-log-section';
 import { formatDateTime } from '@/components/common/format';
 import { spacing } from '@/components/theme/tokens';
 import { ErrorState } from '@/components/ui/error-state';
@@ -43,6 +44,7 @@ function BookingBody({ booking, wide }: { booking: Booking; wide: boolean }) {
       <BookingFacts booking={booking} />
       <BookingItems booking={booking} />
       <ChecklistRecord bookingId={booking.id} />
+      <BenchLogSection booking={booking} />
     </View>
   );
   const assessment = (

@@ -52,7 +52,8 @@ function columnsOf(input: BenchRunInput, booking: BookingRow, previous: Partial<
   const columns: RunColumns = {
     applied_kv: input.appliedKv,
     polarity,
-    current_ma: input.currentMa ?? input.currentUa! / 1000,
+    // µA → mA without binary noise (183.6 µA is 0.1836 mA, not 0.18359999999999999).
+    current_ma: input.currentMa ?? Number((input.currentUa! / 1000).toPrecision(12)),
     current_unit: input.currentUa !== undefined ? 'uA' : 'mA',
     gap_mm: input.gapMm,
     stages: input.stages ?? null,
