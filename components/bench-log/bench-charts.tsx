@@ -30,7 +30,7 @@ function ChartCard({ model }: { model: ChartModel }) {
             {rows.map((r) => (
               <TableRow key={`${r.series}-${r.run}`}>
                 <TableCell column={columns[0]!}>
-                  <AppText variant="small">{String(r.run)}</AppText>
+                  <AppText variant="small">{r.flagged ? `${r.run} (flagged)` : String(r.run)}</AppText>
                 </TableCell>
                 <TableCell column={columns[1]!}>
                   <AppText variant="small">{r.series}</AppText>

@@ -8,6 +8,8 @@ export interface ChartPoint {
   x: number;
   y: number;
   run: number;
+  /** The run carries a flag: drawn hollow, named in the table, left out of "best" figures. */
+  flagged: boolean;
 }
 
 export interface ChartSeries {
@@ -48,7 +50,7 @@ export function velocityChart(runs: readonly BenchRun[]): ChartModel {
   const series = [...byGap(runs)].map(([gapMm, group]) => ({
     key: `gap-${gapMm}`,
     label: gapLabel(gapMm),
-    points: group.filter((r) => r.velocityMps !== null).map((r) => ({ x: r.appliedKv, y: r.velocityMps!, run: r.number })),
+    points: group.filter((r) => r.velocityMps !== null).map((r) => ({ x: r.appliedKv, y: r.velocityMps!, run: r.number, flagged: r.flags.length > 0 })),
   }));
   const drawn = series.filter((s) => s.points.length > 0);
   return {
@@ -78,7 +80,7 @@ export function currentChart(runs: readonly BenchRun[], fits: readonly CoronaFit
     return {
       key: `gap-${gapMm}`,
       label: gapLabel(gapMm),
-      points: group.map((r) => ({ x: r.appliedKv, y: r.currentMa, run: r.number })),
+      points: group.map((r) => ({ x: r.appliedKv, y: r.currentMa, run: r.number, flagged: r.flags.length > 0 })),
       curve,
       markX: fit ? { x: fit.onsetKv, label: `V₀ ${sig(fit.onsetKv)} kV` } : undefined,
     };
@@ -105,7 +107,7 @@ export function thrustChart(runs: readonly BenchRun[]): ChartModel {
     .map(([gapMm, group]) => ({
       key: `gap-${gapMm}`,
       label: gapLabel(gapMm),
-      points: group.filter((r) => r.thrustMn !== null).map((r) => ({ x: r.derived.powerW, y: r.thrustMn!, run: r.number })),
+      points: group.filter((r) => r.thrustMn !== null).map((r) => ({ x: r.derived.powerW, y: r.thrustMn!, run: r.number, flagged: r.flags.length > 0 })),
     }))
     .filter((s) => s.points.length > 0);
   return {
@@ -119,8 +121,12 @@ export function thrustChart(runs: readonly BenchRun[]): ChartModel {
         ? 'No run has a thrust yet.'
         : series
             .map((s) => {
-              const best = s.points.reduce((a, p) => (p.x > 0 && p.y / p.x > (a.x > 0 ? a.y / a.x : 0) ? p : a), s.points[0]!);
-              return `At ${s.label}: ${rangeSentence(s.points, (v) => `${sig(v)} W`, (v) => `${sig(v)} mN`)}; best ${best.x > 0 ? sig(best.y / best.x) : '—'} mN/W (run ${best.run}).`;
+              const clean = s.points.filter((p) => !p.flagged && p.x > 0);
+              const best = clean.reduce<ChartPoint | null>((a, p) => (a === null || p.y / p.x > a.y / a.x ? p : a), null);
+              const flagged = s.points.filter((p) => p.flagged).map((p) => p.run);
+              const bestText = best ? `; best ${sig(best.y / best.x)} mN/W (run ${best.run})` : '';
+              const flaggedText = flagged.length > 0 ? `; flagged, drawn hollow and left out of the best: run ${flagged.join(', ')}` : '';
+              return `At ${s.label}: ${rangeSentence(s.points, (v) => `${sig(v)} W`, (v) => `${sig(v)} mN`)}${bestText}${flaggedText}.`;
             })
             .join(' '),
   };

@@ -100,10 +100,8 @@ export function RunForm({ from, mode, planPolarity, onSubmit, onCancel, testID }
   const serverMessage = formState.errors.root?.server?.message;
   return (
     <View style={styles.form} testID={testID}>
+      <FormNumberField control={control} name="appliedKv" label="Applied voltage" unit="kV" testID={`${testID}-kv`} />
       <View style={styles.row}>
-        <View style={styles.grow}>
-          <FormNumberField control={control} name="appliedKv" label="Applied voltage" unit="kV" testID={`${testID}-kv`} />
-        </View>
         <Button label="−1 kV" variant="secondary" onPress={() => stepKv(-1)} testID={`${testID}-kv-down`} />
         <Button label="+1 kV" variant="secondary" onPress={() => stepKv(1)} testID={`${testID}-kv-up`} />
       </View>
@@ -169,5 +167,4 @@ export function RunForm({ from, mode, planPolarity, onSubmit, onCancel, testID }
 const styles = StyleSheet.create({
   form: { gap: spacing.sm },
   row: { flexDirection: 'row', gap: spacing.xs, alignItems: 'flex-end', flexWrap: 'wrap' },
-  grow: { flexGrow: 1, flexBasis: 160 },
 });

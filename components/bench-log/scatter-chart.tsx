@@ -18,11 +18,13 @@ const SHAPES = ['circle', 'square', 'triangle', 'diamond'] as const;
 const SHAPE_WORDS = { circle: 'circles', square: 'squares', triangle: 'triangles', diamond: 'diamonds' } as const;
 const R = 5;
 
-function Marker({ shape, x, y, color }: { shape: (typeof SHAPES)[number]; x: number; y: number; color: string }) {
-  if (shape === 'circle') return <Circle cx={x} cy={y} r={R} fill={color} />;
-  if (shape === 'square') return <Rect x={x - R} y={y - R} width={2 * R} height={2 * R} fill={color} />;
-  if (shape === 'triangle') return <Path d={`M${x},${y - R - 1} L${x + R + 1},${y + R} L${x - R - 1},${y + R} Z`} fill={color} />;
-  return <Path d={`M${x},${y - R - 1} L${x + R + 1},${y} L${x},${y + R + 1} L${x - R - 1},${y} Z`} fill={color} />;
+/** Flagged runs are drawn hollow: the reading is in doubt. */
+function Marker({ shape, x, y, color, hollow }: { shape: (typeof SHAPES)[number]; x: number; y: number; color: string; hollow: boolean }) {
+  const paint = hollow ? { fill: 'none', stroke: color, strokeWidth: 2 } : { fill: color };
+  if (shape === 'circle') return <Circle cx={x} cy={y} r={R} {...paint} />;
+  if (shape === 'square') return <Rect x={x - R} y={y - R} width={2 * R} height={2 * R} {...paint} />;
+  if (shape === 'triangle') return <Path d={`M${x},${y - R - 1} L${x + R + 1},${y + R} L${x - R - 1},${y + R} Z`} {...paint} />;
+  return <Path d={`M${x},${y - R - 1} L${x + R + 1},${y} L${x},${y + R + 1} L${x - R - 1},${y} Z`} {...paint} />;
 }
 
 export function ScatterChart({ model, testID }: { model: ChartModel; testID: string }) {
@@ -84,7 +86,7 @@ export function ScatterChart({ model, testID }: { model: ChartModel; testID: str
                   </G>
                 ) : null}
                 {s.points.map((p) => (
-                  <Marker key={p.run} shape={shape} x={x(p.x)} y={y(p.y)} color={color} />
+                  <Marker key={p.run} shape={shape} x={x(p.x)} y={y(p.y)} color={color} hollow={p.flagged} />
                 ))}
               </G>
             );
@@ -94,7 +96,7 @@ export function ScatterChart({ model, testID }: { model: ChartModel; testID: str
       <View style={styles.legend}>
         {model.series.map((s, i) => (
           <AppText key={s.key} variant="small">
-            {`${s.label}: ${SHAPE_WORDS[SHAPES[i % SHAPES.length]!]}${s.curve ? ', fitted curve as a line' : ''}${s.markX ? ', V₀ as a dashed line' : ''}`}
+            {`${s.label}: ${SHAPE_WORDS[SHAPES[i % SHAPES.length]!]}${s.curve ? ', fitted curve as a line' : ''}${s.markX ? ', V₀ as a dashed line' : ''}${s.points.some((p) => p.flagged) ? '; hollow where the run is flagged' : ''}`}
           </AppText>
         ))}
       </View>

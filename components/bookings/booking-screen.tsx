@@ -40,11 +40,11 @@ function BookingBody({ booking, wide }: { booking: Booking; wide: boolean }) {
     <View style={styles.column}>
       <BookingStatusBadge status={booking.status} overdue={booking.overdue} testID="booking-status" />
       <BookingNextStep booking={booking} />
+      <BenchLogSection booking={booking} />
       <BookingApproval booking={booking} />
       <BookingFacts booking={booking} />
       <BookingItems booking={booking} />
       <ChecklistRecord bookingId={booking.id} />
-      <BenchLogSection booking={booking} />
     </View>
   );
   const assessment = (
