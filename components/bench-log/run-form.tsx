@@ -15,6 +15,14 @@ import { benchRunEditSchema, benchRunInputSchema, type BenchRun, type BenchRunEd
 
 import { payloadOf, valuesFromRun, type RunFormValues } from './run-values';
 
+const SETUP_FIELDS = ['gapMm', 'stages', 'massG', 'outletAreaCm2', 'temperatureC', 'pressureKpa', 'humidityPct', 'wireRadiusMm', 'collectorRadiusMm', 'surfaceFactor'] as const;
+
+function setupSummary(run: BenchRun | undefined): string {
+  if (!run) return '';
+  const parts = [`Gap ${run.gapMm} mm`, run.stages === null ? null : `${run.stages} ${run.stages === 1 ? 'stage' : 'stages'}`, run.massG === null ? null : `${run.massG} g`, run.outletAreaCm2 === null ? null : `${run.outletAreaCm2} cm² outlet`, run.temperatureC === null ? null : `${run.temperatureC} °C, ${run.pressureKpa ?? '—'} kPa, ${run.humidityPct ?? '—'} % RH`];
+  return `Same as run ${run.number}: ${parts.filter(Boolean).join(' · ')}.`;
+}
+
 const FIELDS = [
   'appliedKv',
   'polarity',
@@ -63,11 +71,15 @@ export function RunForm({ from, mode, planPolarity, onSubmit, onCancel, testID }
   const [currentUnit, setCurrentUnit] = useState<'mA' | 'µA'>(initial.currentUa !== undefined ? 'µA' : 'mA');
   const [thrustUnit, setThrustUnit] = useState<'mN' | 'gf'>(initial.thrustGf !== undefined ? 'gf' : 'mN');
   const [saved, setSaved] = useState<string | null>(null);
+  // During a sweep the setup stays put: it folds away under a one-line summary once a run exists.
+  const [setupOpen, setSetupOpen] = useState(from === undefined || mode === 'edit');
   const polarity = useWatch({ control, name: 'polarity' });
 
   // After a run is recorded the form starts again from it, ready for the next point.
   useEffect(() => {
-    if (mode === 'new') reset(valuesFromRun(from));
+    if (mode !== 'new') return;
+    reset(valuesFromRun(from));
+    if (from) setSetupOpen(false);
   }, [from?.id]);
 
   function switchCurrent(unit: 'mA' | 'µA') {
@@ -98,6 +110,8 @@ export function RunForm({ from, mode, planPolarity, onSubmit, onCancel, testID }
   });
 
   const serverMessage = formState.errors.root?.server?.message;
+  const setupError = SETUP_FIELDS.some((f) => formState.errors[f] !== undefined);
+  const showSetup = setupOpen || setupError;
   return (
     <View style={styles.form} testID={testID}>
       <FormNumberField control={control} name="appliedKv" label="Applied voltage" unit="kV" testID={`${testID}-kv`} />
@@ -129,26 +143,36 @@ export function RunForm({ from, mode, planPolarity, onSubmit, onCancel, testID }
         <FormNumberField control={control} name="thrustGf" label="Thrust" unit="gf" hint="Optional; stored in mN (1 gf = 9.80665 mN)" testID={`${testID}-thrust`} />
       )}
       <FormNumberField control={control} name="velocityMps" label="Airflow velocity" unit="m/s" hint="Optional" testID={`${testID}-velocity`} />
-      <FormNumberField control={control} name="gapMm" label="Electrode gap" unit="mm" testID={`${testID}-gap`} />
-      <FormNumberField control={control} name="stages" label="Stages or tap" unit="count" integer hint="Optional" testID={`${testID}-stages`} />
-      <AppText variant="bodyStrong">Device</AppText>
-      <FormNumberField control={control} name="massG" label="Device mass" unit="g" hint="Optional: for thrust-to-weight" testID={`${testID}-mass`} />
-      <FormNumberField control={control} name="outletAreaCm2" label="Outlet area" unit="cm²" hint="Optional: for the momentum check" testID={`${testID}-area`} />
-      <AppText variant="bodyStrong">Ambient</AppText>
-      <AppText variant="small" tone="muted">
-        Left empty, each is carried over from the previous run.
-      </AppText>
-      <FormNumberField control={control} name="temperatureC" label="Temperature" unit="°C" testID={`${testID}-temperature`} />
-      <FormNumberField control={control} name="pressureKpa" label="Pressure" unit="kPa" testID={`${testID}-pressure`} />
-      <FormNumberField control={control} name="humidityPct" label="Relative humidity" unit="%" testID={`${testID}-humidity`} />
-      <AppText variant="bodyStrong">Emitter geometry (optional)</AppText>
-      <AppText variant="small" tone="muted">
-        Wire radius and coaxial collector radius let the fit compare its onset with Peek&apos;s.
-      </AppText>
-      <FormNumberField control={control} name="wireRadiusMm" label="Wire radius" unit="mm" testID={`${testID}-wire`} />
-      <FormNumberField control={control} name="collectorRadiusMm" label="Collector radius" unit="mm" testID={`${testID}-collector`} />
-      <FormNumberField control={control} name="surfaceFactor" label="Surface factor m_v" unit="0–1" hint="1 smooth wire; 0.98–0.93 rough; 0.87–0.83 stranded" testID={`${testID}-surface`} />
       <FormTextField control={control} name="notes" label="Notes" multiline testID={`${testID}-notes`} />
+      {showSetup ? null : (
+        <View style={styles.setup} testID={`${testID}-setup-summary`}>
+          <AppText variant="small">{setupSummary(from)}</AppText>
+          <Button label="Change gap, device or ambient" variant="secondary" icon="chevron-down" onPress={() => setSetupOpen(true)} testID={`${testID}-setup-open`} />
+        </View>
+      )}
+      {showSetup ? (
+        <View style={styles.form}>
+          <FormNumberField control={control} name="gapMm" label="Electrode gap" unit="mm" testID={`${testID}-gap`} />
+          <FormNumberField control={control} name="stages" label="Stages or tap" unit="count" integer hint="Optional" testID={`${testID}-stages`} />
+          <AppText variant="bodyStrong">Device</AppText>
+          <FormNumberField control={control} name="massG" label="Device mass" unit="g" hint="Optional: for thrust-to-weight" testID={`${testID}-mass`} />
+          <FormNumberField control={control} name="outletAreaCm2" label="Outlet area" unit="cm²" hint="Optional: for the momentum check" testID={`${testID}-area`} />
+          <AppText variant="bodyStrong">Ambient</AppText>
+          <AppText variant="small" tone="muted">
+            Left empty, each is carried over from the previous run.
+          </AppText>
+          <FormNumberField control={control} name="temperatureC" label="Temperature" unit="°C" testID={`${testID}-temperature`} />
+          <FormNumberField control={control} name="pressureKpa" label="Pressure" unit="kPa" testID={`${testID}-pressure`} />
+          <FormNumberField control={control} name="humidityPct" label="Relative humidity" unit="%" testID={`${testID}-humidity`} />
+          <AppText variant="bodyStrong">Emitter geometry (optional)</AppText>
+          <AppText variant="small" tone="muted">
+            Wire radius and coaxial collector radius let the fit compare its onset with Peek&apos;s.
+          </AppText>
+          <FormNumberField control={control} name="wireRadiusMm" label="Wire radius" unit="mm" testID={`${testID}-wire`} />
+          <FormNumberField control={control} name="collectorRadiusMm" label="Collector radius" unit="mm" testID={`${testID}-collector`} />
+          <FormNumberField control={control} name="surfaceFactor" label="Surface factor m_v" unit="0–1" hint="1 smooth wire; 0.98–0.93 rough; 0.87–0.83 stranded" testID={`${testID}-surface`} />
+        </View>
+      ) : null}
       {mode === 'edit' ? <FormTextField control={control} name="reason" label="Why the correction" testID={`${testID}-reason`} /> : null}
       {serverMessage ? <FormAlert message={serverMessage} testID={`${testID}-error`} /> : null}
       {saved ? (
@@ -167,4 +191,5 @@ export function RunForm({ from, mode, planPolarity, onSubmit, onCancel, testID }
 const styles = StyleSheet.create({
   form: { gap: spacing.sm },
   row: { flexDirection: 'row', gap: spacing.xs, alignItems: 'flex-end', flexWrap: 'wrap' },
+  setup: { gap: spacing.xs },
 });
