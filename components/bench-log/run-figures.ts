@@ -18,9 +18,9 @@ export function thrustText(run: Pick<BenchRun, 'thrustMn' | 'thrustUnit'>): stri
   return run.thrustUnit === 'gf' ? `${mn} (${sig(run.thrustMn / 9.80665)} gf)` : mn;
 }
 
-/** "Run 3 · 9 kV · 180 µA · 30 mm" */
+/** "Run 3 · 9 kV positive · 180 µA · 30 mm" */
 export function runHeadline(run: BenchRun): string {
-  return `Run ${run.number} · ${sig(run.appliedKv)} kV ${run.polarity === 'positive' ? '+' : '−'} · ${currentText(run)} · ${sig(run.gapMm)} mm`;
+  return `Run ${run.number} · ${sig(run.appliedKv)} kV ${run.polarity} · ${currentText(run)} · ${sig(run.gapMm)} mm`;
 }
 
 /** The derived figures as label/value pairs, skipping those without their inputs. */

@@ -65,7 +65,7 @@ function RunCard({ bookingId, run, canCorrect, canRemove, onCorrect }: { booking
             <AppText variant="smallStrong">{line.value}</AppText>
           </AppText>
         ))}
-        {run.temperatureC !== null ? <AppText variant="small" tone="muted">{`Ambient ${sig(run.temperatureC)} °C, ${sig(run.pressureKpa, 4)} kPa, ${sig(run.humidityPct)} % RH`}</AppText> : null}
+        {run.temperatureC !== null ? <AppText variant="small" tone="muted">{`Ambient ${sig(run.temperatureC)} °C, ${sig(run.pressureKpa, 4)} kPa, ${run.humidityPct === null ? 'humidity not given (dry air assumed)' : `${sig(run.humidityPct)} % RH`}`}</AppText> : null}
       </View>
       {run.notes ? <AppText variant="small">{`Notes: ${run.notes}`}</AppText> : null}
       <View style={styles.actions}>
