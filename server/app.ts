@@ -11,6 +11,7 @@ import { csrf } from './middleware/csrf';
 import type { Mailbox } from './mail/fake-smtp';
 import { invitationsRouter, passwordResetsRouter } from './routes/accounts';
 import { auditRouter } from './routes/audit';
+import { benchRunsRouter } from './routes/bench-runs';
 import { assessmentsRouter, bookingsRouter } from './routes/bookings';
 import { calcRouter } from './routes/calc';
 import { checklistTemplatesRouter } from './routes/checklist-templates';
@@ -111,6 +112,7 @@ export function createApp({ db, config, logger, objectStore, mailbox, mountBefor
   app.use('/api', labelsRouter(db, config));
   app.use('/api/assessments', assessmentsRouter(db));
   app.use('/api/bookings', bookingsRouter(db, config, store));
+  app.use('/api/bookings', benchRunsRouter(db, config));
   app.use('/api/lab-rules', labRulesRouter(db));
   app.use('/api/checklist-templates', checklistTemplatesRouter(db));
   app.use('/api/audit', auditRouter(db));

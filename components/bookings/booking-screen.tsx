@@ -1,6 +1,7 @@
 import { StyleSheet, View } from 'react-native';
 
 import { AssessmentPanel } from '@/components/assessment/assessment-panel';
+import { BenchLogSection } from '@/components/bench-log/bench-log-section';
 import { formatDateTime } from '@/components/common/format';
 import { spacing } from '@/components/theme/tokens';
 import { ErrorState } from '@/components/ui/error-state';
@@ -39,6 +40,7 @@ function BookingBody({ booking, wide }: { booking: Booking; wide: boolean }) {
     <View style={styles.column}>
       <BookingStatusBadge status={booking.status} overdue={booking.overdue} testID="booking-status" />
       <BookingNextStep booking={booking} />
+      <BenchLogSection booking={booking} />
       <BookingApproval booking={booking} />
       <BookingFacts booking={booking} />
       <BookingItems booking={booking} />

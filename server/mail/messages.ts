@@ -58,6 +58,13 @@ export const messages = {
       { url: `${baseUrl}/approvals`, label: 'Open the approval queue' },
     );
   },
+  benchRunBeyondPlan(baseUrl: string, b: BookingFacts, run: { number: number; appliedKv: number; currentMa: number }, reasons: string[]): MailContent {
+    return compose(
+      `Beyond the approved plan: booking #${b.id} (${b.personName}), run ${run.number}`,
+      [`${b.personName} recorded run ${run.number} at ${run.appliedKv} kV and ${run.currentMa} mA on booking #${b.id} (${b.purpose}), beyond the plan you approved:`, ...reasons.map((r) => `• ${r}`), 'Later runs beyond the plan are recorded and flagged on the booking without another e-mail.'],
+      { url: `${baseUrl}/bookings/${b.id}`, label: 'Open the booking' },
+    );
+  },
   approvalDecided(baseUrl: string, b: BookingFacts, decision: 'approve' | 'refuse', officerName: string, note: string | null): MailContent {
     const approved = decision === 'approve';
     return compose(

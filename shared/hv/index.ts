@@ -18,3 +18,8 @@ export { SAFE_RESIDUAL_VOLTAGE, FIVE_TIME_CONSTANTS } from './data/residual-volt
 export { NFPA70E_DC_TABLE, NFPA70E_AC_TABLE, type ApproachBoundaryRow, type ApproachBoundaryTable } from './data/nfpa70e';
 export { AIR } from './data/air';
 export { HOT_STICK_TESTS, RETEST_INTERVALS } from './data/osha';
+export * from './air-density';
+export * from './ehd';
+export * from './corona-fit';
+export * from './bench-run';
+export { EHD, AIR_GAS } from './data/ehd';

@@ -274,6 +274,14 @@ export class World {
     return (await this.post(this.actor(who), `/api/bookings/${booking.id}/checklist`, { phase: 'return', answers })).booking;
   }
 
+  /** A released booking of `who` with one bench run on it (tests/api/bench-runs). */
+  async benchRun(who: Caller): Promise<{ bookingId: number; runId: number }> {
+    const booking = await this.releasedBooking(who);
+    const res = await this.actor(who).agent.post(`/api/bookings/${booking.id}/runs`).set('x-csrf-token', this.actor(who).csrf()).send(BENCH_RUN);
+    if (res.status !== 201) throw new Error(`fixture step POST runs failed: ${res.status} ${JSON.stringify(res.body)}`);
+    return { bookingId: booking.id, runId: res.body.run.id as number };
+  }
+
   /** 25 kV is above the lab's approval voltage: the owner's booking waits for an officer. */
   async awaitingApproval(): Promise<BookingView> {
     const booking = await this.booking(this.owner, 25);
@@ -328,6 +336,8 @@ export class World {
 export const INERT_TEMPLATE = { phase: 'pre', kind: 'confirm', required: false, appliesWithKind: 'no-such-kind' } as const;
 const INERT_TEMPLATE_COLUMNS = { phase: 'pre', kind: 'confirm', required: false, applies_with_kind: 'no-such-kind', position: 999 };
 
+/** A plausible bench run for the kit's 10 kV plan (tests/api/bench-runs). */
+const BENCH_RUN = { appliedKv: 8, currentMa: 0.1, gapMm: 30 };
 const MANAGER: readonly Role[] = ['manager'];
 const OFFICER: readonly Role[] = ['officer'];
 const STAFF: readonly Role[] = ['officer', 'manager'];
@@ -446,6 +456,35 @@ export const ROUTES: Record<string, RouteFixture> = {
   'GET /api/bookings/:id/checklist-runs': { access: 'signed-in', build: async (world, caller) => ({ params: { id: (await world.booking(caller)).id }, status: 200 }) },
   'POST /api/bookings/:id/release': { access: 'signed-in', build: async (world, caller) => ({ params: { id: (await world.readyBooking(caller)).id }, status: 200 }) },
   'POST /api/bookings/:id/return': { access: 'signed-in', build: async (world, caller) => ({ params: { id: (await world.returnableBooking(caller)).id }, body: {}, status: 200 }) },
+
+  'GET /api/bookings/:id/runs': { access: 'signed-in', build: async (world, caller) => ({ params: { id: (await world.benchRun(caller)).bookingId }, status: 200 }) },
+  'GET /api/bookings/:id/runs.csv': { access: 'signed-in', build: async (world, caller) => ({ params: { id: (await world.benchRun(caller)).bookingId }, status: 200 }) },
+  'POST /api/bookings/:id/runs': { access: 'signed-in', build: async (world, caller) => ({ params: { id: (await world.releasedBooking(caller)).id }, body: BENCH_RUN, status: 201 }) },
+  'POST /api/bookings/:id/runs/import': {
+    access: 'signed-in',
+    build: async (world, caller) => ({ params: { id: (await world.releasedBooking(caller)).id }, body: { csv: 'kV,mA,mm\n8,0.1,30\n', mapping: { appliedKv: 'kV', currentMa: 'mA', gapMm: 'mm' } }, status: 201 }),
+  },
+  'PUT /api/bookings/:id/runs/:runId': {
+    access: 'signed-in',
+    build: async (world, caller) => {
+      const { bookingId, runId } = await world.benchRun(caller);
+      return { params: { id: bookingId, runId }, body: { ...BENCH_RUN, currentMa: 0.11, reason: 'Misread the meter' }, status: 200 };
+    },
+  },
+  'GET /api/bookings/:id/runs/:runId/revisions': {
+    access: 'signed-in',
+    build: async (world, caller) => {
+      const { bookingId, runId } = await world.benchRun(caller);
+      return { params: { id: bookingId, runId }, status: 200 };
+    },
+  },
+  'DELETE /api/bookings/:id/runs/:runId': {
+    access: STAFF,
+    build: async (world, caller) => {
+      const { bookingId, runId } = await world.benchRun(caller);
+      return { params: { id: bookingId, runId }, body: { reason: 'Duplicate entry' }, status: 204 };
+    },
+  },
 
   'GET /api/lab-rules': { access: 'signed-in', build: ok() },
   'PUT /api/lab-rules': {
