@@ -90,7 +90,20 @@ function median(values: number[]): number {
   return sorted[Math.floor(sorted.length / 2)]!;
 }
 
-type Lhr = { environment?: { benchmarkIndex?: number }; categories: { performance: { score: number | null } }; audits: Record<string, { numericValue?: number; details?: { overallSavingsBytes?: number } }>; runtimeError?: { message: string } };
+type Lhr = {
+  environment?: { benchmarkIndex?: number };
+  categories: { performance: { score: number | null } };
+  audits: Record<string, { numericValue?: number; details?: { overallSavingsBytes?: number; items?: { url?: string }[] } }>;
+  runtimeError?: { message: string };
+};
+
+/** Whether the page asked the API for more than the session: a signed-in screen loads its data. */
+function loadedSignedInData(lhr: Lhr): boolean {
+  return (lhr.audits['network-requests']?.details?.items ?? []).some((r) => {
+    const pathname = r.url ? new URL(r.url).pathname : '';
+    return pathname.startsWith('/api/') && pathname !== '/api/session';
+  });
+}
 
 function figuresOf(lhr: Lhr): RunFigures {
   const n = (id: string) => lhr.audits[id]?.numericValue ?? Number.NaN;
@@ -160,7 +173,11 @@ async function lighthouseRun(lighthouse: LighthouseFn, port: number, url: string
   for (let attempt = 0; attempt < 3; attempt += 1) {
     const result = await lighthouse(url, { port, output: 'json', logLevel: 'error', onlyCategories: ['performance'], extraHeaders: cookie ? { Cookie: cookie } : undefined });
     const lhr = result?.lhr as unknown as Lhr | undefined;
-    if (lhr && !lhr.runtimeError) return lhr;
+    if (lhr && !lhr.runtimeError) {
+      // A run that did not see the page it was meant to (signed out by a stray cookie) is flagged.
+      if (loadedSignedInData(lhr) !== (cookie !== null)) console.warn(`[bench:web] ${url}: the run ${cookie ? 'was not signed in' : 'loaded signed-in data'}`);
+      return lhr;
+    }
     lastError = lhr?.runtimeError?.message ?? 'no result';
     console.warn(`[bench:web] ${url}: ${lastError}; running it again`);
   }
@@ -189,7 +206,6 @@ async function main(): Promise<void> {
   const base = `http://127.0.0.1:${server.port}`;
   const { default: lighthouse } = await import('lighthouse');
   const chromeLauncher = await import('chrome-launcher');
-  const chrome = await chromeLauncher.launch({ chromePath: CHROMIUM, chromeFlags: CHROME_FLAGS });
   try {
     const cookie = await signIn(base, MEMBER);
     const { bookingId, itemId } = await demoTargets(base, cookie);
@@ -205,8 +221,15 @@ async function main(): Promise<void> {
     const results: PageResult[] = [];
     for (const spec of pages) {
       const runs: RunFigures[] = [];
-      for (let i = 0; i < RUNS; i += 1) {
-        runs.push(figuresOf(await lighthouseRun(lighthouse, chrome.port, `${base}${spec.path}`, spec.signedIn ? cookie : null)));
+      // A fresh browser profile per page: a cookie the sign-in page was given must not sign the
+      // member out of the next page's runs.
+      const chrome = await chromeLauncher.launch({ chromePath: CHROMIUM, chromeFlags: CHROME_FLAGS });
+      try {
+        for (let i = 0; i < RUNS; i += 1) {
+          runs.push(figuresOf(await lighthouseRun(lighthouse, chrome.port, `${base}${spec.path}`, spec.signedIn ? cookie : null)));
+        }
+      } finally {
+        chrome.kill();
       }
       // The median run by score (ties by LCP), so every figure in a row comes from one real run.
       const ordered = [...runs].sort((a, b) => a.score - b.score || b.lcpMs - a.lcpMs);
@@ -236,7 +259,6 @@ async function main(): Promise<void> {
     writeFileSync(path.join(dir, `web-${out.at.replace(/[:.]/g, '-')}.json`), json);
     writeFileSync(path.join(dir, 'web-latest.json'), json);
   } finally {
-    chrome.kill();
     await server.close();
   }
 }
