@@ -1,17 +1,15 @@
-import { AtkinsonHyperlegible_400Regular } from '@expo-google-fonts/atkinson-hyperlegible/400Regular';
-import { AtkinsonHyperlegible_700Bold } from '@expo-google-fonts/atkinson-hyperlegible/700Bold';
 import { QueryClientProvider } from '@tanstack/react-query';
-import { useFonts } from 'expo-font';
 import { Stack, ThemeProvider, type ErrorBoundaryProps } from 'expo-router';
 import { StatusBar } from 'expo-status-bar';
 import { useState } from 'react';
 import { SafeAreaProvider } from 'react-native-safe-area-context';
 
+import { OfflineNotice } from '@/components/navigation/offline-notice';
 import { BootScreen, RouteErrorScreen, SessionErrorScreen } from '@/components/common/shell-states';
 import { navigationThemeFor } from '@/components/theme/navigation-theme';
 import { useTheme } from '@/components/theme/use-theme';
-import { iconFont } from '@/components/ui/icon';
 import { createQueryClient } from '@/hooks/query-client';
+import { useAppFonts } from '@/hooks/use-app-fonts';
 import { useSessionQuery } from '@/hooks/use-session';
 
 export function ErrorBoundary({ retry }: ErrorBoundaryProps) {
@@ -21,12 +19,9 @@ export function ErrorBoundary({ retry }: ErrorBoundaryProps) {
 export default function RootLayout() {
   const [queryClient] = useState(createQueryClient);
   const theme = useTheme();
-  // Bundled with the app and served from our own origin: no font is fetched from elsewhere.
-  const [fontsLoaded, fontError] = useFonts({
-    AtkinsonHyperlegible_400Regular,
-    AtkinsonHyperlegible_700Bold,
-    ...iconFont,
-  });
+  // Bundled with the app and served from our own origin: no font is fetched from elsewhere. On
+  // the web the fonts are declared in index.html and nothing waits for them.
+  const [fontsLoaded, fontError] = useAppFonts();
 
   // A missing font falls back to the system face rather than blocking the app.
   if (!fontsLoaded && !fontError) return null;
@@ -36,6 +31,7 @@ export default function RootLayout() {
       <QueryClientProvider client={queryClient}>
         <ThemeProvider value={navigationThemeFor(theme)}>
           <StatusBar style={theme.scheme === 'dark' ? 'light' : 'dark'} />
+          <OfflineNotice />
           <RootNavigator />
         </ThemeProvider>
       </QueryClientProvider>

@@ -26,7 +26,9 @@ export function createQueryClient(): QueryClient {
         retry: (failureCount, error) =>
           failureCount < MAX_RETRIES && (!isApiError(error) || error.status === 0 || error.status >= 500),
       },
-      mutations: { retry: false },
+      // A change (release, booking, return) is sent now or fails now: never held while offline
+      // and sent later, when the person may have walked away from the bench.
+      mutations: { retry: false, networkMode: 'always' },
     },
   });
   return queryClient;

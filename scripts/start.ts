@@ -27,7 +27,7 @@ async function main(): Promise<void> {
     await db.destroy();
   }
 
-  buildWebIfStale();
+  await buildWebIfStale();
   const app = await startServer(env);
   const url = `http://${app.config.host === '0.0.0.0' ? '127.0.0.1' : app.config.host}:${app.port}`;
   console.log(`\nVoltcrib is running: ${url}   (ready in ${((Date.now() - t0) / 1000).toFixed(1)} s)`);

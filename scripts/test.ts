@@ -30,7 +30,7 @@ async function main(): Promise<number> {
     await recreateDatabase(options);
     await recreateMailDatabase(options);
     await recreateModelDatabase(options);
-    buildWebIfStale();
+    await buildWebIfStale();
     mkdirSync(path.join(ROOT, '.data'), { recursive: true });
     const resultsFile = path.join(ROOT, '.data', 'jest-results.json');
     // Asynchronous on purpose: the S3 fake lives in this process and must keep answering.

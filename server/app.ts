@@ -1,4 +1,5 @@
 // The app factory: tests import createApp() and drive it with supertest; index.ts only listens.
+import compression from 'compression';
 import express, { type Express } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
@@ -77,6 +78,9 @@ export function createApp({ db, config, logger, objectStore, mailbox, mountBefor
       crossOriginEmbedderPolicy: false,
     }),
   );
+  // API answers over 1 KB (lists, a booking) go out gzip/brotli-compressed; the web app's files
+  // are compressed at build time instead (server/web.ts).
+  app.use('/api', compression({ threshold: 1024 }));
   app.use('/api', requestLog(logger), serverTiming, noStore);
   app.use('/api/health', healthRouter(db));
 

@@ -57,3 +57,12 @@ declare module 'autocannon' {
   function autocannon(options: autocannon.Options, callback: (error: Error | null, result: autocannon.Result) => void): unknown;
   export default autocannon;
 }
+
+declare module 'subset-font' {
+  interface SubsetFontOptions {
+    targetFormat?: 'sfnt' | 'woff' | 'woff2' | 'truetype';
+    keepAllGlyphs?: boolean;
+    preserveNameIds?: number[];
+  }
+  export default function subsetFont(font: Buffer, text: string | undefined, options?: SubsetFontOptions): Promise<Buffer>;
+}

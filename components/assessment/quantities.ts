@@ -1,5 +1,8 @@
 // Display of the assessment's numbers: each one with its unit, rounded for reading at a bench.
-import { formatQuantity, type Marker } from '@/shared/hv';
+// The unit formatter and the marker type on their own, not the shared/hv index: booking rows on
+// Today use these, and the index would pull every physics module and table into the first download.
+import type { Marker } from '@/shared/hv/data/types';
+import { formatQuantity } from '@/shared/hv/units';
 
 /** Up to `decimals` places, without trailing zeros: 25 → "25", 27.5 → "27.5". */
 export function trimNumber(value: number, decimals = 2): string {

@@ -3,14 +3,16 @@
 // public CDN at run time — and on a closed lab network that fails silently (no scan, no error).
 // scripts/build-web.ts copies the same wasm (its sha256 matches what barcode-detector expects)
 // into public/, which the web export serves at the root; this points the decoder there.
-// The import is dynamic so the decoder stays out of the main bundle until a scanner mounts.
+// The import is dynamic so the decoder stays out of the main bundle until a scanner mounts, and it
+// names the same module expo-camera imports, so the decoder is one lazy chunk: two different
+// entry points would each carry it and the bundler would hoist it into the chunk every page loads.
 const WASM_PATH = '/zxing_reader.wasm';
 
 let prepared: Promise<void> | null = null;
 
 /** Call before CameraView mounts; resolves once the decoder is instantiated from our own origin. */
 export function prepareDecoder(): Promise<void> {
-  prepared ??= import('barcode-detector/ponyfill')
+  prepared ??= import('barcode-detector')
     .then(({ prepareZXingModule }) =>
       prepareZXingModule({
         overrides: {

@@ -1,13 +1,17 @@
-import createIconSet from '@expo/vector-icons/createIconSet';
+import { Text } from 'react-native';
 
 import { iconSizes } from '@/components/theme/tokens';
 import { useTheme } from '@/components/theme/use-theme';
 
+import { iconFontFile } from './icon-font-file';
+
 // Voltcrib draws every icon from one set, Material Design Icons (the font bundled with
-// @expo/vector-icons). Only the glyphs below are in the app: the set's full name-to-codepoint map
-// would add ~186 KB (~50 KB gzipped) to the web bundle, and a closed list keeps the visual
-// vocabulary deliberate. To add an icon, copy its codepoint from
+// @expo/vector-icons). Only the glyphs below reach the app: the web build cuts the font down to
+// exactly these (scripts/lib/web-fonts.ts reads this object), so the browser gets a few KB
+// instead of the whole 1.3 MB set, and a closed list keeps the visual vocabulary deliberate.
+// To add an icon, add its line here: copy its codepoint from
 // node_modules/@expo/vector-icons/build/vendor/react-native-vector-icons/glyphmaps/MaterialCommunityIcons.json
+// (the build checks every name against that map and stops on a wrong code).
 const glyphs = {
   account: 0xf0004,
   'account-check': 0xf0008,
@@ -78,18 +82,16 @@ const glyphs = {
   wrench: 0xf05b7,
 } as const;
 
-// The font is the one @expo/vector-icons/MaterialCommunityIcons ships; same family name, so it is
-// loaded once whichever module asks for it.
+// The family name the web build's @font-face rule and the native font registration share.
 const FONT_FAMILY = 'material-community';
-// A font asset: Metro resolves the require to a URL on the web and a bundled file on devices.
-const fontFile = require('@expo/vector-icons/build/vendor/react-native-vector-icons/Fonts/MaterialCommunityIcons.ttf');
-
-const IconSet = createIconSet(glyphs, FONT_FAMILY, fontFile);
 
 export type IconName = keyof typeof glyphs;
 
-/** Pass to useFonts in the root layout so icons draw on first paint. */
-export const iconFont = IconSet.font;
+/**
+ * Pass to useFonts on devices. On the web it is empty: the build declares and preloads the cut
+ * font in index.html, so nothing waits for it.
+ */
+export const iconFont: Record<string, number> = iconFontFile === null ? {} : { [FONT_FAMILY]: iconFontFile };
 
 interface IconProps {
   name: IconName;
@@ -101,13 +103,15 @@ interface IconProps {
 export function Icon({ name, size = iconSizes.md, color }: IconProps) {
   const { colors } = useTheme();
   return (
-    <IconSet
-      name={name}
-      size={size}
-      color={color ?? colors.text}
+    <Text
+      selectable={false}
       aria-hidden
       importantForAccessibility="no-hide-descendants"
-    />
+      // A fixed square box: the glyph may arrive a moment after the words (font-display: swap),
+      // and nothing beside it moves when it does.
+      style={{ fontFamily: FONT_FAMILY, fontSize: size, lineHeight: size, width: size, height: size, textAlign: 'center', color: color ?? colors.text, fontWeight: 'normal', fontStyle: 'normal' }}
+    >
+      {String.fromCodePoint(glyphs[name])}
+    </Text>
   );
 }
-

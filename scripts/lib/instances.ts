@@ -31,6 +31,12 @@ export function benchInstance(env: NodeJS.ProcessEnv = process.env): InstanceOpt
   };
 }
 
+/** `npm run bench:web`: the demo data on an instance of its own, emptied on every run. */
+export function benchWebInstance(env: NodeJS.ProcessEnv = process.env): InstanceOptions {
+  const port = Number(env.BENCH_WEB_DB_PORT ?? 3329);
+  return { name: folder('bench-web', port, 3329), port, database: 'voltcrib_bench_web', ...credentials };
+}
+
 /** The environment a server process needs to reach an instance. */
 export function dbEnv(options: InstanceOptions): Record<string, string> {
   return {
