@@ -6,8 +6,8 @@ import type { SessionUser } from '../../shared/schemas/session';
 import { hashPassword } from '../auth/passwords';
 import { isDuplicateKey, type Db, type Trx } from '../db';
 import { AppError, ConflictError, ForbiddenError, NotFoundError } from '../errors';
-import { messages } from '../mail/messages';
-import { enqueueMail } from '../mail/outbox';
+import { enqueueDeferred, enqueueMail } from '../mail/enqueue';
+import { messages, type MailContent } from '../mail/messages';
 import { appendAudit, auditedTransaction } from './audit';
 import { endSessionsOf } from './people';
 
@@ -62,15 +62,24 @@ async function redeem(db: Db, token: string, purpose: 'invitation' | 'password-r
 export const acceptInvitation = (db: Db, token: string, password: string) => redeem(db, token, 'invitation', password);
 export const completePasswordReset = (db: Db, token: string, password: string) => redeem(db, token, 'password-reset', password);
 
-/** Always succeeds from the caller's view: whether the e-mail exists is never revealed. */
+/** The outbox kind of a password-reset request waiting for the worker (preparePasswordReset). */
+export const PASSWORD_RESET_REQUEST = 'password-reset-request';
+
+/**
+ * Always succeeds from the caller's view, and costs the same whether or not the e-mail belongs to
+ * someone: one outbox row, nothing else. The worker looks the person up afterwards.
+ */
 export async function requestPasswordReset(db: Db, email: string, publicUrl: string): Promise<void> {
-  await auditedTransaction(db, async (trx) => {
-    const person = await trx('people').where({ email: email.trim().toLowerCase(), active: true }).whereNotNull('password_hash').forUpdate().first('id', 'name', 'email');
-    if (!person) return;
-    const { token, expiresAt } = await issueToken(trx, person.id, 'password-reset', RESET_MINUTES * 60_000);
-    await enqueueMail(trx, { kind: 'password-reset', to: person.email, ...messages.passwordReset(publicUrl, person.name, token, expiresAt.toISOString()) });
-    await appendAudit(trx, { actorId: null, entity: 'person', entityId: person.id, action: 'person.password-reset-requested' });
-  });
+  await enqueueDeferred(db, PASSWORD_RESET_REQUEST, email.trim().toLowerCase(), { publicUrl });
+}
+
+/** Run by the outbox worker inside its transaction: the reset link's message, or null (no such account). */
+export async function preparePasswordReset(trx: Trx, email: string, facts: Record<string, unknown>): Promise<{ kind: string; content: MailContent } | null> {
+  const person = await trx('people').where({ email, active: true }).whereNotNull('password_hash').forUpdate().first('id', 'name', 'email');
+  if (!person) return null;
+  const { token, expiresAt } = await issueToken(trx, person.id, 'password-reset', RESET_MINUTES * 60_000);
+  await appendAudit(trx, { actorId: null, entity: 'person', entityId: person.id, action: 'person.password-reset-requested' });
+  return { kind: 'password-reset', content: messages.passwordReset(String(facts.publicUrl), person.name, token, expiresAt.toISOString()) };
 }
 
 export async function updatePerson(db: Db, actor: SessionUser, personId: number, input: PersonUpdateInput) {
