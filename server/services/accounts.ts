@@ -16,11 +16,13 @@ const RESET_MINUTES = 60;
 
 const sha256 = (token: string) => createHash('sha256').update(token).digest('hex');
 
-async function issueToken(trx: Trx, personId: number, purpose: 'invitation' | 'password-reset', lifetimeMs: number) {
+async function issueToken(trx: Trx, personId: number, purpose: 'invitation' | 'password-reset', lifetimeMs: number, options: { newPerson?: boolean } = {}) {
   const token = randomBytes(32).toString('base64url');
   const expiresAt = new Date(Date.now() + lifetimeMs);
-  // A new link replaces any earlier unused one of the same purpose.
-  await trx('person_tokens').where({ person_id: personId, purpose }).whereNull('used_at').update({ used_at: new Date() });
+  // A new link replaces any earlier unused one of the same purpose. A person created in this
+  // transaction has none, and the UPDATE would only take a gap lock at the end of the index that
+  // every concurrent invitation then needs for its INSERT: a deadlock between any two of them.
+  if (!options.newPerson) await trx('person_tokens').where({ person_id: personId, purpose }).whereNull('used_at').update({ used_at: new Date() });
   await trx('person_tokens').insert({ person_id: personId, purpose, token_hash: sha256(token), expires_at: expiresAt });
   return { token, expiresAt };
 }
@@ -34,7 +36,7 @@ export async function invitePerson(db: Db, actor: SessionUser, input: Invitation
       if (isDuplicateKey(error)) throw new ConflictError('Someone with that e-mail is already in Voltcrib.', 'EMAIL_TAKEN');
       throw error;
     }
-    const { token, expiresAt } = await issueToken(trx, personId, 'invitation', INVITATION_HOURS * 3600_000);
+    const { token, expiresAt } = await issueToken(trx, personId, 'invitation', INVITATION_HOURS * 3600_000, { newPerson: true });
     await enqueueMail(trx, { kind: 'invitation', to: input.email, ...messages.invitation(publicUrl, input.name, actor.name, token, expiresAt.toISOString()) });
     await appendAudit(trx, { actorId: actor.id, entity: 'person', entityId: personId, action: 'person.invited', after: { email: input.email, name: input.name, role: input.role } });
     return { id: personId, email: input.email, name: input.name, role: input.role };

@@ -18,9 +18,9 @@ export interface RetryOptions {
   onRetry?: (attempt: number, error: unknown) => void;
 }
 
-export const DEFAULT_ATTEMPTS = 5;
-const DEFAULT_BASE_DELAY_MS = 8;
-const MAX_DELAY_MS = 250;
+export const DEFAULT_ATTEMPTS = 6;
+const DEFAULT_BASE_DELAY_MS = 10;
+const MAX_DELAY_MS = 320;
 
 /** Full jitter: a uniform wait in [0, min(cap, base·2^(retry−1))]. */
 export function backoffDelayMs(retry: number, baseDelayMs = DEFAULT_BASE_DELAY_MS, random: () => number = Math.random): number {
