@@ -4,6 +4,7 @@
 // the server reaching MariaDB over its Unix socket and over TCP (their failures differ: a socket
 // connect fails with ENOENT, a TCP one with ECONNREFUSED).
 import { spawn, type ChildProcess } from 'node:child_process';
+import { rmSync } from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
 import { PNG } from 'pngjs';
@@ -13,7 +14,7 @@ import { startFakeSmtp, type FakeSmtp, type ReceivedMessage } from '../../server
 import { messageIdOf } from '../../server/mail/outbox';
 import { startFakeS3, type FakeS3 } from '../../server/storage/fake-s3';
 import { dbEnv } from '../../scripts/lib/instances';
-import { killInstance, resetDatabase, startInstance, stopInstance, type InstanceOptions } from '../../scripts/lib/mariadb';
+import { describeInstance, killInstance, resetDatabase, startInstance, stopInstance, type InstanceOptions } from '../../scripts/lib/mariadb';
 import { insertKit, qualify } from '../helpers/gear';
 import { createPerson } from '../helpers/test-app';
 
@@ -239,6 +240,9 @@ describe.each(TRANSPORTS)('over $transport', ({ transport, overSocket }) => {
 
     await new Promise((r) => setTimeout(r, 4000));
     killInstance(INSTANCE);
+    // A stopped or restarting MariaDB leaves no socket file: connecting then fails with ENOENT,
+    // which express-session would read as "no such session" if the store passed it on.
+    if (overSocket) rmSync(describeInstance(INSTANCE).socket, { force: true });
     outage.on = true;
     // Longer than the session cache's 5 s, so every signed-in request has to ask the store.
     await new Promise((r) => setTimeout(r, 6500));
