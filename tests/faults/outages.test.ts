@@ -327,7 +327,7 @@ describe.each(TRANSPORTS)('over $transport', ({ transport, overSocket }) => {
     expect(Number(releasedWithout?.n)).toBe(0);
     figures.push(
       `over ${transport}: acknowledged bookings ${acknowledgedBookings.size}, releases ${acknowledgedReleases.size}; ${during.length} answers during the 6.5 s outage by status ${JSON.stringify(byStatus(during))} ` +
-        `(${withinSecond}/${startedDuring.length} sent during it answered within 1 s in the server, slowest ${slowest.toFixed(0)} ms;  ${slowestSeen} ms seen by the client after the kill, ${during.filter((a) => a.newSessionCookie).length} new session cookies); sessions intact after ${intact}/${clients.length}; half-written found 0`,
+        `(${withinSecond}/${startedDuring.length} sent during it answered within 1 s in the server, slowest ${slowest.toFixed(0)} ms; slowest seen by the client after the kill ${slowestSeen} ms, ${during.filter((a) => a.newSessionCookie).length} new session cookies); sessions intact after ${intact}/${clients.length}; half-written found 0`,
     );
   }, 120_000);
 
