@@ -1,5 +1,6 @@
 // The app factory: tests import createApp() and drive it with supertest; index.ts only listens.
 import compression from 'compression';
+import cookieParser from 'cookie-parser';
 import express, { type Express } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
@@ -8,7 +9,8 @@ import { createPassport } from './auth/passport';
 import { SessionStore } from './auth/session-store';
 import type { Config } from './config';
 import type { Db } from './db';
-import { csrf } from './middleware/csrf';
+import { createThrottles } from './auth/throttle';
+import { createCsrf } from './middleware/csrf';
 import type { Mailbox } from './mail/fake-smtp';
 import { invitationsRouter, passwordResetsRouter } from './routes/accounts';
 import { auditRouter } from './routes/audit';
@@ -81,11 +83,14 @@ export function createApp({ db, config, logger, objectStore, mailbox, mountBefor
   // API answers over 1 KB (lists, a booking) go out gzip/brotli-compressed; the web app's files
   // are compressed at build time instead (server/web.ts).
   app.use('/api', compression({ threshold: 1024 }));
-  app.use('/api', requestLog(logger), serverTiming, noStore);
+  // Server-Timing tells a visitor how long the server worked on an answer; not in production.
+  app.use('/api', requestLog(logger), ...(config.env === 'production' ? [] : [serverTiming]), noStore);
   app.use('/api/health', healthRouter(db));
 
   const passport = createPassport(db);
-  app.use('/api', express.json({ limit: '100kb' }));
+  const csrf = createCsrf(config.session);
+  const throttles = createThrottles(db, config);
+  app.use('/api', express.json({ limit: '100kb' }), cookieParser());
   mountBeforeSession?.(app);
   app.use(
     '/api',
@@ -94,6 +99,8 @@ export function createApp({ db, config, logger, objectStore, mailbox, mountBefor
       secret: config.session.secret,
       store: new SessionStore(db),
       resave: false,
+      // No row until there is something to keep (a sign-in): anonymous visitors' CSRF tokens
+      // live in a signed cookie instead (middleware/csrf.ts).
       saveUninitialized: false,
       cookie: {
         httpOnly: true,
@@ -104,9 +111,9 @@ export function createApp({ db, config, logger, objectStore, mailbox, mountBefor
     }),
   );
   app.use('/api', passport.session());
-  app.use('/api', csrf.csrfSynchronisedProtection);
+  app.use('/api', csrf.protection);
 
-  app.use('/api/session', sessionRouter(db, passport, config));
+  app.use('/api/session', sessionRouter(db, passport, csrf, throttles.signIn));
   app.use('/api/people', peopleRouter(db, config));
   app.use('/api/groups', groupsRouter(db));
   app.use('/api/qualifications', qualificationsRouter(db));
@@ -120,9 +127,10 @@ export function createApp({ db, config, logger, objectStore, mailbox, mountBefor
   app.use('/api/lab-rules', labRulesRouter(db));
   app.use('/api/checklist-templates', checklistTemplatesRouter(db));
   app.use('/api/audit', auditRouter(db));
-  app.use('/api/invitations', invitationsRouter(db, config));
-  app.use('/api/password-resets', passwordResetsRouter(db, config));
-  app.use('/api/mailbox', mailboxRouter(mailbox));
+  app.use('/api/invitations', invitationsRouter(db, config, throttles.invitation));
+  app.use('/api/password-resets', passwordResetsRouter(db, config, throttles.passwordReset));
+  // The local fake SMTP's messages: only when it is in use, and never in production.
+  app.use('/api/mailbox', mailboxRouter(config.env === 'production' ? undefined : mailbox));
   app.use('/api/reports', reportsRouter(db));
 
   app.use('/api', apiNotFound);

@@ -24,6 +24,7 @@ const envSchema = z.object({
   TRUST_PROXY: bool.default(false),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   LOGIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
+  LOGIN_RATE_LIMIT_PER_ADDRESS: z.coerce.number().int().min(1).default(100),
   WEB_DIR: z.string().default('dist'),
   S3_ENDPOINT: z.string().url().optional(),
   S3_REGION: z.string().min(1).default('us-east-1'),
@@ -31,11 +32,16 @@ const envSchema = z.object({
   S3_ACCESS_KEY_ID: z.string().min(1).default('S3RVER'),
   S3_SECRET_ACCESS_KEY: z.string().min(1).default('S3RVER'),
   UPLOAD_MAX_MB: z.coerce.number().positive().max(100).default(10),
+  BOOKING_PHOTOS_MAX: z.coerce.number().int().min(1).default(24),
+  BOOKING_PHOTOS_MAX_MB: z.coerce.number().positive().default(60),
+  PERSON_UPLOADS_PER_DAY: z.coerce.number().int().min(1).default(100),
+  PERSON_UPLOAD_MB_PER_DAY: z.coerce.number().positive().default(250),
   SMTP_URL: z.string().regex(/^smtps?:\/\//, 'smtp:// or smtps:// URL').optional(),
   SMTP_FAKE_PORT: z.coerce.number().int().min(0).max(65535).default(0),
   MAIL_FROM: z.string().min(3).default('Voltcrib <voltcrib@localhost>'),
   MAIL_CRON: z.string().min(9).default('0 * * * * *'),
   MAIL_POLL_MS: z.coerce.number().int().min(100).max(600_000).default(2000),
+  MAIL_LEASE_MS: z.coerce.number().int().min(1000).max(3_600_000).default(60_000),
   SCHEDULER: bool.default(true),
 });
 
@@ -49,12 +55,16 @@ export interface Config {
   session: { secret: string; maxAgeMs: number; secureCookies: boolean };
   trustProxy: boolean;
   logLevel: string;
+  /** Failed attempts per 15 minutes: per account and address, and per address. */
   loginRateLimit: number;
+  loginRateLimitPerAddress: number;
   webDir: string;
   /** null: development starts a local S3 fake in-process. */
   s3: { endpoint: string | null; region: string; bucket: string; accessKeyId: string; secretAccessKey: string };
   uploadMaxBytes: number;
-  mail: { smtpUrl: string | null; fakePort: number; from: string; cron: string; pollMs: number; scheduler: boolean };
+  /** Caps on booking photos: per booking in all, and per person over the last 24 hours. */
+  uploadCaps: { bookingFiles: number; bookingBytes: number; personFilesPerDay: number; personBytesPerDay: number };
+  mail: { smtpUrl: string | null; fakePort: number; from: string; cron: string; pollMs: number; leaseMs: number; scheduler: boolean };
 }
 
 export class ConfigError extends Error {}
@@ -95,6 +105,7 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     trustProxy: e.TRUST_PROXY,
     logLevel: e.LOG_LEVEL,
     loginRateLimit: e.LOGIN_RATE_LIMIT,
+    loginRateLimitPerAddress: e.LOGIN_RATE_LIMIT_PER_ADDRESS,
     webDir: e.WEB_DIR,
     s3: {
       endpoint: e.S3_ENDPOINT ?? null,
@@ -104,6 +115,12 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
       secretAccessKey: e.S3_SECRET_ACCESS_KEY,
     },
     uploadMaxBytes: Math.round(e.UPLOAD_MAX_MB * 1024 * 1024),
-    mail: { smtpUrl: e.SMTP_URL ?? null, fakePort: e.SMTP_FAKE_PORT, from: e.MAIL_FROM, cron: e.MAIL_CRON, pollMs: e.MAIL_POLL_MS, scheduler: e.SCHEDULER },
+    uploadCaps: {
+      bookingFiles: e.BOOKING_PHOTOS_MAX,
+      bookingBytes: Math.round(e.BOOKING_PHOTOS_MAX_MB * 1024 * 1024),
+      personFilesPerDay: e.PERSON_UPLOADS_PER_DAY,
+      personBytesPerDay: Math.round(e.PERSON_UPLOAD_MB_PER_DAY * 1024 * 1024),
+    },
+    mail: { smtpUrl: e.SMTP_URL ?? null, fakePort: e.SMTP_FAKE_PORT, from: e.MAIL_FROM, cron: e.MAIL_CRON, pollMs: e.MAIL_POLL_MS, leaseMs: e.MAIL_LEASE_MS, scheduler: e.SCHEDULER },
   };
 }

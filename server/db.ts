@@ -57,24 +57,39 @@ export function createDb(config: Pick<Config, 'db'>): Db {
   });
 }
 
+const UNAVAILABLE_CODES = new Set([
+  'ECONNREFUSED',
+  // A Unix socket whose server is gone: the file may be missing while MariaDB restarts.
+  'ENOENT',
+  'ECONNRESET',
+  'EPIPE',
+  'ETIMEDOUT',
+  'EHOSTUNREACH',
+  'ENETUNREACH',
+  'EAI_AGAIN',
+  'PROTOCOL_CONNECTION_LOST',
+  'PROTOCOL_SEQUENCE_TIMEOUT',
+  'ER_CON_COUNT_ERROR',
+  'ER_SERVER_SHUTDOWN',
+  'ER_CONNECTION_KILLED',
+  'ER_QUERY_INTERRUPTED',
+]);
+
 /** True when an error means the database itself could not be reached (not a bad query). */
 export function isDatabaseUnavailable(error: unknown): boolean {
   if (typeof error !== 'object' || error === null) return false;
-  const { code, name, fatal } = error as { code?: string; name?: string; fatal?: boolean };
+  const { code, name, fatal, message } = error as { code?: string; name?: string; fatal?: boolean; message?: unknown };
   if (name === 'KnexTimeoutError') return true;
   if (fatal === true) return true;
-  return [
-    'ECONNREFUSED',
-    // A Unix socket whose server is gone: the file may be missing while MariaDB restarts.
-    'ENOENT',
-    'ECONNRESET',
-    'EPIPE',
-    'ETIMEDOUT',
-    'PROTOCOL_CONNECTION_LOST',
-    'ER_CON_COUNT_ERROR',
-    'ER_SERVER_SHUTDOWN',
-    'ER_CONNECTION_KILLED',
-  ].includes(code ?? '');
+  if (UNAVAILABLE_CODES.has(code ?? '')) return true;
+  // mysql2 refuses a query on a connection that died under it with a plain Error (no code).
+  return typeof message === 'string' && /connection is in closed state|Connection lost/i.test(message);
+}
+
+/** MariaDB's deadlock (1213) and lock-wait timeout (1205): the transaction can simply run again. */
+export function isRetryableLockError(error: unknown): boolean {
+  const { code, errno } = (error ?? {}) as { code?: string; errno?: number };
+  return code === 'ER_LOCK_DEADLOCK' || code === 'ER_LOCK_WAIT_TIMEOUT' || errno === 1213 || errno === 1205;
 }
 
 /** MariaDB's duplicate-key error, so services can answer 409 instead of 500. */

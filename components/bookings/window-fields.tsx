@@ -5,7 +5,9 @@ import { spacing } from '@/components/theme/tokens';
 import { ChoiceChips } from '@/components/ui/choice-chips';
 import { TextField } from '@/components/ui/text-field';
 
-import { addHours, parseLocalText, toLocalText } from './booking-time';
+import { deviceTimeZone, formatUtcOffset, resolveLocalText, wallTextOf, type LocalTimeResolution } from '@/shared/local-time';
+
+import { addHours } from './booking-time';
 
 const FORMAT_HINT = 'Local time, written YYYY-MM-DD HH:MM';
 const LENGTHS = [1, 2, 4, 8] as const;
@@ -14,6 +16,20 @@ const LENGTHS = [1, 2, 4, 8] as const;
 function friendly(error: string | undefined): string | undefined {
   if (error === undefined) return undefined;
   return /ISO date/i.test(error) ? 'Write it as YYYY-MM-DD HH:MM, for example 2026-12-03 14:15' : error;
+}
+
+/** The one instant a typed time names, or '' (not a time, skipped by the clocks, or not yet chosen). */
+function instantOf(resolution: LocalTimeResolution): string {
+  return resolution.kind === 'exact' ? resolution.candidate.instant.toISOString() : '';
+}
+
+/** What to say about a time the clocks skip or repeat; undefined for an ordinary one. */
+function clockChangeError(text: string, resolution: LocalTimeResolution, chosen: boolean): string | undefined {
+  if (resolution.kind === 'nonexistent') {
+    return `${text.trim()} does not exist here: the clocks go forward from ${formatUtcOffset(resolution.offsetBeforeMinutes)} to ${formatUtcOffset(resolution.offsetAfterMinutes)} over that hour. Choose a time outside it.`;
+  }
+  if (resolution.kind === 'ambiguous' && !chosen) return `${text.trim()} happens twice here (the clocks go back). Choose which one below.`;
+  return undefined;
 }
 
 interface TimeFieldProps {
@@ -27,29 +43,47 @@ interface TimeFieldProps {
 }
 
 function TimeField({ label, value, onChange, onBlur, error, testID }: TimeFieldProps) {
-  const [text, setText] = useState(value ? toLocalText(new Date(value)) : '');
+  const zone = deviceTimeZone();
+  const [text, setText] = useState(value ? wallTextOf(new Date(value), zone) : '');
+  const resolution = resolveLocalText(text, zone);
+  const candidates = resolution.kind === 'ambiguous' ? [resolution.earlier, resolution.later] : resolution.kind === 'exact' ? [resolution.candidate] : [];
   // A length chip or a reset moves the value: show it, unless it is what is typed already.
   useEffect(() => {
-    if (value === '' || parseLocalText(text)?.toISOString() === value) return;
-    setText(toLocalText(new Date(value)));
+    if (value === '' || candidates.some((c) => c.instant.toISOString() === value)) return;
+    setText(wallTextOf(new Date(value), zone));
     // Keyed on the value only, so typing is never overwritten mid-word.
   }, [value]);
+  const chosen = resolution.kind === 'ambiguous' ? (['earlier', 'later'] as const).find((which) => resolution[which].instant.toISOString() === value) : undefined;
   return (
-    <TextField
-      label={label}
-      value={text}
-      onChangeText={(next) => {
-        setText(next);
-        onChange(parseLocalText(next)?.toISOString() ?? '');
-      }}
-      onBlur={onBlur}
-      error={friendly(error)}
-      hint={FORMAT_HINT}
-      testID={testID}
-      autoCorrect={false}
-      autoCapitalize="none"
-      inputMode="text"
-    />
+    <View style={styles.field}>
+      <TextField
+        label={label}
+        value={text}
+        onChangeText={(next) => {
+          setText(next);
+          onChange(instantOf(resolveLocalText(next, zone)));
+        }}
+        onBlur={onBlur}
+        error={clockChangeError(text, resolution, chosen !== undefined) ?? friendly(error)}
+        hint={FORMAT_HINT}
+        testID={testID}
+        autoCorrect={false}
+        autoCapitalize="none"
+        inputMode="text"
+      />
+      {resolution.kind === 'ambiguous' ? (
+        <ChoiceChips
+          label={`Which ${text.trim()}?`}
+          testID={`${testID}-instant`}
+          choices={[
+            { value: 'earlier', label: `First, ${formatUtcOffset(resolution.earlier.offsetMinutes)}` },
+            { value: 'later', label: `Second, ${formatUtcOffset(resolution.later.offsetMinutes)}` },
+          ]}
+          value={chosen}
+          onChange={(which) => onChange(resolution[which].instant.toISOString())}
+        />
+      ) : null}
+    </View>
   );
 }
 
@@ -86,4 +120,5 @@ export function WindowFields({ startsAt, endsAt, onStartsAt, onEndsAt, startsAtE
 
 const styles = StyleSheet.create({
   root: { gap: spacing.md },
+  field: { gap: spacing.sm },
 });

@@ -6,10 +6,24 @@
 //   by more than TOUCH_STEP_MS, which keeps signed-in reads at one statement for the session.
 // - that one statement is skipped while this process holds a fresh copy of the row
 //   (./session-cache.ts says why that is safe).
+// - an unreachable database is reported as a 503 error, never as "no such session": express-session
+//   treats an error whose code is ENOENT (what a Unix-socket connect fails with while MariaDB is
+//   down) as a missing session, and would then hand out a new, empty session with a new cookie
+//   that replaces the person's valid one in the browser.
+// - expired rows are purged by the scheduler (server/jobs/purge.ts), not by a timer per store.
 import { ConnectSessionKnexStore } from 'connect-session-knex';
 import type { SessionData } from 'express-session';
-import type { Db } from '../db';
+import { isDatabaseUnavailable, type Db } from '../db';
+import { UnavailableError } from '../errors';
 import { sessionCacheOf, type SessionCache } from './session-cache';
+
+/** What the store hands express-session instead of a raw database error. */
+export function storeError(error: unknown): unknown {
+  if (isDatabaseUnavailable(error)) return new UnavailableError();
+  // Any other error with ENOENT would also be read as "no session": keep it an error.
+  if ((error as { code?: unknown } | null)?.code === 'ENOENT') return new UnavailableError();
+  return error;
+}
 
 type Callback<T = void> = (error?: unknown, value?: T) => void;
 
@@ -19,7 +33,7 @@ export class SessionStore extends ConnectSessionKnexStore {
   private readonly cache: SessionCache;
 
   constructor(private readonly db: Db) {
-    super({ knex: db, tableName: 'sessions', createTable: false, cleanupInterval: 10 * 60_000, onDbCleanupError: () => {} });
+    super({ knex: db, tableName: 'sessions', createTable: false, cleanupInterval: 0, onDbCleanupError: () => {} });
     // The base class rejects `ready` when the table check fails (database down at boot).
     (this as unknown as { ready: Promise<void> }).ready.catch(() => {});
     this.cache = sessionCacheOf(db);
@@ -38,7 +52,7 @@ export class SessionStore extends ConnectSessionKnexStore {
       callback(null, session);
       return session;
     } catch (error) {
-      callback(error);
+      callback(storeError(error));
       return null;
     }
   }
@@ -57,12 +71,12 @@ export class SessionStore extends ConnectSessionKnexStore {
 
   override set(sid: string, session: SessionData, callback?: Callback): Promise<void> {
     this.cache.forget(sid);
-    return super.set(sid, session, (error?: unknown) => callback?.(error)).catch(() => undefined);
+    return super.set(sid, session, (error?: unknown) => callback?.(error ? storeError(error) : undefined)).catch(() => undefined);
   }
 
   override destroy(sid: string, callback?: Callback): Promise<number> {
     this.cache.forget(sid);
-    return super.destroy(sid, (error?: unknown) => callback?.(error)).catch(() => 0);
+    return super.destroy(sid, (error?: unknown) => callback?.(error ? storeError(error) : undefined)).catch(() => 0);
   }
 
   override touch(sid: string, session: SessionData, callback?: Callback): Promise<void> {
@@ -77,6 +91,6 @@ export class SessionStore extends ConnectSessionKnexStore {
     return super
       .touch(sid, session)
       .then(() => callback?.())
-      .catch((error: unknown) => callback?.(error));
+      .catch((error: unknown) => callback?.(storeError(error)));
   }
 }

@@ -1,9 +1,11 @@
-// Runs the reminder scans on a cron schedule and drains the outbox often. Every server process
-// runs it; dedupe keys and leased claims keep each message single.
+// Runs the reminder scans and the purge of expired sessions and throttling counters on a cron
+// schedule, and drains the outbox often. Every server process runs it; dedupe keys and leased
+// claims keep each message single.
 import { Cron } from 'croner';
 import type { Logger } from 'pino';
 import type { Db } from '../db';
 import type { OutboxWorker } from '../mail/outbox';
+import { purgeExpired } from './purge';
 import { enqueueInspectionDigests, enqueueOverdueReminders } from './reminders';
 
 export interface Scheduler {
@@ -17,6 +19,7 @@ export function startScheduler(options: { db: Db; worker: OutboxWorker; publicUr
     try {
       await enqueueOverdueReminders(db, publicUrl);
       await enqueueInspectionDigests(db, publicUrl);
+      await purgeExpired(db);
       await worker.drain();
     } catch (err) {
       logger.warn({ err }, 'scheduled reminders failed; next run will retry');

@@ -10,6 +10,8 @@ export interface ReceivedMessage {
   subject: string;
   text: string;
   html: string | null;
+  /** The Message-ID header, by which a receiving server can drop a second copy. */
+  messageId: string | null;
   receivedAt: string;
 }
 
@@ -23,7 +25,14 @@ export interface FakeSmtp extends Mailbox {
   close(): Promise<void>;
 }
 
-export async function startFakeSmtp(options: { port?: number; host?: string } = {}): Promise<FakeSmtp> {
+export interface FakeSmtpOptions {
+  port?: number;
+  host?: string;
+  /** Called with each message before the server answers 250 (the fault suite acts here). */
+  onMessage?: (message: ReceivedMessage) => void;
+}
+
+export async function startFakeSmtp(options: FakeSmtpOptions = {}): Promise<FakeSmtp> {
   const messages: ReceivedMessage[] = [];
   let nextId = 1;
   const server = new SMTPServer({
@@ -34,15 +43,18 @@ export async function startFakeSmtp(options: { port?: number; host?: string } = 
     onData(stream, session, callback) {
       simpleParser(stream)
         .then((parsed) => {
-          messages.unshift({
+          const message: ReceivedMessage = {
             id: nextId++,
             to: session.envelope.rcptTo.map((r) => r.address),
             from: typeof session.envelope.mailFrom === 'object' && session.envelope.mailFrom ? session.envelope.mailFrom.address : '',
             subject: parsed.subject ?? '',
             text: parsed.text ?? '',
             html: typeof parsed.html === 'string' ? parsed.html : null,
+            messageId: parsed.messageId ?? null,
             receivedAt: new Date().toISOString(),
-          });
+          };
+          messages.unshift(message);
+          options.onMessage?.(message);
           callback();
         })
         .catch((error: Error) => callback(error));

@@ -88,7 +88,7 @@ export function bookingsRouter(db: Db, config: Config, store: ObjectStore): Rout
     const bookingId = id(req);
     await readUpload(req);
     validate(photoFieldsSchema, req.body ?? {}, 'upload');
-    res.status(201).json({ file: await storeBookingPhoto(db, store, currentUser(req), bookingId, receivedFile(req)) });
+    res.status(201).json({ file: await storeBookingPhoto(db, store, currentUser(req), bookingId, receivedFile(req), config.uploadCaps) });
   });
   router.get('/:id/checklist-runs', async (req, res) => {
     res.json({ runs: await listChecklistRuns(db, currentUser(req), id(req)) });

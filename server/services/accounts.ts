@@ -6,8 +6,8 @@ import type { SessionUser } from '../../shared/schemas/session';
 import { hashPassword } from '../auth/passwords';
 import { isDuplicateKey, type Db, type Trx } from '../db';
 import { AppError, ConflictError, ForbiddenError, NotFoundError } from '../errors';
-import { messages } from '../mail/messages';
-import { enqueueMail } from '../mail/outbox';
+import { enqueueDeferred, enqueueMail } from '../mail/enqueue';
+import { messages, type MailContent } from '../mail/messages';
 import { appendAudit, auditedTransaction } from './audit';
 import { cancelOpenBookingsOf, lockOpenBookingsOf, type MailContext } from './bookings';
 import { endSessionsOf } from './people';
@@ -17,11 +17,13 @@ const RESET_MINUTES = 60;
 
 const sha256 = (token: string) => createHash('sha256').update(token).digest('hex');
 
-async function issueToken(trx: Trx, personId: number, purpose: 'invitation' | 'password-reset', lifetimeMs: number) {
+async function issueToken(trx: Trx, personId: number, purpose: 'invitation' | 'password-reset', lifetimeMs: number, options: { newPerson?: boolean } = {}) {
   const token = randomBytes(32).toString('base64url');
   const expiresAt = new Date(Date.now() + lifetimeMs);
-  // A new link replaces any earlier unused one of the same purpose.
-  await trx('person_tokens').where({ person_id: personId, purpose }).whereNull('used_at').update({ used_at: new Date() });
+  // A new link replaces any earlier unused one of the same purpose. A person created in this
+  // transaction has none, and the UPDATE would only take a gap lock at the end of the index that
+  // every concurrent invitation then needs for its INSERT: a deadlock between any two of them.
+  if (!options.newPerson) await trx('person_tokens').where({ person_id: personId, purpose }).whereNull('used_at').update({ used_at: new Date() });
   await trx('person_tokens').insert({ person_id: personId, purpose, token_hash: sha256(token), expires_at: expiresAt });
   return { token, expiresAt };
 }
@@ -35,7 +37,7 @@ export async function invitePerson(db: Db, actor: SessionUser, input: Invitation
       if (isDuplicateKey(error)) throw new ConflictError('Someone with that e-mail is already in Voltcrib.', 'EMAIL_TAKEN');
       throw error;
     }
-    const { token, expiresAt } = await issueToken(trx, personId, 'invitation', INVITATION_HOURS * 3600_000);
+    const { token, expiresAt } = await issueToken(trx, personId, 'invitation', INVITATION_HOURS * 3600_000, { newPerson: true });
     await enqueueMail(trx, { kind: 'invitation', to: input.email, ...messages.invitation(publicUrl, input.name, actor.name, token, expiresAt.toISOString()) });
     await appendAudit(trx, { actorId: actor.id, entity: 'person', entityId: personId, action: 'person.invited', after: { email: input.email, name: input.name, role: input.role } });
     return { id: personId, email: input.email, name: input.name, role: input.role };
@@ -63,15 +65,24 @@ async function redeem(db: Db, token: string, purpose: 'invitation' | 'password-r
 export const acceptInvitation = (db: Db, token: string, password: string) => redeem(db, token, 'invitation', password);
 export const completePasswordReset = (db: Db, token: string, password: string) => redeem(db, token, 'password-reset', password);
 
-/** Always succeeds from the caller's view: whether the e-mail exists is never revealed. */
+/** The outbox kind of a password-reset request waiting for the worker (preparePasswordReset). */
+export const PASSWORD_RESET_REQUEST = 'password-reset-request';
+
+/**
+ * Always succeeds from the caller's view, and costs the same whether or not the e-mail belongs to
+ * someone: one outbox row, nothing else. The worker looks the person up afterwards.
+ */
 export async function requestPasswordReset(db: Db, email: string, publicUrl: string): Promise<void> {
-  await auditedTransaction(db, async (trx) => {
-    const person = await trx('people').where({ email: email.trim().toLowerCase(), active: true }).whereNotNull('password_hash').forUpdate().first('id', 'name', 'email');
-    if (!person) return;
-    const { token, expiresAt } = await issueToken(trx, person.id, 'password-reset', RESET_MINUTES * 60_000);
-    await enqueueMail(trx, { kind: 'password-reset', to: person.email, ...messages.passwordReset(publicUrl, person.name, token, expiresAt.toISOString()) });
-    await appendAudit(trx, { actorId: null, entity: 'person', entityId: person.id, action: 'person.password-reset-requested' });
-  });
+  await enqueueDeferred(db, PASSWORD_RESET_REQUEST, email.trim().toLowerCase(), { publicUrl });
+}
+
+/** Run by the outbox worker inside its transaction: the reset link's message, or null (no such account). */
+export async function preparePasswordReset(trx: Trx, email: string, facts: Record<string, unknown>): Promise<{ kind: string; content: MailContent } | null> {
+  const person = await trx('people').where({ email, active: true }).whereNotNull('password_hash').forUpdate().first('id', 'name', 'email');
+  if (!person) return null;
+  const { token, expiresAt } = await issueToken(trx, person.id, 'password-reset', RESET_MINUTES * 60_000);
+  await appendAudit(trx, { actorId: null, entity: 'person', entityId: person.id, action: 'person.password-reset-requested' });
+  return { kind: 'password-reset', content: messages.passwordReset(String(facts.publicUrl), person.name, token, expiresAt.toISOString()) };
 }
 
 export async function updatePerson(db: Db, actor: SessionUser, personId: number, input: PersonUpdateInput, mail: MailContext) {

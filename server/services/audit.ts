@@ -3,9 +3,10 @@
 // edit or removal made behind the application's back.
 import { createHash } from 'node:crypto';
 import type { AuditEvent, AuditPage, AuditVerification } from '../../shared/schemas/audit';
-import { isDatabaseUnavailable, type Db, type Trx } from '../db';
+import { isDatabaseUnavailable, isRetryableLockError, type Db, type Trx } from '../db';
 import { AppError, UnavailableError } from '../errors';
 import { wellFormed } from '../well-formed';
+import { withDeadlockRetry } from './deadlock-retry';
 
 export interface AuditInput {
   actorId: number | null;
@@ -79,7 +80,12 @@ export function appendAudit(trx: Trx, input: AuditInput): Promise<void> {
  * `canonical({ ...entry, prevHash })`; "prevHash" sorts after every other key, so the app sends
  * everything before the previous hash as a prefix and the database completes it.
  */
-export async function auditedTransaction<T>(db: Db, body: (trx: Trx) => Promise<T>): Promise<T> {
+export function auditedTransaction<T>(db: Db, body: (trx: Trx) => Promise<T>): Promise<T> {
+  // A deadlock victim is rolled back whole, so the whole body runs again (deadlock-retry.ts).
+  return withDeadlockRetry(() => auditedTransactionOnce(db, body));
+}
+
+async function auditedTransactionOnce<T>(db: Db, body: (trx: Trx) => Promise<T>): Promise<T> {
   const trx = await db.transaction();
   queued.set(trx, []);
   try {
@@ -110,7 +116,7 @@ export async function auditedTransaction<T>(db: Db, body: (trx: Trx) => Promise<
     }
     // Knex ends a transaction by itself when its connection dies; the body's next query then
     // fails with "Transaction query already complete". Report the outage, not that symptom.
-    if (error instanceof AppError || isDatabaseUnavailable(error)) throw error;
+    if (error instanceof AppError || isDatabaseUnavailable(error) || isRetryableLockError(error)) throw error;
     throw new UnavailableError();
   }
 }

@@ -1,5 +1,5 @@
-// What an uploaded file is, judged by its bytes (never its name) against an allow-list, and
-// whether its name is a plain file name.
+// What an uploaded file is, judged by its bytes (never its name) against an allow-list, and the
+// plain name it is stored under (its extension follows the bytes).
 import { createHash } from 'node:crypto';
 import { AppError, ValidationError } from '../errors';
 
@@ -26,15 +26,37 @@ export interface CheckedFile {
   buffer: Buffer;
 }
 
-/** Refuses names that look like paths or carry control characters, instead of guessing. */
-export function checkFileName(name: string): string {
-  const trimmed = name.toWellFormed().normalize('NFC').trim();
-  // eslint-disable-next-line no-control-regex
-  if (trimmed.length === 0 || trimmed.length > 200 || /[\\/\u0000-\u001f\u007f]/.test(trimmed) || trimmed.split('.').every((p) => p === '')) {
-    throw new ValidationError('The file name is not acceptable: use a plain name without folders.', { file: ['Plain file names only'] });
-  }
-  if (trimmed.includes('..')) throw new ValidationError('The file name is not acceptable: use a plain name without folders.', { file: ['Plain file names only'] });
-  return trimmed;
+/** The extension a stored file gets for each allowed type; other spellings the type is known by. */
+const EXTENSIONS: Record<string, { canonical: string; aliases: string[] }> = {
+  'image/jpeg': { canonical: 'jpg', aliases: ['jpg', 'jpeg'] },
+  'image/png': { canonical: 'png', aliases: ['png'] },
+  'image/webp': { canonical: 'webp', aliases: ['webp'] },
+  'application/pdf': { canonical: 'pdf', aliases: ['pdf'] },
+};
+
+// C0 and C1 controls, and the Unicode bidirectional controls (marks, embeddings, overrides and
+// isolates: U+061C, U+200E, U+200F, U+202A–U+202E, U+2066–U+2069), which can make
+// "gnp\u202E.exe" read as "exe.png". Unicode Standard Annex #9, table 4.
+// eslint-disable-next-line no-control-regex
+const INVISIBLE = /[\u0000-\u001f\u007f-\u009f\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/g;
+
+const refused = () => new ValidationError('The file name is not acceptable: use a plain name without folders.', { file: ['Plain file names only'] });
+
+/**
+ * The name a file is stored and served under: the name sent, cleaned of control and bidirectional
+ * characters, with the extension of the type its bytes show (a PNG sent as "evil.html" is kept as
+ * "evil.png"). Names that look like paths are refused rather than guessed at.
+ */
+export function storedFileName(name: string, contentType: string): string {
+  const cleaned = name.toWellFormed().normalize('NFC').replace(INVISIBLE, '').trim();
+  if (cleaned.length === 0 || cleaned.length > 200 || /[\\/]/.test(cleaned) || cleaned.includes('..') || cleaned.split('.').every((p) => p === '')) throw refused();
+  const dot = cleaned.lastIndexOf('.');
+  const extension = dot >= 0 ? cleaned.slice(dot + 1) : '';
+  const { canonical, aliases } = EXTENSIONS[contentType] ?? { canonical: 'bin', aliases: [] };
+  if (aliases.includes(extension.toLowerCase())) return cleaned;
+  // Trailing dots and spaces are dropped by some file systems and would hide the extension.
+  const base = (dot >= 0 ? cleaned.slice(0, dot) : cleaned).replace(/[.\s]+$/, '') || 'file';
+  return `${base}.${canonical}`;
 }
 
 /** The content type and kind the bytes show; 415 unless it is one of the `accepted` kinds. */
@@ -50,10 +72,10 @@ async function detectKind(buffer: Buffer, accepted: readonly FileKind[]): Promis
   return { contentType: detected.mime, kind };
 }
 
-/** Checks the name, then the bytes; nothing is stored yet. */
+/** Checks the bytes, then names the file after what they are; nothing is stored yet. */
 export async function checkUpload(upload: { originalName: string; buffer: Buffer }, accepted: readonly FileKind[]): Promise<CheckedFile> {
-  const fileName = checkFileName(upload.originalName);
   const { contentType, kind } = await detectKind(upload.buffer, accepted);
+  const fileName = storedFileName(upload.originalName, contentType);
   return {
     fileName,
     contentType,

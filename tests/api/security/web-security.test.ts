@@ -1,10 +1,11 @@
 // The web-facing defences: the session cookie's flags, session ids across sign-in and sign-out,
 // the Content-Security-Policy, how stored uploads are served, the rate limits on the account
 // endpoints, and the audit chain's tamper evidence.
+import { randomBytes } from 'node:crypto';
 import request from 'supertest';
 import { verifyAuditChain } from '../../../server/services/audit';
 import { pngBytes, World } from '../../helpers/route-fixtures';
-import { anonymousAgent, createPerson, createTestContext, signedInAs, type TestContext } from '../../helpers/test-app';
+import { anonymousAgent, createPerson, createTestContext, signedInAs, uniqueEmail, type TestContext } from '../../helpers/test-app';
 
 let ctx: TestContext;
 beforeAll(() => {
@@ -29,9 +30,31 @@ async function sessionRow(sid: string) {
   return ctx.db('sessions').where({ sid }).first('sid');
 }
 
+const CSRF_COOKIE = 'voltcrib.csrf';
+
+function cookieNamed(res: { headers: Record<string, unknown> }, name: string): string | undefined {
+  const cookies = ([] as string[]).concat((res.headers['set-cookie'] as string[] | string | undefined) ?? []);
+  return cookies.find((c) => c.startsWith(`${name}=`));
+}
+
+/** Signs in with plain requests (no cookie jar), so every cookie the server sets can be read. */
+async function signInRaw(app: TestContext['app'], person: { email: string; password: string }, headers: Record<string, string> = {}) {
+  const visit = await request(app).get('/api/session').set(headers).expect(200);
+  const csrfCookie = ([] as string[]).concat((visit.headers['set-cookie'] as unknown as string[]) ?? []).find((c) => /voltcrib\.csrf=/.test(c))!;
+  const res = await request(app).post('/api/session').set(headers).set('Cookie', csrfCookie.split(';')[0]!).set('x-csrf-token', visit.body.csrfToken).send({ email: person.email, password: person.password });
+  return { visit, res };
+}
+
 describe('the session cookie', () => {
-  it('is HttpOnly and SameSite=Lax, and not Secure over plain http', async () => {
-    const res = await request(ctx.app).get('/api/session').expect(200);
+  it('is set only at sign-in, HttpOnly and SameSite=Lax, and not Secure over plain http', async () => {
+    const person = await createPerson(ctx.db);
+    const { visit, res } = await signInRaw(ctx.app, person);
+    expect(res.status).toBe(200);
+    // A signed-out visit has no session at all; its CSRF token rides in a signed cookie of its own.
+    expect(sessionCookie(visit)).toBeUndefined();
+    const csrf = cookieNamed(visit, CSRF_COOKIE);
+    expect(csrf).toMatch(/;\s*HttpOnly/i);
+    expect(csrf).toMatch(/;\s*SameSite=Strict/i);
     const cookie = sessionCookie(res);
     expect(cookie).toBeDefined();
     expect(cookie).toMatch(/;\s*HttpOnly/i);
@@ -47,8 +70,11 @@ describe('the session cookie', () => {
     });
     afterAll(() => https.close());
 
-    it('is also Secure', async () => {
-      const res = await request(https.app).get('/api/session').set('X-Forwarded-Proto', 'https').expect(200);
+    it('is also Secure, and the CSRF cookie is a Secure __Host- cookie', async () => {
+      const person = await createPerson(https.db);
+      const { visit, res } = await signInRaw(https.app, person, { 'X-Forwarded-Proto': 'https' });
+      expect(res.status).toBe(200);
+      expect(cookieNamed(visit, `__Host-${CSRF_COOKIE}`)).toMatch(/;\s*Secure/i);
       const cookie = sessionCookie(res);
       expect(cookie).toMatch(/;\s*Secure/i);
       expect(cookie).toMatch(/;\s*HttpOnly/i);
@@ -56,7 +82,8 @@ describe('the session cookie', () => {
     });
 
     it('is never sent over plain http', async () => {
-      const res = await request(https.app).get('/api/session').expect(200);
+      const person = await createPerson(https.db);
+      const { res } = await signInRaw(https.app, person);
       expect(sessionCookie(res)).toBeUndefined();
     });
 
@@ -68,18 +95,15 @@ describe('the session cookie', () => {
 });
 
 describe('the session id', () => {
-  it('changes at sign-in (the signed-out session is gone) and its row is deleted at sign-out', async () => {
+  it('is new at sign-in (a signed-out visit has none) and its row is deleted at sign-out', async () => {
     const person = await createPerson(ctx.db);
     const agent = request.agent(ctx.app);
     const visit = await agent.get('/api/session').expect(200);
-    const anonSid = sessionId(sessionCookie(visit));
-    expect(await sessionRow(anonSid)).toBeDefined();
+    expect(sessionCookie(visit)).toBeUndefined();
 
     const signIn = await agent.post('/api/session').set('x-csrf-token', visit.body.csrfToken).send({ email: person.email, password: person.password }).expect(200);
     const signedSid = sessionId(sessionCookie(signIn));
-    expect(signedSid).not.toBe(anonSid);
     expect(await sessionRow(signedSid)).toBeDefined();
-    expect(await sessionRow(anonSid)).toBeUndefined();
 
     const token = (await agent.get('/api/session').expect(200)).body.csrfToken as string;
     await agent.delete('/api/session').set('x-csrf-token', token).expect(204);
@@ -210,7 +234,7 @@ describe('stored uploads', () => {
 });
 
 describe('rate limits (LOGIN_RATE_LIMIT=3)', () => {
-  // A fresh app per limiter: each keeps its own counts in memory.
+  // Counts live in the database; each case uses an account, e-mail or link of its own.
   let limited: TestContext;
   beforeEach(() => {
     limited = createTestContext({ LOGIN_RATE_LIMIT: '3' });
@@ -236,13 +260,13 @@ describe('rate limits (LOGIN_RATE_LIMIT=3)', () => {
   });
 
   it('answers 429 on the fourth password-reset request', async () => {
-    const { statuses, last } = await hammer('/api/password-resets', { email: 'nobody@test.voltcrib.example' }, 4);
+    const { statuses, last } = await hammer('/api/password-resets', { email: uniqueEmail('nobody') }, 4);
     expect(statuses).toEqual([202, 202, 202, 429]);
     expect(last.body.error?.code).toBe('RATE_LIMITED');
   });
 
   it('answers 429 on the fourth attempt to accept an invitation', async () => {
-    const { statuses, last } = await hammer(`/api/invitations/${'A'.repeat(43)}`, { password: 'a long enough password' }, 4);
+    const { statuses, last } = await hammer(`/api/invitations/${randomBytes(32).toString('base64url')}`, { password: 'a long enough password' }, 4);
     expect(statuses).toEqual([410, 410, 410, 429]);
     expect(last.body.error?.code).toBe('RATE_LIMITED');
   });
