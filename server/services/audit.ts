@@ -7,6 +7,7 @@ import { isDatabaseUnavailable, isRetryableLockError, type Db, type Trx } from '
 import { AppError, UnavailableError } from '../errors';
 import { wellFormed } from '../well-formed';
 import { withDeadlockRetry } from './deadlock-retry';
+import { canonical } from '../../shared/canonical-json';
 
 export interface AuditInput {
   actorId: number | null;
@@ -18,17 +19,6 @@ export interface AuditInput {
 }
 
 
-function canonical(value: unknown): string {
-  if (value === undefined || value === null) return 'null';
-  if (Array.isArray(value)) return `[${value.map(canonical).join(',')}]`;
-  if (typeof value === 'object') {
-    const entries = Object.entries(value as Record<string, unknown>)
-      .filter(([, v]) => v !== undefined)
-      .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
-    return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${canonical(v)}`).join(',')}}`;
-  }
-  return JSON.stringify(value);
-}
 
 function parseJson(value: unknown): unknown {
   // mysql2 hands MariaDB JSON columns back as strings (they are LONGTEXT underneath).

@@ -4,6 +4,7 @@
 import type { AssessedItem, Assessment } from './assessment';
 import type { ItemKind } from '../schemas/items';
 import type { TestPlan } from '../schemas/bookings';
+import { canonical } from '../canonical-json';
 
 export interface ApprovalBasisItem {
   id: number;
@@ -59,18 +60,6 @@ export function approvalBasisOf(booking: BasisBooking, items: readonly AssessedI
   };
 }
 
-/** JSON with sorted keys: ratings objects compare by content, not by key order. */
-function canonical(value: unknown): string {
-  if (value === null || value === undefined) return 'null';
-  if (Array.isArray(value)) return `[${value.map(canonical).join(',')}]`;
-  if (typeof value === 'object') {
-    const entries = Object.entries(value as Record<string, unknown>)
-      .filter(([, v]) => v !== undefined)
-      .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
-    return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${canonical(v)}`).join(',')}}`;
-  }
-  return JSON.stringify(value);
-}
 
 /**
  * Computed figures may differ in the last bits when recomputed; a part in a billion is not a
