@@ -10,7 +10,7 @@ import type { SessionUser } from '../../shared/schemas/session';
 import type { Db, Trx } from '../db';
 import { AppError, ConflictError, NotFoundError, ValidationError } from '../errors';
 import { messages } from '../mail/messages';
-import { enqueueMail } from '../mail/outbox';
+import { enqueueMail } from '../mail/enqueue';
 import { appendAudit, auditedTransaction } from './audit';
 import { assertCounterAccess, lockBooking } from './booking-access';
 import { bookingPhotoIdsAmong } from './booking-photos';

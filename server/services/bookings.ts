@@ -26,7 +26,7 @@ import type { SessionUser } from '../../shared/schemas/session';
 import type { Db, Trx } from '../db';
 import { AppError, ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../errors';
 import { messages, type BookingFacts } from '../mail/messages';
-import { enqueueMail } from '../mail/outbox';
+import { enqueueMail } from '../mail/enqueue';
 import { appendAudit, auditedTransaction } from './audit';
 import { assertCounterAccess, canSeeBooking, lockBooking, STAFF } from './booking-access';
 import { clashingTags, holdItems, itemTaken, lockItems } from './booking-holds';
