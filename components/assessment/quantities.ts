@@ -27,11 +27,3 @@ export function formatMetres(metres: number | null, printed: string): string {
   return metres === null ? printed : `${trimNumber(metres, 2)} m (${printed})`;
 }
 
-/** How far a standard's number can be trusted, in words (shared/hv/data/types.ts). */
-export const markerWords: Record<Marker, string> = {
-  confirmed: 'confirmed against the standard',
-  'partly-confirmed': 'partly confirmed',
-  'from-memory': 'unconfirmed: check against the purchased standard',
-  'common-practice': 'common practice, no single standard',
-  derived: 'derived from confirmed formulas',
-};
