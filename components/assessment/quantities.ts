@@ -1,5 +1,5 @@
 // Display of the assessment's numbers: each one with its unit, rounded for reading at a bench.
-import { formatQuantity, type Marker } from '@/shared/hv';
+import { formatQuantity } from '@/shared/hv';
 
 /** Up to `decimals` places, without trailing zeros: 25 → "25", 27.5 → "27.5". */
 export function trimNumber(value: number, decimals = 2): string {
