@@ -9,7 +9,6 @@ import { Card } from '@/components/ui/card';
 import { Table, TableCell, TableRow } from '@/components/ui/table';
 import { KIND_LABELS, type ItemSummary } from '@/shared/schemas/items';
 
-import { itemAccessibleName } from './gear-list';
 import { InspectionBadge, StatusBadge } from './item-badges';
 
 const columns = [
@@ -30,7 +29,6 @@ export function GearTable({ items }: { items: ItemSummary[] }) {
             <TableCell column={itemColumn}>
               <Link
                 href={{ pathname: '/gear/[id]', params: { id: String(item.id) } }}
-                accessibilityLabel={itemAccessibleName(item)}
                 testID={`gear-link-${item.id}`}
                 style={styles.link}
               >
