@@ -6,7 +6,7 @@ import type { Locator, Page } from 'playwright-core';
 import { PNG } from 'pngjs';
 import { insertItem, renameItem } from '../helpers/gear';
 import { createPerson, uniqueWord } from '../helpers/test-app';
-import { e2eSuite, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, WIDE } from '../helpers/e2e';
+import { e2eSuite, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, WIDE, expectAccessible } from '../helpers/e2e';
 
 const suite = e2eSuite();
 
@@ -26,6 +26,7 @@ function rows(page: Page, options?: { hasText: string }): Locator {
 async function openGear(page: Page): Promise<void> {
   await shown(page, 'nav-gear').click();
   await shown(page, 'gear-screen').waitFor();
+  await expectAccessible(page, 'gear');
 }
 
 /** Polls until the locator matches exactly `n` elements (lists update after a debounce). */
@@ -69,6 +70,7 @@ it('a manager registers a multiplier, finds it, fails its inspection and sees it
     await shown(page, 'item-form-submit').click();
 
     await shown(page, 'item-screen').waitFor({ timeout: 15_000 });
+    await expectAccessible(page, 'item');
     const tag = (await shown(page, 'item-tag').textContent({ timeout: 15_000 })) ?? '';
     expect(tag).toMatch(/^MUL-\d{4}$/);
     await expect(shown(page, 'item-rating-stageCapacitanceNf').textContent()).resolves.toContain('2.2 nF');
@@ -85,6 +87,7 @@ it('a manager registers a multiplier, finds it, fails its inspection and sees it
     expect(await rows(page).count()).toBe(1);
     await row.click();
     await shown(page, 'item-screen').waitFor();
+    await expectAccessible(page, 'item');
     await expect(shown(page, 'item-tag').textContent()).resolves.toBe(tag);
 
     // A failed inspection says beforehand that it tags the item out, and does.

@@ -4,7 +4,7 @@ import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { SAFETY_CAUTION } from '../../shared/rules/assessment';
 import { createPerson } from '../helpers/test-app';
-import { e2eSuite, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, WIDE } from '../helpers/e2e';
+import { e2eSuite, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, WIDE, expectAccessible } from '../helpers/e2e';
 
 const suite = e2eSuite();
 let member: { email: string; password: string };
@@ -17,6 +17,7 @@ async function openPlanner(viewport = PHONE, colorScheme: 'light' | 'dark' = 'li
   await signInThroughUi(opened.page, suite.server.baseUrl, member.email, member.password);
   await opened.page.goto(`${suite.server.baseUrl}/planner`, { waitUntil: 'load' });
   await opened.page.getByTestId('planner-screen').waitFor();
+  await expectAccessible(opened.page, 'planner');
   await opened.page.getByTestId('planner-tab-energy').waitFor({ timeout: 20_000 });
   return opened;
 }

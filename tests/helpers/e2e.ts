@@ -89,10 +89,13 @@ export async function newPage(browser: Browser, viewport: { width: number; heigh
 
 export async function signInThroughUi(page: Page, baseUrl: string, email: string, password: string): Promise<void> {
   await page.goto(`${baseUrl}/`, { waitUntil: 'load' });
+  await page.getByTestId('sign-in-screen').waitFor({ timeout: 20_000 });
+  await expectAccessible(page, 'sign-in');
   await page.getByTestId('sign-in-email').fill(email);
   await page.getByTestId('sign-in-password').fill(password);
   await page.getByTestId('sign-in-submit').click();
   await page.getByTestId('today-screen').waitFor({ timeout: 20_000 });
+  await expectAccessible(page, 'today');
 }
 
 export const SCREENSHOT_DIR = path.resolve(__dirname, '../../test-results');
@@ -124,6 +127,12 @@ export function e2eSuite(): E2eSuite {
 // ---------------------------------------------------------------------------------------------
 // Accessibility: axe-core (pinned in package.json) injected into the page, run on every screen a
 // browser test visits at both viewports and in both colour schemes. Any violation fails the test.
+
+// Four axe runs per screen: browser tests get three minutes each instead of jest's one.
+jest.setTimeout(180_000);
+
+/** Screens (by the name a test gives) already checked in this test file: each is checked once. */
+const checkedScreens = new Set<string>();
 
 const AXE_SOURCE = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
 const A11Y_VIEWPORTS = [
@@ -165,9 +174,12 @@ async function axeViolations(page: Page): Promise<AxeViolation[]> {
 /**
  * Fails when axe-core finds any violation on the current screen, at 390x844 and 1280x800, light
  * and dark. The page is put back to its own viewport and scheme afterwards, so a test goes on
- * where it was. `screen` names the screen in the failure and the log.
+ * where it was. `screen` names the screen (and its state, where one matters) in the failure and
+ * the log; a name already checked in this file is not checked again.
  */
 export async function expectAccessible(page: Page, screen: string): Promise<void> {
+  if (checkedScreens.has(screen)) return;
+  checkedScreens.add(screen);
   const ownSize = page.viewportSize();
   const ownScheme = (await page.evaluate(() => matchMedia('(prefers-color-scheme: dark)').matches)) ? 'dark' : 'light';
   const problems: string[] = [];
