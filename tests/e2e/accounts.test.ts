@@ -345,9 +345,10 @@ describe('a manager on Reports', () => {
       await expect(page.getByTestId(`reports-overdue-${overdueId}`).textContent({ timeout: 15_000 })).resolves.toMatch(/Ada Brandt[\s\S]*2 h overdue/);
       await expect(page.getByTestId('reports-overdue-csv').getAttribute('href')).resolves.toBe('/api/reports/overdue.csv');
 
-      // Soonest first, at most 50: an item a day overdue is listed unless 50 older ones exist.
-      await page.getByTestId('reports-inspections').getByText(/Overdue|Due soon/).first().waitFor({ timeout: 15_000 });
-      const older = await suite.server.db('items').whereNot('status', 'retired').andWhere('next_inspection_due', '<', addDaysIso(todayIso(), -1)).count({ n: '*' }).first();
+      // Never inspected first, then soonest, at most 50: an item a day overdue is listed unless 50
+      // never-inspected or older ones exist.
+      await page.getByTestId('reports-inspections').getByText(/Never inspected|Overdue|Due soon/).first().waitFor({ timeout: 15_000 });
+      const older = await suite.server.db('items').whereNot('status', 'retired').andWhere((w) => w.whereNull('next_inspection_due').orWhere('next_inspection_due', '<', addDaysIso(todayIso(), -1))).count({ n: '*' }).first();
       if (Number(older?.n) < 50) await page.getByTestId(`reports-inspection-${dueItem.id}`).waitFor();
       await expect(page.getByTestId('reports-inspections-csv').getAttribute('href')).resolves.toBe('/api/reports/inspections.csv');
 
