@@ -1,30 +1,31 @@
-import { router, usePathname } from 'expo-router';
+import { router } from 'expo-router';
 
 import { roleLabels } from '@/components/common/roles';
-import { areaAudience, canEnter, restrictedEntryFor } from '@/components/navigation/nav-model';
+import { areaAudience, canEnter, type Area } from '@/components/navigation/nav-model';
 
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { Screen } from '@/components/ui/screen';
 import { useCurrentUser } from '@/hooks/use-session';
 
-/** Unknown addresses, and screens this person's role does not open. */
-export function NotFoundScreen() {
+/**
+ * Unknown addresses, and (with `closedArea`, from RoleGate) screens this person's role does not
+ * open: those say whom the page is for. The group's URL is not always the one typed (the router
+ * settles on the group's first screen), so the words name the audience, not the page.
+ */
+export function NotFoundScreen({ closedArea }: { closedArea?: Area }) {
   const user = useCurrentUser();
-  const pathname = usePathname();
-  // A real screen the person's role does not open: say so, rather than "nothing here".
-  const restricted = restrictedEntryFor(pathname);
-  const closed = user && restricted && !canEnter(restricted.area, user.role) ? restricted : undefined;
+  const closed = user && closedArea && !canEnter(closedArea, user.role) ? closedArea : undefined;
   return (
-    <Screen testID="not-found-screen" title={closed ? `${closed.label}: not open to you` : 'Not found'} hideTitle centered>
+    <Screen testID="not-found-screen" title={closed ? 'Not open to your role' : 'Not found'} hideTitle centered>
       <EmptyState
         icon="map-marker-question"
         headingLevel={1}
         testID={closed ? 'not-found-role' : 'not-found-nothing'}
-        title={closed ? `${closed.label} is for ${areaAudience[closed.area]}` : 'Nothing here'}
+        title={closed ? `This page is for ${areaAudience[closed]}` : 'Nothing here'}
         message={
           closed
-            ? `You are signed in as a ${roleLabels[user!.role].toLowerCase()}, so this page is not open to you. Ask the lab manager if your work needs it.`
+            ? `You are signed in as a ${roleLabels[user!.role].toLowerCase()}, so it is not open to you. Ask the lab manager if your work needs it.`
             : 'This address is not a page in Voltcrib. Check the link, or go on from Today.'
         }
         action={

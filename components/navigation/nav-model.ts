@@ -59,11 +59,6 @@ export const areaAudience: Record<Area, string> = {
   staff: 'safety officers and lab managers',
 };
 
-/** The role-restricted entry `pathname` belongs to, if any (so not-found can say why). */
-export function restrictedEntryFor(pathname: string): NavEntry | undefined {
-  return extraEntries.find((entry) => entry.area !== 'everyone' && isActive(entry, pathname));
-}
-
 /** Tools every signed-in person has beyond the bottom bar. */
 export function toolEntries(): NavEntry[] {
   return extraEntries.filter((entry) => entry.area === 'everyone');
