@@ -84,7 +84,7 @@ export function auditWords(event: AuditEvent): AuditWords {
       const plan = values(after.plan);
       const kv = num(plan.plannedKv);
       const waits = after.status === 'awaiting-approval' ? '; it waits for a safety officer' : '';
-      return say(`${who} booked ${list(subject.tags)}${kv !== null ? ` for a ${formatKv(kv)} test` : ''} (${booking})${waits}.`, text(plan.purpose), bookingLink);
+      return say(`${who} booked ${list(subject.tags)}${kv !== null ? ` for a test at ${formatKv(kv)}` : ''} (${booking})${waits}.`, text(plan.purpose), bookingLink);
     }
     case 'booking.updated':
       return say(`${who} changed the window or gear of ${booking}.`, null, bookingLink);

@@ -98,3 +98,21 @@ it('says why a page is closed to a member, and offers no "Try again" for a booki
     await context.close();
   }
 });
+
+it('shows the password on request while signing in on a phone', async () => {
+  const { context, page } = await newPage(suite.browser.browser, PHONE);
+  try {
+    await page.goto(`${suite.server.baseUrl}/`, { waitUntil: 'load' });
+    await page.getByTestId('sign-in-password').fill('correct horse');
+    await expect(page.getByTestId('sign-in-password').getAttribute('type')).resolves.toBe('password');
+    await page.getByTestId('sign-in-password-show').click();
+    await expect(page.getByTestId('sign-in-password').getAttribute('type')).resolves.toBe('text');
+    await expect(page.getByTestId('sign-in-password-show').getAttribute('aria-pressed')).resolves.toBe('true');
+    await expect(page.getByTestId('sign-in-password').inputValue()).resolves.toBe('correct horse');
+    await expectAccessible(page, 'sign-in with the password shown');
+    await page.getByTestId('sign-in-password-show').click();
+    await expect(page.getByTestId('sign-in-password').getAttribute('type')).resolves.toBe('password');
+  } finally {
+    await context.close();
+  }
+});

@@ -50,7 +50,7 @@ describe('auditWords', () => {
 
   it('writes a booking with its gear, voltage and waiting state', () => {
     const words = auditWords(event('booking.created', 'booking', { subject: { personName: 'Noor', tags: ['GST-0002', 'PSU-0001'] }, after: { status: 'awaiting-approval', plan: { plannedKv: 45 } } }));
-    expect(words.sentence).toBe('Ada Okafor booked GST-0002, PSU-0001 for a 45 kV test (booking #12); it waits for a safety officer.');
+    expect(words.sentence).toBe('Ada Okafor booked GST-0002, PSU-0001 for a test at 45 kV (booking #12); it waits for a safety officer.');
   });
 
   it('lists changed lab rules by name', () => {
