@@ -116,3 +116,33 @@ it('shows the password on request while signing in on a phone', async () => {
     await context.close();
   }
 });
+
+it('keeps dark colours when chosen on More, whatever the system says, and goes back to following it', async () => {
+  const member = await createPerson(suite.server.db, { role: 'member', name: 'Ilse Marchetti' });
+  const { context, page } = await newPage(suite.browser.browser, PHONE, 'light');
+  const background = () => page.getByTestId('more-screen').evaluate((el) => getComputedStyle(el).backgroundColor);
+  const settlesOn = (want: (colour: string) => boolean) =>
+    page.waitForFunction(() => getComputedStyle(document.querySelector('[data-testid="more-screen"]')!).backgroundColor).then(async () => {
+      for (let i = 0; i < 50 && !want(await background()); i += 1) await page.waitForTimeout(100);
+      return background();
+    });
+  try {
+    await signInThroughUi(page, suite.server.baseUrl, member.email, member.password);
+    await page.getByTestId('nav-more').click();
+    await page.getByTestId('more-screen').waitFor();
+    const light = await background();
+    await page.getByTestId('theme-choice-dark').click();
+    const dark = await settlesOn((c) => c !== light);
+    expect(dark).not.toBe(light);
+    // Survives a reload (stored in this browser) and a system switch to light.
+    await page.reload({ waitUntil: 'load' });
+    await page.getByTestId('more-screen').waitFor({ timeout: 20_000 });
+    await expect(settlesOn((c) => c === dark)).resolves.toBe(dark);
+    await expectAccessible(page, 'more with dark chosen');
+    await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'more-theme-dark-phone.png') });
+    await page.getByTestId('theme-choice-system').click();
+    await expect(settlesOn((c) => c === light)).resolves.toBe(light);
+  } finally {
+    await context.close();
+  }
+});
