@@ -15,6 +15,13 @@ it('records a qualification that the release rules then read', async () => {
     await page.getByTestId('qualifications-screen').waitFor({ timeout: 20_000 });
     await expectAccessible(page, 'qualifications');
     await page.getByTestId(`qualification-person-${member.id}`).click();
+    // On a phone the form opens in view, under the person, with a way out.
+    await page.getByTestId('qualification-form').waitFor();
+    expect(await page.getByTestId('qualification-kv').evaluate((el) => { const r = el.getBoundingClientRect(); return r.top >= 0 && r.bottom <= innerHeight; })).toBe(true);
+    await page.getByTestId('qualification-cancel').click();
+    await page.getByTestId('qualification-form').waitFor({ state: 'detached' });
+    await page.getByTestId(`qualification-person-${member.id}`).click();
+    await expectAccessible(page, 'qualifications editing');
     await page.getByTestId('qualification-kv').fill('30');
     await page.getByTestId('qualification-expires').fill('31/12/2027');
     await page.getByTestId('qualification-save').click();
