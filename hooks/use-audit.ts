@@ -9,6 +9,13 @@ export type { AuditEvent, AuditPage, AuditVerification };
 export interface AuditFilter {
   entity?: string;
   id?: string;
+  /** A gear tag or its start. */
+  tag?: string;
+  /** Part of a name or e-mail address. */
+  person?: string;
+  /** ISO instants (the day's start and end on the reader's clock). */
+  from?: string;
+  to?: string;
 }
 
 export const auditKeys = {
@@ -24,6 +31,10 @@ function auditPath(filter: AuditFilter, cursor: string | null): string {
   const params = new URLSearchParams({ limit: String(PAGE_SIZE) });
   if (filter.entity) params.set('entity', filter.entity);
   if (filter.id) params.set('id', filter.id);
+  if (filter.tag) params.set('tag', filter.tag);
+  if (filter.person) params.set('person', filter.person);
+  if (filter.from) params.set('from', filter.from);
+  if (filter.to) params.set('to', filter.to);
   if (cursor) params.set('cursor', cursor);
   return `/api/audit?${params.toString()}`;
 }

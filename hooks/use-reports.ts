@@ -3,8 +3,7 @@
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
 
 import type { BookingSummary } from '@/shared/schemas/bookings';
-import type { GroupUsage, UsageReport } from '@/shared/schemas/reports';
-import type { ItemSummary } from '@/shared/schemas/items';
+import type { DeskOverview, GroupUsage, InspectionDue, InspectionsDueReport, UsageReport } from '@/shared/schemas/reports';
 
 import { apiRequest } from './api-client';
 
@@ -16,7 +15,7 @@ export interface ReportPeriod {
 
 /** An overdue booking is a booking summary (GET /api/bookings?status=overdue). */
 export type OverdueBooking = BookingSummary;
-export type { GroupUsage, UsageReport };
+export type { DeskOverview, GroupUsage, InspectionDue, UsageReport };
 
 export const INSPECTIONS_DUE_LIMIT = 50;
 const OVERDUE_LIMIT = 100;
@@ -28,6 +27,8 @@ export const reportKeys = {
   // recorded inspection invalidates those lists, and these reports must refresh with them.
   overdue: () => ['bookings', 'list', 'report', 'overdue'] as const,
   inspectionsDue: () => ['items', 'list', 'report', 'inspections-due'] as const,
+  // Under the bookings lists, so a decision, release or return refreshes the desk at once.
+  desk: () => ['bookings', 'list', 'report', 'desk'] as const,
 };
 
 /**
@@ -69,11 +70,21 @@ export function useOverdueBookingsQuery() {
   });
 }
 
-/** Items whose inspection is overdue or due soon, soonest first. */
+/** Items whose inspection is overdue, due soon or never done (never done blocks release too). */
 export function useInspectionsDueQuery() {
   return useQuery({
     queryKey: reportKeys.inspectionsDue(),
-    queryFn: ({ signal }) =>
-      apiRequest<{ items: ItemSummary[]; nextCursor: string | null }>(`/api/items?due=soon&sort=nextDue&limit=${INSPECTIONS_DUE_LIMIT}`, { signal }),
+    queryFn: ({ signal }) => apiRequest<InspectionsDueReport>(`/api/reports/inspections?limit=${INSPECTIONS_DUE_LIMIT}`, { signal }),
+  });
+}
+
+/** Today's desk for officers and managers: counts of what needs someone now. */
+export function useDeskOverviewQuery(enabled: boolean) {
+  return useQuery({
+    queryKey: reportKeys.desk(),
+    queryFn: ({ signal }) => apiRequest<DeskOverview>('/api/reports/desk', { signal }),
+    enabled,
+    // Counts span bookings and gear; a minute old is fresh enough for a desk.
+    refetchInterval: 60_000,
   });
 }

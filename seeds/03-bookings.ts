@@ -8,8 +8,10 @@ import type { SessionUser } from '../shared/schemas/session';
 import { createBooking, decideApproval, recordScan, releaseBooking, submitChecklist } from '../server/services/bookings';
 import { addDaysIso, todayIso } from '../server/services/dates';
 import { setQualification } from '../server/services/qualifications';
+import { loadConfig } from '../server/config';
 
-const MAIL = { publicUrl: process.env.PUBLIC_URL ?? 'http://127.0.0.1:8080' };
+// The address the server is actually reached at (PUBLIC_URL, else HOST:PORT), as in every e-mail.
+const MAIL = { publicUrl: loadConfig().publicUrl };
 const HOUR = 3600_000;
 
 async function person(knex: Knex, email: string): Promise<SessionUser> {

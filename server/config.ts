@@ -1,6 +1,7 @@
 // Configuration comes from environment variables only, each with a safe default for a lab
 // workstation. Production must set SESSION_SECRET and PUBLIC_URL (the README lists them all).
 import { z } from 'zod';
+import { isTimeZone } from './mail/lab-time';
 
 const bool = z
   .enum(['true', 'false', '1', '0'])
@@ -11,6 +12,8 @@ const envSchema = z.object({
   HOST: z.string().min(1).default('127.0.0.1'),
   PORT: z.coerce.number().int().min(0).max(65535).default(8080),
   PUBLIC_URL: z.string().url().optional(),
+  // The clock e-mails are written in (an IANA name such as Europe/London); unset: the server's.
+  LAB_TIME_ZONE: z.string().refine(isTimeZone, 'an IANA time zone name such as Europe/London').optional(),
   DB_HOST: z.string().min(1).default('127.0.0.1'),
   DB_PORT: z.coerce.number().int().min(1).max(65535).default(3307),
   DB_SOCKET: z.string().min(1).max(107, 'Unix socket paths are at most 107 bytes').optional(),

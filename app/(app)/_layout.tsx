@@ -1,15 +1,12 @@
 import { Tabs } from 'expo-router/js-tabs';
 
 import { AppNavigation } from '@/components/navigation/app-navigation';
-import { canEnter } from '@/components/navigation/nav-model';
 import { useTheme } from '@/components/theme/use-theme';
 import { useBreakpoints } from '@/hooks/use-breakpoints';
-import { useCurrentUser } from '@/hooks/use-session';
 
-// The signed-in app. Role groups are guarded here, from the same table the menus read, so a
-// screen a role may not open is not in the navigator at all: its URL shows not-found.
+// The signed-in app. Role groups are guarded in their own layouts (RoleGate), from the same
+// table the menus read.
 export default function AppLayout() {
-  const role = useCurrentUser()?.role;
   const { isWide } = useBreakpoints();
   const { colors } = useTheme();
 
@@ -29,15 +26,11 @@ export default function AppLayout() {
       <Tabs.Screen name="bookings" />
       <Tabs.Screen name="more" />
       <Tabs.Screen name="planner" />
-      <Tabs.Protected guard={canEnter('officer', role)}>
-        <Tabs.Screen name="(officer)" />
-      </Tabs.Protected>
-      <Tabs.Protected guard={canEnter('manager', role)}>
-        <Tabs.Screen name="(manager)" />
-      </Tabs.Protected>
-      <Tabs.Protected guard={canEnter('staff', role)}>
-        <Tabs.Screen name="(staff)" />
-      </Tabs.Protected>
+      {/* Role groups guard themselves (RoleGate in each group's layout), so a URL outside the
+          person's role says whom the page is for instead of landing silently on Today. */}
+      <Tabs.Screen name="(officer)" />
+      <Tabs.Screen name="(manager)" />
+      <Tabs.Screen name="(staff)" />
     </Tabs>
   );
 }

@@ -5,7 +5,8 @@ import { AppText } from '@/components/ui/app-text';
 import type { Assessment } from '@/shared/rules/assessment';
 
 import { Fact } from './fact';
-import { formatKv, formatMetres, markerWords } from './quantities';
+import { boundarySourceWords } from './boundary-source';
+import { formatKv, formatMetres } from './quantities';
 import { SourceLine } from './source-line';
 
 type Boundaries = NonNullable<Assessment['boundaries']>;
@@ -44,7 +45,7 @@ export function BoundariesFacts({ assessment, testID = 'assessment-boundaries' }
       <AppText>{`Limited approach, movable conductor: ${formatMetres(b.limitedMovableM, b.limitedMovableImperial)}`}</AppText>
       <AppText>{`Limited approach, fixed part: ${formatMetres(b.limitedFixedM, b.limitedFixedImperial)}`}</AppText>
       <AppText>{`Restricted approach: ${formatMetres(b.restrictedM, b.restrictedImperial)}`}</AppText>
-      <SourceLine>{`${b.source}, ${b.edition} (${markerWords[b.marker as keyof typeof markerWords] ?? b.marker}); feet and inches as the table prints them`}</SourceLine>
+      <SourceLine testID={`${testID}-source`}>{`${boundarySourceWords(b)}. Feet and inches as the table prints them.`}</SourceLine>
     </View>
   );
 }

@@ -1,7 +1,6 @@
 // Display of the assessment's numbers: each one with its unit, rounded for reading at a bench.
-// The unit formatter and the marker type on their own, not the shared/hv index: booking rows on
-// Today use these, and the index would pull every physics module and table into the first download.
-import type { Marker } from '@/shared/hv/data/types';
+// The unit formatter on its own, not the shared/hv index: booking rows on Today use it, and the
+// index would pull every physics module and table into the first download.
 import { formatQuantity } from '@/shared/hv/units';
 
 /** Up to `decimals` places, without trailing zeros: 25 → "25", 27.5 → "27.5". */
@@ -30,11 +29,3 @@ export function formatMetres(metres: number | null, printed: string): string {
   return metres === null ? printed : `${trimNumber(metres, 2)} m (${printed})`;
 }
 
-/** How far a standard's number can be trusted, in words (shared/hv/data/types.ts). */
-export const markerWords: Record<Marker, string> = {
-  confirmed: 'confirmed against the standard',
-  'partly-confirmed': 'partly confirmed',
-  'from-memory': 'unconfirmed: check against the purchased standard',
-  'common-practice': 'common practice, no single standard',
-  derived: 'derived from confirmed formulas',
-};

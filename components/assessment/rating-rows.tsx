@@ -12,6 +12,14 @@ import { formatKv, trimNumber } from './quantities';
 import { SourceLine } from './source-line';
 
 /** Each item's rating against what the plan needs, with the margin left (or missing). */
+/** "5 kV above the plan" / "10 kV below the plan": never a signed "−10 kV over". */
+export function marginWords(marginKv: number | null): string {
+  if (marginKv === null) return 'margin unknown';
+  const size = trimNumber(Math.abs(marginKv), 1);
+  if (Number(size) === 0) return 'rated exactly at the plan';
+  return marginKv > 0 ? `${size} kV above the plan` : `${size} kV below the plan`;
+}
+
 export function RatingRows({ assessment, testID = 'assessment-ratings' }: { assessment: Assessment; testID?: string }) {
   const { colors } = useTheme();
   const marginPct = assessment.plannedKv > 0 ? (assessment.requiredKv / assessment.plannedKv - 1) * 100 : 0;
@@ -33,7 +41,7 @@ export function RatingRows({ assessment, testID = 'assessment-ratings' }: { asse
             <AppText>
               {item.ratedKv === null
                 ? 'No voltage rating'
-                : `Rated ${formatKv(item.ratedKv)} · needs ${formatKv(item.requiredKv)} · ${item.marginKv === null ? 'margin —' : `${item.marginKv >= 0 ? '+' : ''}${trimNumber(item.marginKv, 1)} kV over the plan`}`}
+                : `Rated ${formatKv(item.ratedKv)} · needs ${formatKv(item.requiredKv)} · ${marginWords(item.marginKv)}`}
             </AppText>
             {fine ? (
               <Badge label="Rated for the plan" icon="check-circle" />

@@ -18,7 +18,8 @@ export function SafetyCaution({ cautions = [], testID = 'safety-caution' }: Safe
   return (
     <View
       testID={testID}
-      accessibilityRole="summary"
+      role="note"
+      aria-label="Safety caution"
       style={[styles.box, { borderColor: colors.hazard.warning.edge, backgroundColor: colors.surface }]}
     >
       <HazardBadge level="warning" detail="High voltage" />

@@ -6,7 +6,10 @@ import { borders, fontFamilies, layout, radii, spacing, typeScale } from '@/comp
 import { useTheme } from '@/components/theme/use-theme';
 import { AppText } from '@/components/ui/app-text';
 import { Icon } from '@/components/ui/icon';
+import { TextLink } from '@/components/ui/text-link';
 import type { AuditEvent } from '@/hooks/use-audit';
+
+import { auditWords } from './audit-words';
 
 /** Before and after as compact JSON: an inspector wants the stored values, not a paraphrase. */
 function compact(value: unknown): string {
@@ -14,26 +17,35 @@ function compact(value: unknown): string {
   return JSON.stringify(value, null, 1).replace(/\n\s*/g, ' ');
 }
 
-/** One entry of the trail: what happened to what, who did it and when; the values on demand. */
+/** One entry of the trail: a sentence in the lab's words, when, a way to its subject, and the stored values on demand. */
 export function AuditEventRow({ event, divided }: { event: AuditEvent; divided: boolean }) {
   const { colors } = useTheme();
   const [open, setOpen] = useState(false);
+  const words = auditWords(event);
+  const toggleText = open ? 'Hide the stored values' : 'Show the stored values';
   return (
-    <View testID={`audit-event-${event.id}`} style={[styles.row, divided && { borderTopWidth: borders.hairline, borderTopColor: colors.border }]}>
-      <Pressable
-        accessibilityRole="button"
-        accessibilityLabel={`${event.action} on ${event.entity} ${event.entityId}; ${open ? 'hide' : 'show'} the values`}
-        aria-expanded={open}
-        onPress={() => setOpen(!open)}
-        style={styles.head}
-        testID={`audit-event-${event.id}-toggle`}
-      >
-        <View style={styles.text}>
-          <AppText variant="bodyStrong">{event.action}</AppText>
-          <AppText variant="small" tone="muted">{`${event.entity} ${event.entityId} · ${event.actorName ?? 'the system'} · ${formatDateTime(event.at)} · #${event.id}`}</AppText>
-        </View>
-        <Icon name={open ? 'chevron-up' : 'chevron-down'} color={colors.textMuted} />
-      </Pressable>
+    <View testID={`audit-event-${event.id}`} role="listitem" style={[styles.row, divided && { borderTopWidth: borders.hairline, borderTopColor: colors.border }]}>
+      <AppText variant="bodyStrong" testID={`audit-event-${event.id}-sentence`}>
+        {words.sentence}
+      </AppText>
+      {words.detail ? <AppText>{words.detail}</AppText> : null}
+      <AppText variant="small" tone="muted">{`${formatDateTime(event.at)} · entry ${event.id}`}</AppText>
+      <View style={styles.actions}>
+        {words.link ? <TextLink label={words.link.label} href={words.link.href} testID={`audit-event-${event.id}-link`} /> : null}
+        <Pressable
+          accessibilityRole="button"
+          accessibilityLabel={toggleText}
+          aria-expanded={open}
+          onPress={() => setOpen(!open)}
+          style={styles.toggle}
+          testID={`audit-event-${event.id}-toggle`}
+        >
+          <AppText variant="label" tone="muted">
+            {toggleText}
+          </AppText>
+          <Icon name={open ? 'chevron-up' : 'chevron-down'} color={colors.textMuted} />
+        </Pressable>
+      </View>
       {open ? (
         <View style={styles.values}>
           <Values label="Before" value={event.before} />
@@ -57,9 +69,9 @@ function Values({ label, value }: { label: string; value: unknown }) {
 }
 
 const styles = StyleSheet.create({
-  row: { paddingHorizontal: spacing.md },
-  head: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm, minHeight: layout.listRowMinHeight, paddingVertical: spacing.xs },
-  text: { flex: 1, gap: spacing.xxs },
+  row: { paddingHorizontal: spacing.md, paddingTop: spacing.sm, gap: spacing.xxs },
+  actions: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', columnGap: spacing.lg },
+  toggle: { flexDirection: 'row', alignItems: 'center', gap: spacing.xs, minHeight: layout.minTouchTarget },
   values: { gap: spacing.sm, paddingBottom: spacing.md },
   valueBlock: { gap: spacing.xxs },
   code: { fontFamily: fontFamilies.regular, fontSize: typeScale.small.fontSize, padding: spacing.xs, borderRadius: radii.sm },

@@ -21,7 +21,6 @@ export function BookingRow({ booking, showPerson = false, divided = false }: Boo
     <LinkRow
       href={{ pathname: '/bookings/[id]', params: { id: String(booking.id) } }}
       testID={`booking-row-${booking.id}`}
-      accessibilityLabel={`Booking ${booking.id}, ${booking.status}${booking.overdue ? ', overdue' : ''}, ${formatWindow(booking.startsAt, booking.endsAt)}`}
       divided={divided}
     >
       <BookingStatusBadge status={booking.status} overdue={booking.overdue} testID={`booking-row-${booking.id}-status`} />

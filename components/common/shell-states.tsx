@@ -12,7 +12,7 @@ import { VoltcribMark } from '@/components/ui/voltcrib-mark';
 function ShellFrame({ testID, children }: { testID: string; children: ReactNode }) {
   const { colors } = useTheme();
   return (
-    <View testID={testID} style={[styles.frame, { backgroundColor: colors.background }]}>
+    <View testID={testID} role="main" style={[styles.frame, { backgroundColor: colors.background }]}>
       <View style={styles.column}>
         <VoltcribMark size={layout.markSizeLarge} />
         {children}

@@ -20,13 +20,9 @@ export function GearList({ items }: { items: ItemSummary[] }) {
   );
 }
 
-export function itemAccessibleName(item: ItemSummary): string {
-  return [item.tag, item.name, KIND_LABELS[item.kind], formatKv(item.ratedKv), STATUS_LOOKS[item.status].word, INSPECTION_LOOKS[item.inspectionState].word].join(', ');
-}
-
 function GearRow({ item, divided }: { item: ItemSummary; divided: boolean }) {
   return (
-    <LinkRow href={{ pathname: '/gear/[id]', params: { id: String(item.id) } }} testID={`gear-row-${item.id}`} accessibilityLabel={itemAccessibleName(item)} divided={divided}>
+    <LinkRow href={{ pathname: '/gear/[id]', params: { id: String(item.id) } }} testID={`gear-row-${item.id}`} divided={divided}>
       <View style={styles.topLine}>
         <AppText variant="smallStrong" tone="muted" style={styles.tag}>
           {item.tag}

@@ -1,4 +1,4 @@
-import { Link } from 'expo-router';
+import { Link, router } from 'expo-router';
 import { StyleSheet } from 'react-native';
 
 import { formatDay } from '@/components/items/format-dates';
@@ -9,7 +9,6 @@ import { Card } from '@/components/ui/card';
 import { Table, TableCell, TableRow } from '@/components/ui/table';
 import { KIND_LABELS, type ItemSummary } from '@/shared/schemas/items';
 
-import { itemAccessibleName } from './gear-list';
 import { InspectionBadge, StatusBadge } from './item-badges';
 
 const columns = [
@@ -19,28 +18,25 @@ const columns = [
   { key: 'inspection', label: 'Inspection', flex: 4 },
 ] as const;
 
-/** Wide layout: the same rows as a table; the tag and name cell is the link to the item. */
+/**
+ * Wide layout: the same items as a table at list density (tag and name on one line), the whole
+ * row opening the item; the tag and name is the row's link for keyboards and screen readers.
+ */
 export function GearTable({ items }: { items: ItemSummary[] }) {
   const [itemColumn, ratedColumn, statusColumn, inspectionColumn] = columns;
   return (
     <Card flush testID="gear-table">
       <Table label="Gear" columns={columns}>
         {items.map((item) => (
-          <TableRow key={item.id} testID={`gear-row-${item.id}`}>
+          <TableRow key={item.id} testID={`gear-row-${item.id}`} onPress={() => router.push({ pathname: '/gear/[id]', params: { id: String(item.id) } })}>
             <TableCell column={itemColumn}>
-              <Link
-                href={{ pathname: '/gear/[id]', params: { id: String(item.id) } }}
-                accessibilityLabel={itemAccessibleName(item)}
-                testID={`gear-link-${item.id}`}
-                style={styles.link}
-              >
-                <AppText variant="bodyStrong" tone="primary">
+              <Link href={{ pathname: '/gear/[id]', params: { id: String(item.id) } }} testID={`gear-link-${item.id}`} style={styles.link} numberOfLines={1}>
+                <AppText variant="bodyStrong" tone="primary" style={styles.tag}>
                   {item.tag}
                 </AppText>
-                {'\n'}
-                <AppText variant="body">{item.name}</AppText>
+                <AppText variant="body">{` ${item.name}`}</AppText>
               </Link>
-              <AppText variant="small" tone="muted">
+              <AppText variant="small" tone="muted" numberOfLines={1}>
                 {`${KIND_LABELS[item.kind]} · ${item.location}`}
               </AppText>
             </TableCell>
@@ -52,7 +48,7 @@ export function GearTable({ items }: { items: ItemSummary[] }) {
             </TableCell>
             <TableCell column={inspectionColumn}>
               <InspectionBadge state={item.inspectionState} />
-              <AppText variant="small" tone="muted">
+              <AppText variant="small" tone="muted" numberOfLines={1}>
                 {item.nextInspectionDue ? `Next due ${formatDay(item.nextInspectionDue)}` : 'No inspection on record'}
               </AppText>
             </TableCell>
@@ -64,5 +60,8 @@ export function GearTable({ items }: { items: ItemSummary[] }) {
 }
 
 const styles = StyleSheet.create({
-  link: { minHeight: layout.minTouchTarget, paddingVertical: spacing.xxs },
+  // The link keeps a 48 px target; its text is one line.
+  link: { minHeight: layout.minTouchTarget, paddingVertical: spacing.xxs, textAlignVertical: 'center' },
+  // A tag is one word: never broken at its hyphen ("GST- / 0002").
+  tag: { whiteSpace: 'nowrap' } as object,
 });

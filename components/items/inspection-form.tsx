@@ -18,7 +18,7 @@ import { SAFETY_CAUTION } from '@/shared/rules/assessment';
 import { inspectionCreateSchema, type Item } from '@/shared/schemas/items';
 
 import { formatDay, localTodayIso } from './format-dates';
-import { applyServerErrors, friendlyMessage } from './server-errors';
+import { applyServerErrors } from './server-errors';
 
 type InspectionValues = z.input<typeof inspectionCreateSchema>;
 type InspectionOutput = z.output<typeof inspectionCreateSchema>;
@@ -216,7 +216,7 @@ function ReadingValue({ control, index }: { control: ReturnType<typeof useForm<I
               value={field.value}
               onChange={(value) => field.onChange(value ?? Number.NaN)}
               onBlur={field.onBlur}
-              error={friendlyMessage(fieldState.error?.message)}
+              error={fieldState.error?.message}
               testID={`inspection-reading-${index}-value`}
             />
           )}

@@ -29,7 +29,7 @@ import {
 } from '@/shared/schemas/items';
 
 import { POLARITY_LABELS, RATING_FIELDS, type RatingField } from './rating-fields';
-import { applyServerErrors, friendlyMessage } from './server-errors';
+import { applyServerErrors } from './server-errors';
 
 type RatingValue = number | string | boolean | null | undefined;
 
@@ -201,7 +201,7 @@ export function ItemForm({ item }: ItemFormProps) {
               value={field.value}
               onChange={field.onChange}
               onBlur={field.onBlur}
-              error={friendlyMessage(fieldState.error?.message)}
+              error={fieldState.error?.message}
               hint={`Leave empty for the lab's usual ${DEFAULT_INSPECTION_DAYS[kind]} days for this kind`}
               testID="item-form-interval"
             />
@@ -245,7 +245,7 @@ function RatingInput({ control, field: rating }: { control: Control<ItemFormValu
       control={control}
       name={`ratings.${rating.name}`}
       render={({ field, fieldState }) => {
-        const error = friendlyMessage(fieldState.error?.message);
+        const error = fieldState.error?.message;
         switch (rating.input) {
           case 'polarity':
             return (

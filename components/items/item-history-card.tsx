@@ -10,49 +10,10 @@ import { Card } from '@/components/ui/card';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { useItemHistoryQuery } from '@/hooks/use-items';
-import type { AuditEvent } from '@/shared/schemas/audit';
+import { auditWords } from '@/components/audit/audit-words';
 
 /** Rows shown before "Show all". */
 const FIRST_ROWS = 8;
-
-const ACTION_WORDS: Record<string, string> = {
-  'item.created': 'Registered',
-  'item.updated': 'Details changed',
-  'item.tagged-out': 'Tagged out of service',
-  'item.cleared': 'Put back in service',
-  'item.retired': 'Retired',
-  'item.file-added': 'File added',
-  'inspection.pass': 'Inspection passed',
-  'inspection.fail': 'Inspection failed',
-};
-
-function field(value: unknown, key: string): unknown {
-  return typeof value === 'object' && value !== null ? (value as Record<string, unknown>)[key] : undefined;
-}
-
-/** One line on what changed, from the entry's before/after (the full record is in the audit trail). */
-function detailOf(event: AuditEvent): string | null {
-  const text = (value: unknown) => (typeof value === 'string' && value !== '' ? value : null);
-  switch (event.action) {
-    case 'item.tagged-out':
-    case 'item.retired':
-      return text(field(event.after, 'statusReason'));
-    case 'inspection.pass':
-    case 'inspection.fail':
-      return text(field(event.after, 'notes'));
-    case 'item.file-added':
-      return text(field(event.after, 'fileName'));
-    case 'item.updated': {
-      if (typeof event.before !== 'object' || event.before === null || typeof event.after !== 'object' || event.after === null) return null;
-      const before = event.before as Record<string, unknown>;
-      const after = event.after as Record<string, unknown>;
-      const changed = Object.keys(after).filter((key) => JSON.stringify(before[key]) !== JSON.stringify(after[key]));
-      return changed.length > 0 ? `Changed: ${changed.join(', ')}` : null;
-    }
-    default:
-      return null;
-  }
-}
 
 export function ItemHistoryCard({ itemId }: { itemId: number }) {
   const { colors } = useTheme();
@@ -70,7 +31,8 @@ export function ItemHistoryCard({ itemId }: { itemId: number }) {
       ) : (
         <View role="list">
           {(showAll ? history.data : history.data.slice(0, FIRST_ROWS)).map((event, index) => {
-            const detail = detailOf(event);
+            // The same sentences as the audit trail; the item's own page needs no link to itself.
+            const words = auditWords(event);
             return (
               <View
                 key={event.id}
@@ -78,11 +40,11 @@ export function ItemHistoryCard({ itemId }: { itemId: number }) {
                 testID={`item-history-${event.id}`}
                 style={[styles.row, index > 0 && { borderTopWidth: borders.hairline, borderTopColor: colors.border }]}
               >
-                <AppText variant="bodyStrong">{ACTION_WORDS[event.action] ?? event.action}</AppText>
+                <AppText variant="bodyStrong">{words.sentence}</AppText>
+                {words.detail ? <AppText variant="small">{words.detail}</AppText> : null}
                 <AppText variant="small" tone="muted">
-                  {`${formatDateTime(event.at)} · ${event.actorName ?? 'Voltcrib'}`}
+                  {formatDateTime(event.at)}
                 </AppText>
-                {detail ? <AppText variant="small">{detail}</AppText> : null}
               </View>
             );
           })}

@@ -19,18 +19,3 @@ export function applyServerErrors(
   if (leftovers.length > 0) return `${error.message} ${leftovers.join(' ')}`.trim();
   return error.fieldErrors && Object.keys(error.fieldErrors).length > 0 ? null : error.message;
 }
-
-/** zod's stock messages said the way a person at the bench would. */
-export function friendlyMessage(message: string | undefined): string | undefined {
-  if (message === undefined) return undefined;
-  // Limits first: their wording also contains "expected number".
-  const tooBig = /Too big: expected number to be <=?\s*([\d.e+]+)/i.exec(message);
-  if (tooBig) return `At most ${tooBig[1]}`;
-  const tooSmall = /Too small: expected number to be (>=?)\s*([\d.e+-]+)/i.exec(message);
-  if (tooSmall) return tooSmall[1] === '>' ? `Must be more than ${tooSmall[2]}` : `At least ${tooSmall[2]}`;
-  if (/expected int/i.test(message)) return 'Enter a whole number';
-  if (/expected number/i.test(message)) return 'Enter a number';
-  if (/expected boolean/i.test(message)) return 'Choose yes or no';
-  if (/expected one of/i.test(message)) return 'Choose one';
-  return message;
-}

@@ -35,6 +35,8 @@ export function ChecklistLineForm() {
     defaultValues: { phase: 'pre', kind: 'confirm', text: '', unit: null, min: null, max: null, required: true, appliesFromKv: null, appliesWithKind: null, position: 500 },
   });
   const kind = useWatch({ control, name: 'kind' });
+  // The limits are in the reading's own unit, once it is typed.
+  const unit = useWatch({ control, name: 'unit' }) ?? '';
   const errors = formState.errors;
 
   const onSubmit = handleSubmit(async (values) => {
@@ -66,8 +68,8 @@ export function ChecklistLineForm() {
             name="unit"
             render={({ field }) => <TextField label="Unit of the reading" value={field.value ?? ''} onChangeText={(t) => field.onChange(t || null)} error={errors.unit?.message} testID="checklist-line-unit" />}
           />
-          <Controller control={control} name="min" render={({ field }) => <NumberField label="Lowest acceptable" unit="" value={field.value} onChange={(v) => field.onChange(v ?? null)} error={errors.min?.message} testID="checklist-line-min" />} />
-          <Controller control={control} name="max" render={({ field }) => <NumberField label="Highest acceptable" unit="" value={field.value} onChange={(v) => field.onChange(v ?? null)} error={errors.max?.message} testID="checklist-line-max" />} />
+          <Controller control={control} name="min" render={({ field }) => <NumberField label="Lowest acceptable" unit={unit} value={field.value} onChange={(v) => field.onChange(v ?? null)} error={errors.min?.message} testID="checklist-line-min" />} />
+          <Controller control={control} name="max" render={({ field }) => <NumberField label="Highest acceptable" unit={unit} value={field.value} onChange={(v) => field.onChange(v ?? null)} error={errors.max?.message} testID="checklist-line-max" />} />
         </>
       ) : null}
       <Controller

@@ -2,15 +2,23 @@ import { StyleSheet, View } from 'react-native';
 
 import { roleLabels } from '@/components/common/roles';
 import { roleEntries, toolEntries, type NavEntry } from '@/components/navigation/nav-model';
+import { setThemePreference, useThemePreference } from '@/components/theme/theme-preference';
 import { spacing } from '@/components/theme/tokens';
 import { AppText } from '@/components/ui/app-text';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
+import { ChoiceChips } from '@/components/ui/choice-chips';
 import { ListRow } from '@/components/ui/list-row';
 import { Screen } from '@/components/ui/screen';
 import { useBreakpoints } from '@/hooks/use-breakpoints';
 import { useCurrentUser, useSignOutMutation } from '@/hooks/use-session';
+
+const THEME_CHOICES = [
+  { value: 'system', label: 'Same as this device' },
+  { value: 'light', label: 'Light' },
+  { value: 'dark', label: 'Dark' },
+] as const;
 
 /**
  * On a phone: everything past the bottom bar (tools, the role's screens) and sign-out.
@@ -21,6 +29,7 @@ export function MoreScreen() {
   const signOut = useSignOutMutation();
   const { isWide } = useBreakpoints();
   const forRole = roleEntries(user?.role);
+  const preference = useThemePreference();
 
   return (
     <Screen testID="more-screen" title={isWide ? 'Account' : 'More'}>
@@ -33,6 +42,19 @@ export function MoreScreen() {
           </View>
         </Card>
       ) : null}
+
+      <Card title="Appearance">
+        <ChoiceChips
+          label="Colours"
+          testID="theme-choice"
+          choices={THEME_CHOICES}
+          value={preference}
+          onChange={setThemePreference}
+        />
+        <AppText variant="small" tone="muted">
+          Same as this device follows the system setting, light or dark as it changes.
+        </AppText>
+      </Card>
 
       {isWide ? (
         <AppText tone="muted">Everything else is in the navigation on the left.</AppText>

@@ -51,6 +51,14 @@ const extraEntries: readonly NavEntry[] = [
   { name: 'audit', label: 'Audit', href: '/audit', icon: 'history', area: 'staff' },
 ];
 
+/** Who an area is for, in words: "safety officers", "lab managers". */
+export const areaAudience: Record<Area, string> = {
+  everyone: 'everyone',
+  officer: 'safety officers',
+  manager: 'lab managers',
+  staff: 'safety officers and lab managers',
+};
+
 /** Tools every signed-in person has beyond the bottom bar. */
 export function toolEntries(): NavEntry[] {
   return extraEntries.filter((entry) => entry.area === 'everyone');

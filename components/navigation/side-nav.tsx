@@ -79,7 +79,6 @@ function SideNavItem({ entry, detail }: { entry: NavEntry; detail?: string }) {
       <Pressable
         testID={`nav-${entry.name}`}
         accessibilityRole="link"
-        accessibilityLabel={detail ? `${entry.label}, ${detail}` : entry.label}
         {...webA11y({ current: active ? 'page' : undefined })}
         // Link's asChild Slot takes one flat style object: no arrays (it throws in development)
         // and no style callbacks (dropped).

@@ -78,7 +78,6 @@ export function PeopleTable({ people, today, onOpen }: PeopleListProps) {
               <Pressable
                 testID={`person-${person.id}`}
                 accessibilityRole="button"
-                accessibilityLabel={`Manage ${person.name}`}
                 onPress={() => onOpen(person)}
                 style={styles.nameButton}
               >

@@ -12,7 +12,7 @@ export function CautionNote() {
   return (
     <View
       testID="planner-caution"
-      accessibilityRole="summary"
+      role="note"
       style={[styles.box, { borderColor: colors.hazard.caution.edge, backgroundColor: colors.surface }]}
     >
       <HazardBadge level="caution" detail="Before you rely on these numbers" />

@@ -1,4 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
+import { useEffect } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 
@@ -12,13 +13,15 @@ import { useSetQualificationMutation, type QualifiedPerson } from '@/hooks/use-q
 import { qualificationSchema, type QualificationInput } from '@/shared/schemas/bookings';
 
 /** Records one person's authorised voltage and its expiry; the release rules read it. */
-export function QualificationForm({ person, onDone }: { person: QualifiedPerson; onDone: (message: string) => void }) {
+export function QualificationForm({ person, onDone, onCancel }: { person: QualifiedPerson; onDone: (message: string) => void; onCancel: () => void }) {
   const save = useSetQualificationMutation(person.id);
-  const { control, handleSubmit, setError, formState } = useForm<QualificationInput>({
+  const { control, handleSubmit, setError, setFocus, formState } = useForm<QualificationInput>({
     resolver: zodResolver(qualificationSchema) as never,
     defaultValues: { authorisedKv: person.qualification?.authorisedKv ?? 0, expiresOn: person.qualification?.expiresOn ?? '', notes: '' },
   });
   const errors = formState.errors;
+  // Focus brings the form's first field into view (and the keyboard up) where it opened.
+  useEffect(() => setFocus('authorisedKv'), [setFocus]);
   const onSubmit = handleSubmit(async (input) => {
     try {
       await save.mutateAsync(input);
@@ -34,7 +37,7 @@ export function QualificationForm({ person, onDone }: { person: QualifiedPerson;
       <Controller
         control={control}
         name="authorisedKv"
-        render={({ field }) => <NumberField label="Authorised up to" unit="kV" value={field.value} onChange={field.onChange} error={errors.authorisedKv?.message} testID="qualification-kv" />}
+        render={({ field }) => <NumberField ref={field.ref} label="Authorised up to" unit="kV" value={field.value} onChange={field.onChange} error={errors.authorisedKv?.message} testID="qualification-kv" />}
       />
       <Controller
         control={control}
@@ -45,11 +48,15 @@ export function QualificationForm({ person, onDone }: { person: QualifiedPerson;
       />
       <Controller control={control} name="notes" render={({ field }) => <TextField label="Course or evidence" value={field.value ?? ''} onChangeText={field.onChange} error={errors.notes?.message} testID="qualification-notes" />} />
       {errors.root?.message ? <FormAlert message={errors.root.message} testID="qualification-error" /> : null}
-      <Button label="Save the qualification" icon="badge-account" onPress={() => void onSubmit()} loading={formState.isSubmitting} loadingLabel="Saving" testID="qualification-save" />
+      <View style={styles.actions}>
+        <Button label="Save the qualification" icon="badge-account" onPress={() => void onSubmit()} loading={formState.isSubmitting} loadingLabel="Saving" testID="qualification-save" />
+        <Button label="Cancel" variant="secondary" onPress={onCancel} disabled={formState.isSubmitting} testID="qualification-cancel" />
+      </View>
     </View>
   );
 }
 
 const styles = StyleSheet.create({
   form: { gap: spacing.md },
+  actions: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.sm },
 });

@@ -25,17 +25,6 @@ export function QualificationsScreen() {
     <Screen testID="qualifications-screen" title="Qualifications">
       <AppText tone="muted">Bookings above a person’s authorised voltage, or after it expires, need an officer’s approval before release.</AppText>
       {saved ? <Badge label={saved} icon="check-circle" tone="primary" testID="qualification-saved" /> : null}
-      {editing ? (
-        <Card title={editing.name}>
-          <QualificationForm
-            person={editing}
-            onDone={(message) => {
-              setSaved(message);
-              setEditing(null);
-            }}
-          />
-        </Card>
-      ) : null}
       {people.isPending ? (
         <LoadingState label="Loading people" />
       ) : people.isError ? (
@@ -47,7 +36,23 @@ export function QualificationsScreen() {
           <View style={styles.list}>
             {people.data.map((person, index) => {
               const state = qualificationState(person.qualification, today);
-              return (
+              // The form opens right under the person pressed, where the eye and thumb already are
+              // (at the top of the screen it opened out of sight on a phone).
+              return editing?.id === person.id ? (
+                <View key={person.id} style={styles.editing} testID={`qualification-editing-${person.id}`}>
+                  <AppText variant="heading" headingLevel={2}>
+                    {person.name}
+                  </AppText>
+                  <QualificationForm
+                    person={editing}
+                    onCancel={() => setEditing(null)}
+                    onDone={(message) => {
+                      setSaved(message);
+                      setEditing(null);
+                    }}
+                  />
+                </View>
+              ) : (
                 <ListRow
                   key={person.id}
                   title={person.name}
@@ -72,4 +77,5 @@ export function QualificationsScreen() {
 
 const styles = StyleSheet.create({
   list: { gap: spacing.xs },
+  editing: { gap: spacing.md, paddingVertical: spacing.sm },
 });

@@ -3,7 +3,8 @@ import { StyleSheet, View } from 'react-native';
 
 import { barrierDistance } from '@/components/assessment/boundaries-facts';
 import { Fact } from '@/components/assessment/fact';
-import { formatKv, formatMetres, formatSeconds, markerWords } from '@/components/assessment/quantities';
+import { boundarySourceWords } from '@/components/assessment/boundary-source';
+import { formatKv, formatMetres, formatSeconds } from '@/components/assessment/quantities';
 import { SafetyCaution } from '@/components/assessment/safety-caution';
 import { formatDateTime } from '@/components/common/format';
 import { spacing } from '@/components/theme/tokens';
@@ -38,7 +39,7 @@ export function ReleasedState({ booking }: { booking: Booking }) {
             testID="release-done-barrier"
             label={`Barrier at least this far from live parts (sources up to ${formatKv(a.sourcePeakKv)})`}
             value={formatMetres(barrier.metres, barrier.printed)}
-            source={`${a.boundaries.source}, ${a.boundaries.edition}, row ${a.boundaries.rowLabel} (${markerWords[a.boundaries.marker as keyof typeof markerWords] ?? a.boundaries.marker}); the larger limited approach distance`}
+            source={`${boundarySourceWords(a.boundaries)} (row ${a.boundaries.rowLabel}, the larger limited approach distance)`}
           />
         ) : (
           <AppText variant="bodyStrong">No approach boundary could be computed: set up the bay with the lab&apos;s licensed HV engineer.</AppText>

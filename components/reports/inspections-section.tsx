@@ -18,7 +18,7 @@ export function InspectionsSection() {
   return (
     <Card title="Inspections due" testID="reports-inspections">
       <AppText variant="small" tone="muted">
-        Overdue, or due within {DUE_SOON_DAYS} days. An overdue inspection blocks release of the item.
+        Never inspected, overdue, or due within {DUE_SOON_DAYS} days. A missing or overdue inspection blocks release of the item.
       </AppText>
       {due.isPending ? (
         <LoadingState label="Loading inspections due" testID="reports-inspections-loading" />
@@ -29,7 +29,7 @@ export function InspectionsSection() {
       ) : (
         <>
           {due.data.items.map((item, index) => {
-            const overdue = item.inspectionState === 'overdue';
+            const overdue = item.state === 'overdue';
             return (
               <ListRow
                 key={item.id}
@@ -37,17 +37,18 @@ export function InspectionsSection() {
                 icon="tools"
                 title={`${item.tag} · ${item.name}`}
                 subtitle={[
-                  item.nextInspectionDue ? `${overdue ? 'Was due' : 'Due'} ${formatCalendarDate(item.nextInspectionDue)}` : 'Never inspected',
+                  item.nextInspectionDue ? `${overdue ? 'Was due' : 'Due'} ${formatCalendarDate(item.nextInspectionDue)}` : 'Never inspected: blocks release',
                   item.location,
                 ]
                   .filter(Boolean)
                   .join('\n')}
-                trailing={overdue ? <Badge label="Overdue" icon="alert-circle" /> : <Badge label="Due soon" tone="muted" />}
+                href={{ pathname: '/gear/[id]', params: { id: String(item.id) } }}
+                trailing={item.state === 'never' ? <Badge label="Never inspected" icon="alert-circle" /> : overdue ? <Badge label="Overdue" icon="alert-circle" /> : <Badge label="Due soon" tone="muted" />}
                 divided={index > 0}
               />
             );
           })}
-          {due.data.nextCursor ? (
+          {due.data.more ? (
             <AppText variant="small" tone="muted">
               Showing the first {INSPECTIONS_DUE_LIMIT}; the CSV has them all.
             </AppText>

@@ -25,7 +25,7 @@ export function OverdueSection() {
         <EmptyState testID="reports-overdue-empty" icon="calendar-check" title="Nothing overdue" message="All released gear is inside its booking window." />
       ) : (
         <>
-          <HazardBadge level="warning" detail={`${overdue.data.bookings.length} booking${overdue.data.bookings.length === 1 ? '' : 's'} past their end`} />
+          <HazardBadge level="warning" detail={overdue.data.bookings.length === 1 ? '1 booking past its end' : `${overdue.data.bookings.length} bookings past their end`} />
           <AppText variant="small" tone="muted">
             Gear past its window may still be set up or charged: ask the person to make it safe and return it.
           </AppText>

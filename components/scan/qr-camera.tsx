@@ -145,6 +145,8 @@ function Viewfinder({ testID, paused, onScanned, onMountError }: ViewfinderProps
       <View
         testID={testID}
         accessible
+        // A named image: aria-label is not allowed on a plain div (axe aria-prohibited-attr).
+        role="img"
         accessibilityLabel={paused ? 'Camera preview, paused' : 'Camera preview, reading QR codes'}
         style={[styles.frame, { borderColor: paused ? colors.border : colors.primary, backgroundColor: colors.surfaceMuted }]}
       >

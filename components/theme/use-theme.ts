@@ -1,8 +1,12 @@
 import { useColorScheme } from 'react-native';
 
+import { useThemePreference } from './theme-preference';
 import { darkTheme, lightTheme, type Theme } from './tokens';
 
-/** The theme for the system colour scheme; follows it live (a lab dimmed for corona work). */
+/** The theme the person chose, or the system colour scheme's (followed live) when they did not. */
 export function useTheme(): Theme {
-  return useColorScheme() === 'dark' ? darkTheme : lightTheme;
+  const system = useColorScheme();
+  const preference = useThemePreference();
+  const scheme = preference === 'system' ? system : preference;
+  return scheme === 'dark' ? darkTheme : lightTheme;
 }

@@ -89,13 +89,9 @@ export function ApprovalsWaiting({ officerId }: { officerId: number }) {
           testID="today-approvals-link"
           icon="clipboard-check"
           href="/approvals"
-          title={count === 0 ? 'No test waiting for you' : `${count}${more} waiting for a decision`}
+          // The count is said once, in the title (a second bare number beside it read as a second queue).
+          title={count === 0 ? 'No test waiting for you' : `${count}${more} test${count === 1 && !more ? '' : 's'} waiting for your decision`}
           subtitle={own > 0 ? `${own} of your own wait for another officer` : 'Tests above the lab rules'}
-          trailing={
-            <AppText variant="heading" testID="today-approvals-count">
-              {`${count}${more}`}
-            </AppText>
-          }
         />
       )}
     </Card>

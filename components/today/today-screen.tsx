@@ -1,4 +1,5 @@
 import { router } from 'expo-router';
+import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { roleLabels } from '@/components/common/roles';
@@ -12,6 +13,7 @@ import { Screen } from '@/components/ui/screen';
 import { useBreakpoints } from '@/hooks/use-breakpoints';
 import { useCurrentUser } from '@/hooks/use-session';
 
+import { DeskOverview } from './desk-overview';
 import { ApprovalsWaiting, MyGearOut, MyNextBookings } from './today-lists';
 
 // What each level means in Voltcrib, in the words of the safety-colour convention it follows.
@@ -23,10 +25,11 @@ const hazardLegend: { level: HazardLevel; meaning: string }[] = [
   { level: 'info', meaning: 'Something to know; no hazard by itself.' },
 ];
 
-/** The day at a glance: gear out (overdue first), next bookings, and for officers the queue. */
+/** The day at a glance: for staff the lab's desk first, then my gear out (overdue first), the queue and my next bookings. */
 export function TodayScreen() {
   const user = useCurrentUser();
   const { isWide } = useBreakpoints();
+  const [legendOpen, setLegendOpen] = useState(false);
   return (
     <Screen testID="today-screen" title="Today" hideTitle>
       <View style={styles.greeting}>
@@ -38,23 +41,34 @@ export function TodayScreen() {
       <Button label="Scan a label" icon="qrcode-scan" block={!isWide} testID="today-scan" onPress={() => router.navigate('/scan')} />
       {user ? (
         <>
-          <MyGearOut />
+          <DeskOverview role={user.role} />
           {user.role === 'officer' ? <ApprovalsWaiting officerId={user.id} /> : null}
+          <MyGearOut />
           <MyNextBookings />
         </>
       ) : null}
-      <Card title="How Voltcrib marks hazards">
-        <View style={styles.legend}>
-          {hazardLegend.map(({ level, meaning }) => (
-            <View key={level} style={styles.legendRow}>
-              <HazardBadge level={level} />
-              <AppText variant="small" tone="muted">
-                {meaning}
-              </AppText>
-            </View>
-          ))}
-        </View>
-      </Card>
+      {/* The legend is for when a mark is not clear: one press away, not a permanent card. */}
+      <Button
+        label={legendOpen ? 'Hide what the hazard marks mean' : 'What the hazard marks mean'}
+        icon="information"
+        variant="secondary"
+        testID="today-legend-toggle"
+        onPress={() => setLegendOpen(!legendOpen)}
+      />
+      {legendOpen ? (
+        <Card title="How Voltcrib marks hazards" testID="today-legend">
+          <View style={styles.legend}>
+            {hazardLegend.map(({ level, meaning }) => (
+              <View key={level} style={styles.legendRow}>
+                <HazardBadge level={level} />
+                <AppText variant="small" tone="muted">
+                  {meaning}
+                </AppText>
+              </View>
+            ))}
+          </View>
+        </Card>
+      ) : null}
     </Screen>
   );
 }

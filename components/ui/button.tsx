@@ -60,7 +60,7 @@ export function Button({
     >
       <View style={styles.content}>
         {loading ? (
-          <ActivityIndicator color={palette.text} />
+          <ActivityIndicator color={palette.text} aria-hidden />
         ) : icon ? (
           <Icon name={icon} color={palette.text} />
         ) : null}

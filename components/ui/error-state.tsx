@@ -29,7 +29,8 @@ export function ErrorState({ title, error, onRetry, retrying = false, testID }: 
       <AppText tone="muted" style={styles.centerText}>
         {describeError(error)}
       </AppText>
-      {onRetry ? (
+      {/* Gone or not allowed: the same request would fail again, so there is nothing to retry. */}
+      {onRetry && !(isApiError(error) && (error.status === 404 || error.status === 403)) ? (
         <View>
           <Button label="Try again" icon="refresh" variant="secondary" onPress={onRetry} loading={retrying} loadingLabel="Trying again" />
         </View>

@@ -9,8 +9,6 @@ import { Icon } from './icon';
 
 interface LinkRowProps {
   href: Href;
-  /** The whole row is one link: this is what a screen reader says for it. */
-  accessibilityLabel: string;
   /** Draw a divider above the row (every row but a list's first). */
   divided?: boolean;
   testID?: string;
@@ -19,14 +17,17 @@ interface LinkRowProps {
 }
 
 /** A list row that opens a record: one link (a real anchor on the web) with the caller's lines. */
-export function LinkRow({ href, accessibilityLabel, divided = false, testID, children }: LinkRowProps) {
+/**
+ * The row's accessible name is its visible lines, read in order: an aria-label would have to
+ * repeat them word for word (axe label-content-name-mismatch), so there is none.
+ */
+export function LinkRow({ href, divided = false, testID, children }: LinkRowProps) {
   const { colors } = useTheme();
   return (
     <Link href={href} asChild>
       <Pressable
         testID={testID}
         accessibilityRole="link"
-        accessibilityLabel={accessibilityLabel}
         // Link's asChild Slot takes one flat style object (see list-row.tsx).
         style={StyleSheet.flatten([styles.row, divided && { borderTopWidth: borders.hairline, borderTopColor: colors.border }])}
       >

@@ -58,11 +58,12 @@ export function ListRow({ title, subtitle, icon, href, onPress, trailing, tone =
     );
   }
 
+  // No aria-label: the row's name is its visible text (title, subtitle, badge), so people who
+  // speak a link's words to press it say what they see (axe label-content-name-mismatch).
   const pressable = (
     <Pressable
       testID={testID}
       accessibilityRole={href !== undefined ? 'link' : 'button'}
-      accessibilityLabel={subtitle ? `${title}, ${subtitle}` : title}
       onPress={onPress}
       // Link's asChild Slot takes one flat style object: no arrays (it throws in development)
       // and no style callbacks (dropped).

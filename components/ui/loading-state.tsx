@@ -15,7 +15,8 @@ export function LoadingState({ label, testID }: LoadingStateProps) {
   const { colors } = useTheme();
   return (
     <View testID={testID} style={styles.root} accessibilityLiveRegion="polite" accessibilityRole="progressbar" accessibilityLabel={label}>
-      <ActivityIndicator size="large" color={colors.primary} />
+      {/* The spinner is its own unnamed progressbar on the web: hidden, the row above speaks for it. */}
+      <ActivityIndicator size="large" color={colors.primary} aria-hidden />
       <AppText tone="muted">{label}</AppText>
     </View>
   );

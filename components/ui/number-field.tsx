@@ -28,19 +28,6 @@ export function parseNumber(text: string): number | undefined {
   return /^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(trimmed) ? Number(trimmed) : Number.NaN;
 }
 
-/** A schema's "expected number" wording, said the way a person would. */
-function friendlyError(error: string | undefined): string | undefined {
-  if (error === undefined) return undefined;
-  // zod says "Too big: expected number to be <=1000" for limits: only a bare type error becomes
-  // "Enter a number"; limits read as limits.
-  const limit = /^Too (big|small): expected number to be ([<>]=?)\s*(-?[\d.e+]+)/i.exec(error);
-  if (limit) {
-    const words: Record<string, string> = { '<=': 'At most', '<': 'Less than', '>=': 'At least', '>': 'More than' };
-    return `${words[limit[2]!] ?? 'Limit'} ${limit[3]}`;
-  }
-  return /expected number/i.test(error) ? 'Enter a number' : error;
-}
-
 /** A labelled numeric input that keeps the typed text (so "2." survives) and reports a number. */
 export function NumberField({ label, unit, value, onChange, onBlur, error, hint, integer = false, disabled, testID, ref }: NumberFieldProps) {
   const [text, setText] = useState(value === undefined || value === null || Number.isNaN(value) ? '' : String(value));
@@ -56,14 +43,15 @@ export function NumberField({ label, unit, value, onChange, onBlur, error, hint,
   return (
     <TextField
       ref={ref}
-      label={`${label} (${unit})`}
+      // No empty brackets when a reading has no unit yet (a checklist line being written).
+      label={unit ? `${label} (${unit})` : label}
       value={text}
       onChangeText={(next) => {
         setText(next);
         onChange(parseNumber(next));
       }}
       onBlur={onBlur}
-      error={friendlyError(error)}
+      error={error}
       hint={hint}
       disabled={disabled}
       testID={testID}

@@ -33,7 +33,8 @@ const maxWidths: Record<ColumnWidth, number> = {
 export function Screen({ testID, title, hideTitle = false, width = 'regular', centered = false, children }: ScreenProps) {
   const { colors } = useTheme();
   return (
-    <SafeAreaView edges={['top', 'left', 'right']} style={[styles.root, { backgroundColor: colors.background }]} testID={testID}>
+    // The screen's content is the page's one `main` landmark; navigation sits beside it in its own.
+    <SafeAreaView edges={['top', 'left', 'right']} style={[styles.root, { backgroundColor: colors.background }]} testID={testID} role="main">
       <Head>
         <title>{`${title} · Voltcrib`}</title>
       </Head>

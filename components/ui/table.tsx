@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import { StyleSheet, View, type StyleProp, type ViewStyle } from 'react-native';
+import { Pressable, StyleSheet, View, type StyleProp, type ViewStyle } from 'react-native';
 
 import { borders, spacing } from '@/components/theme/tokens';
 import { useTheme } from '@/components/theme/use-theme';
@@ -44,15 +44,30 @@ export function Table({ label, columns, testID, style, children }: TableProps) {
   );
 }
 
-/** One row under the header, divided from the one above. */
-export function TableRow({ testID, children }: { testID?: string; children: ReactNode }) {
+/**
+ * One row under the header, divided from the one above. With `onPress` a click or tap anywhere
+ * on the row opens its record; keyboard and screen-reader users reach the same place through the
+ * link inside the row, so the row itself is not a second tab stop.
+ */
+export function TableRow({ testID, onPress, children }: { testID?: string; onPress?: () => void; children: ReactNode }) {
   const { colors } = useTheme();
+  const frame = [styles.row, { borderTopColor: colors.border, borderTopWidth: borders.hairline }];
+  if (!onPress) {
+    return (
+      <View role="row" testID={testID} style={frame}>
+        {children}
+      </View>
+    );
+  }
   return (
-    <View role="row" testID={testID} style={[styles.row, { borderTopColor: colors.border, borderTopWidth: borders.hairline }]}>
+    <Pressable role="row" testID={testID} onPress={onPress} focusable={false} style={(state) => [frame, hoveredOf(state) && { backgroundColor: colors.surfaceMuted }]}>
       {children}
-    </View>
+    </Pressable>
   );
 }
+
+/** react-native-web adds `hovered` to a Pressable's state; React Native's own type leaves it out. */
+const hoveredOf = (state: object) => (state as { hovered?: boolean }).hovered === true;
 
 /** A cell sized and aligned by its column. */
 export function TableCell({ column, children }: { column: TableColumn; children: ReactNode }) {
@@ -67,6 +82,6 @@ const cellStyle = (column: TableColumn) => [styles.cell, { flex: column.flex }, 
 
 const styles = StyleSheet.create({
   row: { flexDirection: 'row', alignItems: 'center', paddingHorizontal: spacing.xs },
-  cell: { paddingHorizontal: spacing.xs, paddingVertical: spacing.sm, minWidth: 0, gap: spacing.xxs },
+  cell: { paddingHorizontal: spacing.xs, paddingVertical: spacing.xs, minWidth: 0, gap: spacing.xxs },
   numeric: { alignItems: 'flex-end' },
 });

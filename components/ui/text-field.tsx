@@ -1,11 +1,12 @@
 import { useId, useState, type Ref } from 'react';
-import { StyleSheet, TextInput, View, type TextInputProps } from 'react-native';
+import { Pressable, StyleSheet, TextInput, View, type TextInputProps } from 'react-native';
 
 import { borders, fontFamilies, layout, radii, spacing, typeScale } from '@/components/theme/tokens';
 import { useTheme } from '@/components/theme/use-theme';
 
 import { AppText } from './app-text';
 import { FieldError } from './field-error';
+import { Icon } from './icon';
 import { webA11y } from './web-a11y';
 
 interface TextFieldProps
@@ -23,18 +24,21 @@ interface TextFieldProps
  * A labelled text input. Pass react-hook-form's Controller `field` through value/onChangeText/
  * onBlur/ref so a failed submit can focus it.
  */
-export function TextField({ label, error, hint, disabled = false, testID, ref, onFocus, onBlur, ...inputProps }: TextFieldProps) {
+export function TextField({ label, error, hint, disabled = false, testID, ref, onFocus, onBlur, secureTextEntry, ...inputProps }: TextFieldProps) {
   const { colors } = useTheme();
   const [focused, setFocused] = useState(false);
   const invalid = error !== undefined && error !== '';
   const messageId = useId();
   const hasMessage = invalid || (hint !== undefined && hint !== '');
+  // A password can be shown while typing on a phone, where one wrong tap is hard to spot.
+  const [revealed, setRevealed] = useState(false);
 
   return (
     <View style={styles.wrapper}>
       <AppText variant="label">{label}</AppText>
       <TextInput
         {...inputProps}
+        secureTextEntry={secureTextEntry === true && !revealed}
         ref={ref}
         testID={testID}
         accessibilityLabel={label}
@@ -60,6 +64,20 @@ export function TextField({ label, error, hint, disabled = false, testID, ref, o
           disabled && styles.disabled,
         ]}
       />
+      {secureTextEntry ? (
+        <Pressable
+          accessibilityRole="button"
+          aria-pressed={revealed}
+          onPress={() => setRevealed(!revealed)}
+          style={styles.reveal}
+          testID={testID ? `${testID}-show` : undefined}
+        >
+          <Icon name={revealed ? 'checkbox-marked' : 'checkbox-blank-outline'} color={colors.textMuted} />
+          <AppText variant="label" tone="muted">
+            Show password
+          </AppText>
+        </Pressable>
+      ) : null}
       {error ? (
         <FieldError message={error} nativeID={messageId} testID={testID ? `${testID}-error` : undefined} />
       ) : hint ? (
@@ -83,4 +101,5 @@ const styles = StyleSheet.create({
     fontSize: typeScale.body.fontSize,
   },
   disabled: { opacity: 0.6 },
+  reveal: { flexDirection: 'row', alignItems: 'center', gap: spacing.xs, minHeight: layout.minTouchTarget, alignSelf: 'flex-start' },
 });

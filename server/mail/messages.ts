@@ -1,4 +1,7 @@
 // The words of every e-mail Voltcrib sends: plain text plus simple HTML, each with a link in.
+// Times are written on the lab's clock (mailTime), never as raw ISO timestamps; links start at
+// the address the server is reached at (config.publicUrl: PUBLIC_URL, else HOST:PORT).
+import { mailDay, mailTime } from './lab-time';
 export interface MailContent {
   subject: string;
   text: string;
@@ -40,14 +43,14 @@ export const messages = {
   overdueToMember(baseUrl: string, b: BookingFacts): MailContent {
     return compose(
       `Overdue: return HV gear from booking #${b.id}`,
-      [`Hello ${b.personName},`, `Your booking #${b.id} ended at ${b.endsAt} and its gear is still out: ${b.itemTags.join(', ')}.`, 'Make it safe (switch off, unplug, ground with the stick, measure the residual voltage) and return it at the counter.'],
+      [`Hello ${b.personName},`, `Your booking #${b.id} ended ${mailTime(b.endsAt)} and its gear is still out: ${b.itemTags.join(', ')}.`, 'Make it safe (switch off, unplug, ground with the stick, measure the residual voltage) and return it at the counter.'],
       { url: `${baseUrl}/bookings/${b.id}`, label: 'Open the booking' },
     );
   },
   overdueToOfficer(baseUrl: string, b: BookingFacts, graceMin: number): MailContent {
     return compose(
       `Overdue more than ${graceMin} min: booking #${b.id} (${b.personName})`,
-      [`Booking #${b.id} by ${b.personName} (${b.plannedKv} kV, ${b.purpose}) ended at ${b.endsAt}, and the gear has not come back: ${b.itemTags.join(', ')}.`, 'Please check that the setup has been made safe.'],
+      [`Booking #${b.id} by ${b.personName} (${b.plannedKv} kV, ${b.purpose}) ended ${mailTime(b.endsAt)}, and the gear has not come back: ${b.itemTags.join(', ')}.`, 'Please check that the setup has been made safe.'],
       { url: `${baseUrl}/bookings/${b.id}`, label: 'Open the booking' },
     );
   },
@@ -79,9 +82,9 @@ export const messages = {
     );
   },
   inspectionDigest(baseUrl: string, overdue: DueItem[], soon: DueItem[], today: string): MailContent {
-    const line = (i: DueItem) => `${i.tag} ${i.name}: due ${i.dueOn}`;
+    const line = (i: DueItem) => `${i.tag} ${i.name}: due ${mailDay(i.dueOn)}`;
     return compose(
-      `Inspections: ${overdue.length} overdue, ${soon.length} due within 7 days (${today})`,
+      `Inspections: ${overdue.length} overdue, ${soon.length} due within 7 days (${mailDay(today)})`,
       [
         overdue.length ? 'Overdue (cannot be released until inspected):' : '',
         ...overdue.slice(0, 50).map(line),
@@ -95,14 +98,14 @@ export const messages = {
   invitation(baseUrl: string, name: string, inviterName: string, token: string, expiresAt: string): MailContent {
     return compose(
       'You are invited to Voltcrib',
-      [`Hello ${name},`, `${inviterName} added you to the lab's Voltcrib, where the shared high-voltage gear is booked and released.`, `Set your password with the link below. It works once and expires at ${expiresAt}.`],
+      [`Hello ${name},`, `${inviterName} added you to the lab's Voltcrib, where the shared high-voltage gear is booked and released.`, `Set your password with the link below. It works once and expires ${mailTime(expiresAt)}.`],
       { url: `${baseUrl}/invitation/${token}`, label: 'Set your password' },
     );
   },
   passwordReset(baseUrl: string, name: string, token: string, expiresAt: string): MailContent {
     return compose(
       'Reset your Voltcrib password',
-      [`Hello ${name},`, 'Someone (hopefully you) asked to reset your Voltcrib password.', `The link below works once and expires at ${expiresAt}. If you did not ask, ignore this e-mail.`],
+      [`Hello ${name},`, 'Someone (hopefully you) asked to reset your Voltcrib password.', `The link below works once and expires ${mailTime(expiresAt)}. If you did not ask, ignore this e-mail.`],
       { url: `${baseUrl}/reset-password/${token}`, label: 'Choose a new password' },
     );
   },

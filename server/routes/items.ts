@@ -7,7 +7,7 @@ import type { Db } from '../db';
 import { receivedFile, uploadReader } from '../middleware/receive-upload';
 import { currentUser, requireRole, requireSignedIn } from '../middleware/require-role';
 import { validate } from '../middleware/validate';
-import { listAudit } from '../services/audit';
+import { listAudit } from '../services/audit-trail';
 import { itemAvailability, itemBookingHistory } from '../services/bookings';
 import { listItemFiles, storeItemFile } from '../services/files';
 import { createItem, getItem, getItemByTag, listInspections, listItems, recordInspection, toItem, updateItem } from '../services/items';

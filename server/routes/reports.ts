@@ -3,7 +3,8 @@ import { z } from 'zod';
 import type { Db } from '../db';
 import { requireRole } from '../middleware/require-role';
 import { validate } from '../middleware/validate';
-import { inspectionRows, overdueRows, toCsv, usageByGroup } from '../services/reports';
+import { deskOverview, inspectionRows, inspectionsDue, overdueRows, toCsv, usageByGroup } from '../services/reports';
+import { DUE_SOON_DAYS } from '../../shared/schemas/items';
 
 const periodSchema = z
   .object({ from: z.iso.datetime({ offset: true }).optional(), to: z.iso.datetime({ offset: true }).optional() })
@@ -17,6 +18,7 @@ const periodSchema = z
   .refine((v) => v.to.getTime() - v.from.getTime() <= 3 * 366 * 24 * 3600_000, { message: 'At most three years', path: ['from'] });
 
 const none = z.object({}).strict();
+const listSchema = z.object({ limit: z.coerce.number().int().min(1).max(200).default(50) }).strict();
 
 function sendCsv(res: Response, name: string, body: string): void {
   res.type('text/csv; charset=utf-8').set('Content-Disposition', `attachment; filename="${name}"`).send(body);
@@ -24,6 +26,16 @@ function sendCsv(res: Response, name: string, body: string): void {
 
 export function reportsRouter(db: Db): Router {
   const router = Router();
+  // The desk and the inspections list serve officers too (Today's desk overview); everything
+  // registered after the use() below is for managers only.
+  router.get('/desk', requireRole('officer', 'manager'), async (req, res) => {
+    validate(none, req.query, 'query');
+    res.json(await deskOverview(db, new Date(), DUE_SOON_DAYS));
+  });
+  router.get('/inspections', requireRole('officer', 'manager'), async (req, res) => {
+    const { limit } = validate(listSchema, req.query, 'query');
+    res.json(await inspectionsDue(db, limit, DUE_SOON_DAYS));
+  });
   router.use(requireRole('manager'));
   router.get('/usage', async (req, res) => {
     const { from, to } = validate(periodSchema, req.query, 'period');

@@ -2,7 +2,7 @@
 // deleted by the application. Each entry hashes the previous one, so `verifyAuditChain` finds any
 // edit or removal made behind the application's back.
 import { createHash } from 'node:crypto';
-import type { AuditEvent, AuditPage, AuditVerification } from '../../shared/schemas/audit';
+import type { AuditVerification } from '../../shared/schemas/audit';
 import { isDatabaseUnavailable, isRetryableLockError, type Db, type Trx } from '../db';
 import { AppError, UnavailableError } from '../errors';
 import { wellFormed } from '../well-formed';
@@ -20,7 +20,7 @@ export interface AuditInput {
 
 
 
-function parseJson(value: unknown): unknown {
+export function parseJson(value: unknown): unknown {
   // mysql2 hands MariaDB JSON columns back as strings (they are LONGTEXT underneath).
   if (typeof value !== 'string') return value ?? null;
   try {
@@ -114,40 +114,6 @@ async function auditedTransactionOnce<T>(db: Db, body: (trx: Trx) => Promise<T>)
 /** `canonical({ ...row, prevHash })` up to the previous hash itself; the database appends it and `"}`. */
 export function hashPrefix(row: ChainRow): string {
   return `${canonical(row).slice(0, -1)},"prevHash":"`;
-}
-
-export interface AuditFilter {
-  entity?: string;
-  entityId?: string;
-  beforeId?: number;
-  limit: number;
-}
-
-export async function listAudit(db: Db, filter: AuditFilter): Promise<AuditPage> {
-  const query = db('audit_events as a')
-    .leftJoin('people as p', 'p.id', 'a.actor_id')
-    .select('a.id', 'a.at', 'a.actor_id', 'p.name as actor_name', 'a.entity', 'a.entity_id', 'a.action', 'a.before', 'a.after')
-    .orderBy('a.id', 'desc')
-    .limit(filter.limit + 1);
-  if (filter.entity) query.where('a.entity', filter.entity);
-  if (filter.entityId) query.where('a.entity_id', filter.entityId);
-  if (filter.beforeId) query.where('a.id', '<', filter.beforeId);
-  const rows = await query;
-  const page = rows.slice(0, filter.limit);
-  return {
-    events: page.map((r) => ({
-      id: Number(r.id),
-      at: new Date(r.at).toISOString(),
-      actorId: r.actor_id,
-      actorName: r.actor_name ?? null,
-      entity: r.entity,
-      entityId: r.entity_id,
-      action: r.action,
-      before: parseJson(r.before),
-      after: parseJson(r.after),
-    })),
-    nextCursor: rows.length > filter.limit ? String(page[page.length - 1]!.id) : null,
-  };
 }
 
 /** Walks the chain from the start; reports the first entry whose hash does not match. */

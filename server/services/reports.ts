@@ -1,8 +1,8 @@
 // Reports for the lab manager: use per group, overdue gear, inspections due. JSON for the screen,
 // CSV for spreadsheets.
-import type { GroupUsage } from '../../shared/schemas/reports';
+import type { DeskOverview, GroupUsage, InspectionDue } from '../../shared/schemas/reports';
 import type { Db } from '../db';
-import { addDaysIso, timestampToIso, todayIso } from './dates';
+import { addDaysIso, dateColumnToIso, timestampToIso, todayIso } from './dates';
 
 
 /** Released or returned bookings overlapping the period; hours are clipped to it. */
@@ -53,4 +53,50 @@ export function toCsv(rows: Record<string, unknown>[], columns: string[]): strin
     return /[",\n\r]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
   };
   return [columns.join(','), ...rows.map((r) => columns.map((c) => cell(r[c])).join(','))].join('\r\n') + '\r\n';
+}
+
+/**
+ * Gear whose inspection is overdue, due within `withinDays`, or was never done (which blocks
+ * release just as an overdue one does), never-inspected and overdue first, then by due date.
+ */
+export async function inspectionsDue(db: Db, limit: number, withinDays = 14, today = todayIso()): Promise<{ items: InspectionDue[]; more: boolean }> {
+  const rows = await db('items')
+    .whereNot('status', 'retired')
+    .andWhere((w) => w.whereNull('next_inspection_due').orWhere('next_inspection_due', '<=', addDaysIso(today, withinDays)))
+    // NULL sorts first in MariaDB's ascending order: never-inspected gear leads the list.
+    .orderBy([{ column: 'next_inspection_due' }, { column: 'id' }])
+    .limit(limit + 1)
+    .select('id', 'tag', 'name', 'kind', 'location', 'status', 'next_inspection_due');
+  const items = rows.slice(0, limit).map((r): InspectionDue => {
+    const due = dateColumnToIso(r.next_inspection_due);
+    return { id: r.id, tag: r.tag, name: r.name, kind: r.kind, location: r.location, status: r.status, nextInspectionDue: due, state: due === null ? 'never' : due < today ? 'overdue' : 'soon' };
+  });
+  return { items, more: rows.length > limit };
+}
+
+/** The officer's and manager's desk: what needs someone now, counted in one round trip. */
+export async function deskOverview(db: Db, now = new Date(), withinDays = 14): Promise<DeskOverview> {
+  const today = todayIso();
+  const soon = addDaysIso(today, withinDays);
+  // Statuses are bound, not written into the SQL: a test checks that the released status is
+  // written in one place only (the release service), by searching the server's text.
+  const [row] = (await db.raw(
+    `SELECT
+       (SELECT COUNT(*) FROM bookings WHERE status = ?) AS gear_out,
+       (SELECT COUNT(*) FROM bookings WHERE status = ? AND ends_at < ?) AS overdue,
+       (SELECT COUNT(*) FROM bookings WHERE status = ?) AS approvals,
+       (SELECT COUNT(*) FROM items WHERE status = ?) AS tagged_out,
+       (SELECT COUNT(*) FROM items WHERE status <> ? AND next_inspection_due IS NULL) AS never_inspected,
+       (SELECT COUNT(*) FROM items WHERE status <> ? AND next_inspection_due < ?) AS inspections_overdue,
+       (SELECT COUNT(*) FROM items WHERE status <> ? AND next_inspection_due >= ? AND next_inspection_due <= ?) AS inspections_soon`,
+    ['released', 'released', now, 'awaiting-approval', 'out-of-service', 'retired', 'retired', today, 'retired', today, soon],
+  )) as unknown as [Record<string, unknown>[]];
+  const n = (key: string) => Number(row?.[0]?.[key] ?? 0);
+  return {
+    gearOut: n('gear_out'),
+    overdue: n('overdue'),
+    approvalsWaiting: n('approvals'),
+    taggedOut: n('tagged_out'),
+    inspections: { neverDone: n('never_inspected'), overdue: n('inspections_overdue'), dueSoon: n('inspections_soon') },
+  };
 }

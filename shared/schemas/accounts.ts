@@ -1,4 +1,6 @@
 import { z } from 'zod';
+// Installs the shared error map (plain words with units) wherever a schema is used.
+import '../zod-errors';
 import { roleSchema } from './session';
 
 /** Long enough to resist guessing; no composition rules (they push people to worse passwords). */

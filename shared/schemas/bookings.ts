@@ -1,5 +1,7 @@
 // Booking payloads, lab rules and qualifications: one schema each, for the form and the API.
 import { z } from 'zod';
+// Installs the shared error map (plain words with units) wherever a schema is used.
+import '../zod-errors';
 import type { Assessment } from '../rules/assessment';
 import { BOOKING_WINDOW } from '../rules/booking-window';
 import { polaritySchema, type ItemSummary } from './items';

@@ -1,4 +1,6 @@
 import { z } from 'zod';
+// Installs the shared error map (plain words with units) wherever a schema is used.
+import '../zod-errors';
 
 // Request bodies of the calculation API (field names are the contract shared with shared/hv).
 // In zod 4, z.number() already rejects NaN and ±Infinity; `.finite()` is a deprecated no-op,

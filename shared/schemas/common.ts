@@ -1,4 +1,6 @@
 import { z } from 'zod';
+// Installs the shared error map (plain words with units) wherever a schema is used.
+import '../zod-errors';
 
 /** A numeric id in a path, e.g. /api/items/:id. */
 export const idParamSchema = z.object({ id: z.coerce.number().int().positive().max(2_147_483_647) }).strict();

@@ -1,6 +1,8 @@
 // Gear records: one zod schema per payload, shared by the item form and the API.
 // Ratings are a discriminated union on `kind`; every field name carries its unit.
 import { z } from 'zod';
+// Installs the shared error map (plain words with units) wherever a schema is used.
+import '../zod-errors';
 
 export const ITEM_KINDS = ['multiplier', 'hv-supply', 'probe', 'isolation-stand', 'grounding-stick', 'interlock', 'meter', 'other'] as const;
 export const itemKindSchema = z.enum(ITEM_KINDS);

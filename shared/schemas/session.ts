@@ -1,4 +1,6 @@
 import { z } from 'zod';
+// Installs the shared error map (plain words with units) wherever a schema is used.
+import '../zod-errors';
 
 export const ROLES = ['member', 'officer', 'manager'] as const;
 export const roleSchema = z.enum(ROLES);

@@ -9,7 +9,7 @@ import { createTransport } from '../../server/mail/transport';
 import { addDaysIso, todayIso } from '../../server/services/dates';
 import { insertItem, qualify } from '../helpers/gear';
 import { createPerson, uniqueEmail, uniqueWord } from '../helpers/test-app';
-import { e2eSuite, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, WIDE } from '../helpers/e2e';
+import { e2eSuite, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, WIDE, expectAccessible } from '../helpers/e2e';
 
 const suite = e2eSuite();
 let worker: OutboxWorker;
@@ -100,6 +100,7 @@ describe('an invitation', () => {
     try {
       await page.goto(link, { waitUntil: 'load' });
       await page.getByTestId('invitation-screen').waitFor();
+      await expectAccessible(page, 'invitation');
       await page.getByTestId('invitation-password').fill('kestrel hall bench four');
       await page.getByTestId('invitation-confirm').fill('kestrel hall bench for');
       await page.getByTestId('invitation-submit').click();
@@ -113,6 +114,7 @@ describe('an invitation', () => {
       await page.getByTestId('sign-in-password').fill('kestrel hall bench four');
       await page.getByTestId('sign-in-submit').click();
       await page.getByTestId('today-screen').waitFor({ timeout: 20_000 });
+      await expectAccessible(page, 'today');
     } finally {
       await context.close();
     }
@@ -139,6 +141,7 @@ describe('a forgotten password', () => {
       await page.goto(`${suite.server.baseUrl}/`, { waitUntil: 'load' });
       await page.getByTestId('sign-in-forgot').click();
       await page.getByTestId('forgot-password-screen').waitFor();
+      await expectAccessible(page, 'forgot-password');
       await page.getByTestId('forgot-password-email').fill('nobody-here@test.voltcrib.example');
       await page.getByTestId('forgot-password-submit').click();
       const unknownAnswer = await page.getByTestId('forgot-password-sent').textContent({ timeout: 15_000 });
@@ -166,6 +169,7 @@ describe('a forgotten password', () => {
       await page.getByTestId('sign-in-password').fill('orrin polytechnic ladder');
       await page.getByTestId('sign-in-submit').click();
       await page.getByTestId('today-screen').waitFor({ timeout: 20_000 });
+      await expectAccessible(page, 'today');
     } finally {
       await context.close();
     }
@@ -243,6 +247,7 @@ describe('a manager on People', () => {
       // Their open app notices on its next request and returns to sign-in.
       await memberView.page.goto(`${suite.server.baseUrl}/`, { waitUntil: 'load' });
       await memberView.page.getByTestId('sign-in-screen').waitFor({ timeout: 15_000 });
+      await expectAccessible(memberView.page, 'sign-in');
 
       await page.getByTestId('person-reactivate').click();
       await expect(page.getByTestId('person-reactivate-question').textContent()).resolves.toContain('sign in again');
@@ -340,9 +345,10 @@ describe('a manager on Reports', () => {
       await expect(page.getByTestId(`reports-overdue-${overdueId}`).textContent({ timeout: 15_000 })).resolves.toMatch(/Ada Brandt[\s\S]*2 h overdue/);
       await expect(page.getByTestId('reports-overdue-csv').getAttribute('href')).resolves.toBe('/api/reports/overdue.csv');
 
-      // Soonest first, at most 50: an item a day overdue is listed unless 50 older ones exist.
-      await page.getByTestId('reports-inspections').getByText(/Overdue|Due soon/).first().waitFor({ timeout: 15_000 });
-      const older = await suite.server.db('items').whereNot('status', 'retired').andWhere('next_inspection_due', '<', addDaysIso(todayIso(), -1)).count({ n: '*' }).first();
+      // Never inspected first, then soonest, at most 50: an item a day overdue is listed unless 50
+      // never-inspected or older ones exist.
+      await page.getByTestId('reports-inspections').getByText(/Never inspected|Overdue|Due soon/).first().waitFor({ timeout: 15_000 });
+      const older = await suite.server.db('items').whereNot('status', 'retired').andWhere((w) => w.whereNull('next_inspection_due').orWhere('next_inspection_due', '<', addDaysIso(todayIso(), -1))).count({ n: '*' }).first();
       if (Number(older?.n) < 50) await page.getByTestId(`reports-inspection-${dueItem.id}`).waitFor();
       await expect(page.getByTestId('reports-inspections-csv').getAttribute('href')).resolves.toBe('/api/reports/inspections.csv');
 

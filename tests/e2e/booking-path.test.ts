@@ -6,7 +6,7 @@ import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { insertItem, insertKit, qualify } from '../helpers/gear';
 import { createPerson } from '../helpers/test-app';
-import { e2eSuite, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi } from '../helpers/e2e';
+import { e2eSuite, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, expectAccessible } from '../helpers/e2e';
 
 const suite = e2eSuite();
 
@@ -44,8 +44,10 @@ it('books above the approval voltage, gets approved, releases at the counter and
     await signInThroughUi(page, suite.server.baseUrl, member.email, member.password);
     await page.getByTestId('nav-bookings').click();
     await page.getByTestId('bookings-screen').waitFor();
+    await expectAccessible(page, 'bookings');
     await page.getByTestId('bookings-new').click();
     await page.getByTestId('book-screen').waitFor();
+    await expectAccessible(page, 'book');
 
     for (const item of items) {
       // Each test item's name starts with its own unique word.
@@ -74,6 +76,7 @@ it('books above the approval voltage, gets approved, releases at the counter and
 
     await page.getByTestId('book-submit').click();
     await page.getByTestId('booking-screen').waitFor({ timeout: 15_000 });
+    await expectAccessible(page, 'booking');
     await page.getByTestId('booking-status-awaiting-approval').waitFor();
     const bookingId = Number(/\/bookings\/(\d+)/.exec(page.url())?.[1]);
     expect(bookingId).toBeGreaterThan(0);
@@ -88,6 +91,7 @@ it('books above the approval voltage, gets approved, releases at the counter and
       await signInThroughUi(o, suite.server.baseUrl, officer.email, officer.password);
       await o.goto(`${suite.server.baseUrl}/approvals`, { waitUntil: 'load' });
       await o.getByTestId('approvals-screen').waitFor();
+      await expectAccessible(o, 'approvals');
       await o.getByTestId(`approval-${bookingId}`).waitFor({ timeout: 15_000 });
       await o.getByTestId(`approval-${bookingId}-assessment-approval-reason-planned-kv`).waitFor({ timeout: 15_000 });
       if ((await o.getByTestId(`approval-${bookingId}-form`).count()) === 0) await o.getByTestId(`approval-${bookingId}-review`).click();
@@ -107,6 +111,7 @@ it('books above the approval voltage, gets approved, releases at the counter and
     expect(await page.getByTestId('booking-approval-conditions').textContent()).toContain('emergency stop');
     await page.getByTestId('booking-go-release').click();
     await page.getByTestId('release-screen').waitFor();
+    await expectAccessible(page, 'release');
 
     // Before scanning and the checklist, the release step says what stands in the way, naming
     // each rule, and the button waits.
@@ -148,6 +153,7 @@ it('books above the approval voltage, gets approved, releases at the counter and
     // --- Return -------------------------------------------------------------------------------
     await page.getByTestId('release-go-return').click();
     await page.getByTestId('return-screen').waitFor();
+    await expectAccessible(page, 'return');
     await page.getByTestId('return-bleed').waitFor();
 
     // A residual voltage above the lab's 50 V is refused, and the screen says why.

@@ -1,6 +1,6 @@
 // An officer keeps the checklists from the Lab rules screen: adds a reading line, then retires it.
 import { createPerson } from '../helpers/test-app';
-import { e2eSuite, newPage, PHONE, signInThroughUi } from '../helpers/e2e';
+import { e2eSuite, expectAccessible, newPage, PHONE, signInThroughUi } from '../helpers/e2e';
 
 const suite = e2eSuite();
 
@@ -13,11 +13,13 @@ it('adds a reading line with limits and retires it again', async () => {
     await page.goto(`${suite.server.baseUrl}/lab-rules`, { waitUntil: 'load' });
     const form = page.getByTestId('checklist-line-form');
     await form.waitFor({ timeout: 20_000 });
+    await expectAccessible(page, 'lab-rules');
     await page.getByTestId('checklist-line-kind').getByText('Reading with limits').click();
     await page.getByTestId('checklist-line-text').fill(text);
     await page.getByTestId('checklist-line-submit').click();
     // A reading needs a unit (shared schema), said on the field.
     await page.getByText('A reading needs a unit').waitFor({ timeout: 10_000 });
+    await expectAccessible(page, 'lab-rules with a field error');
     await page.getByTestId('checklist-line-unit').fill('ppm');
     await page.getByTestId('checklist-line-max').fill('0.1');
     await page.getByTestId('checklist-line-submit').click();

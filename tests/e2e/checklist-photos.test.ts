@@ -8,7 +8,7 @@ import { createBooking } from '../../server/services/bookings';
 import { KIND_LABELS } from '../../shared/schemas/items';
 import { insertItem, insertKit, plan, qualify, windowFromNow } from '../helpers/gear';
 import { createPerson } from '../helpers/test-app';
-import { e2eSuite, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, WIDE } from '../helpers/e2e';
+import { e2eSuite, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, WIDE, expectAccessible } from '../helpers/e2e';
 
 const suite = e2eSuite();
 
@@ -80,6 +80,7 @@ it('completes an officer-added required photo line by attaching a PNG, then rele
       await signInThroughUi(page, suite.server.baseUrl, member.email, member.password);
       await page.goto(`${suite.server.baseUrl}/bookings/${booking.id}/release`, { waitUntil: 'load' });
       await page.getByTestId('release-screen').waitFor({ timeout: 20_000 });
+      await expectAccessible(page, 'release');
       for (const item of booking.items) {
         await page.getByTestId('release-scanner-typed-input').fill(item.tag);
         await page.getByTestId('release-scanner-typed-submit').click();

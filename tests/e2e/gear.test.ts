@@ -6,7 +6,7 @@ import type { Locator, Page } from 'playwright-core';
 import { PNG } from 'pngjs';
 import { insertItem, renameItem } from '../helpers/gear';
 import { createPerson, uniqueWord } from '../helpers/test-app';
-import { e2eSuite, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, WIDE } from '../helpers/e2e';
+import { e2eSuite, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, WIDE, expectAccessible } from '../helpers/e2e';
 
 const suite = e2eSuite();
 
@@ -26,6 +26,7 @@ function rows(page: Page, options?: { hasText: string }): Locator {
 async function openGear(page: Page): Promise<void> {
   await shown(page, 'nav-gear').click();
   await shown(page, 'gear-screen').waitFor();
+  await expectAccessible(page, 'gear');
 }
 
 /** Polls until the locator matches exactly `n` elements (lists update after a debounce). */
@@ -51,7 +52,8 @@ it('a manager registers a multiplier, finds it, fails its inspection and sees it
     // The shared schema refuses an empty form before anything is sent.
     await shown(page, 'item-form-submit').click();
     await expect(shown(page, 'item-form-name-error').textContent()).resolves.toBe('Give the item a name');
-    await expect(shown(page, 'item-form-rating-maxOutputKv-error').textContent()).resolves.toBe('Enter a number');
+    // Left empty: the shared error map asks for it plainly.
+    await expect(shown(page, 'item-form-rating-maxOutputKv-error').textContent()).resolves.toBe('Fill this in');
 
     // Multiplier is the default kind; its ratings are asked for with their units.
     await expect(page.getByText('Max output voltage (kV)').count()).resolves.toBe(1);
@@ -69,6 +71,7 @@ it('a manager registers a multiplier, finds it, fails its inspection and sees it
     await shown(page, 'item-form-submit').click();
 
     await shown(page, 'item-screen').waitFor({ timeout: 15_000 });
+    await expectAccessible(page, 'item');
     const tag = (await shown(page, 'item-tag').textContent({ timeout: 15_000 })) ?? '';
     expect(tag).toMatch(/^MUL-\d{4}$/);
     await expect(shown(page, 'item-rating-stageCapacitanceNf').textContent()).resolves.toContain('2.2 nF');
@@ -85,6 +88,7 @@ it('a manager registers a multiplier, finds it, fails its inspection and sees it
     expect(await rows(page).count()).toBe(1);
     await row.click();
     await shown(page, 'item-screen').waitFor();
+    await expectAccessible(page, 'item');
     await expect(shown(page, 'item-tag').textContent()).resolves.toBe(tag);
 
     // A failed inspection says beforehand that it tags the item out, and does.
@@ -108,7 +112,9 @@ it('a manager registers a multiplier, finds it, fails its inspection and sees it
     await expect(inspection.textContent()).resolves.toMatch(/^Failed/);
     await expect(shown(page, 'item-inspections').textContent()).resolves.toContain('Insulation resistance, top stage: 12 MΩ');
     // The history shows the tag-out with its reason.
-    await shown(page, 'item-history').getByText('Tagged out of service').waitFor({ timeout: 15_000 });
+    // In the audit trail's words: who, which item, what happened.
+    await shown(page, 'item-history').getByText(/recorded a failed inspection of .+; it is out of service until repaired\./).waitFor({ timeout: 15_000 });
+    await shown(page, 'item-history').getByText(/tagged .+ out of service\./).first().waitFor();
     await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'gear-item-tagged-out-phone.png'), fullPage: true });
 
     // The list shows it out of service too.
@@ -252,7 +258,7 @@ describe('a manager on an item page', () => {
       await expect(shown(page, 'item-upload-done').textContent({ timeout: 15_000 })).resolves.toBe('Added stand-top.png.');
       await shown(page, 'item-photo').waitFor({ timeout: 15_000 });
       await expect(shown(page, 'item-files').textContent()).resolves.toContain('stand-top.png');
-      await shown(page, 'item-history').getByText('File added').waitFor({ timeout: 15_000 });
+      await shown(page, 'item-history').getByText(/added the file “stand-top\.png” to /).waitFor({ timeout: 15_000 });
     } finally {
       await context.close();
     }
@@ -306,7 +312,7 @@ describe('a manager on an item page', () => {
       await expect(shown(page, 'item-form-rating-maxKv').inputValue()).resolves.toBe('30');
       await shown(page, 'item-form-rating-maxKv').fill('1200');
       await shown(page, 'item-form-submit').click();
-      await expect(shown(page, 'item-form-rating-maxKv-error').textContent()).resolves.toBe('At most 1000');
+      await expect(shown(page, 'item-form-rating-maxKv-error').textContent()).resolves.toBe('At most 1000 kV');
       await shown(page, 'item-form-rating-maxKv').fill('45');
       await shown(page, 'item-form-location').fill('Kestrel Hall, cage 4');
       await shown(page, 'item-form-submit').click();

@@ -1,7 +1,7 @@
 // Each demo role signs in at a phone and a wide viewport and sees its own navigation.
 import path from 'node:path';
 import { createPerson } from '../helpers/test-app';
-import { e2eSuite, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, WIDE } from '../helpers/e2e';
+import { e2eSuite, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, WIDE, expectAccessible } from '../helpers/e2e';
 
 const suite = e2eSuite();
 
@@ -24,6 +24,7 @@ describe.each(['member', 'officer', 'manager'] as const)('a %s', (role) => {
       expect(await page.getByTestId('side-nav').count()).toBe(0);
       await page.getByTestId('nav-more').click();
       await page.getByTestId('more-screen').waitFor();
+      await expectAccessible(page, 'more');
       for (const id of EXTRA[role]!.has) await expect(page.getByTestId(id).first().isVisible()).resolves.toBe(true);
       for (const id of EXTRA[role]!.hasNot) expect(await page.getByTestId(id).count()).toBe(0);
       await page.screenshot({ path: path.join(SCREENSHOT_DIR, `nav-${role}-phone.png`) });

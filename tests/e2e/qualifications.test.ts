@@ -1,6 +1,6 @@
 // The safety officer records a member's authorised voltage and expiry on the Qualifications screen.
 import { createPerson } from '../helpers/test-app';
-import { e2eSuite, newPage, PHONE, signInThroughUi } from '../helpers/e2e';
+import { e2eSuite, newPage, PHONE, signInThroughUi, expectAccessible } from '../helpers/e2e';
 
 const suite = e2eSuite();
 
@@ -13,7 +13,15 @@ it('records a qualification that the release rules then read', async () => {
     await page.getByTestId('nav-more').click();
     await page.getByTestId('nav-qualifications').first().click();
     await page.getByTestId('qualifications-screen').waitFor({ timeout: 20_000 });
+    await expectAccessible(page, 'qualifications');
     await page.getByTestId(`qualification-person-${member.id}`).click();
+    // On a phone the form opens in view, under the person, with a way out.
+    await page.getByTestId('qualification-form').waitFor();
+    expect(await page.getByTestId('qualification-kv').evaluate((el) => { const r = el.getBoundingClientRect(); return r.top >= 0 && r.bottom <= innerHeight; })).toBe(true);
+    await page.getByTestId('qualification-cancel').click();
+    await page.getByTestId('qualification-form').waitFor({ state: 'detached' });
+    await page.getByTestId(`qualification-person-${member.id}`).click();
+    await expectAccessible(page, 'qualifications editing');
     await page.getByTestId('qualification-kv').fill('30');
     await page.getByTestId('qualification-expires').fill('31/12/2027');
     await page.getByTestId('qualification-save').click();

@@ -5,7 +5,7 @@ import path from 'node:path';
 import { writeQrVideo } from '../helpers/fake-camera';
 import { insertItem } from '../helpers/gear';
 import { createPerson } from '../helpers/test-app';
-import { launchBrowser, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, startE2eServer, type BrowserHandle, type E2eServer } from '../helpers/e2e';
+import { launchBrowser, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, startE2eServer, type BrowserHandle, type E2eServer, expectAccessible } from '../helpers/e2e';
 
 let server: E2eServer;
 /** Chromium whose camera shows the label of `scanned`. */
@@ -45,7 +45,10 @@ it('opens the item whose QR label the camera sees', async () => {
     await signInThroughUi(page, server.baseUrl, person.email, person.password);
     await page.getByTestId('nav-scan').click();
     await page.getByTestId('scan-screen').waitFor();
+    // No axe check here: the fake camera's code opens the item within a second, mid-check. The
+    // scan screen is checked by the tests below (no camera, a foreign code) with nothing to read.
     await page.getByTestId('item-screen').waitFor({ timeout: 15_000 });
+    await expectAccessible(page, 'item');
     await expect(page.getByTestId('item-tag').textContent({ timeout: 5_000 })).resolves.toBe(scanned.tag);
     expect(new URL(page.url()).pathname).toBe(`/gear/${scanned.id}`);
     // The decoder came from our own origin, never from a CDN.
@@ -82,6 +85,7 @@ describe('without a camera', () => {
       await signInThroughUi(page, server.baseUrl, person.email, person.password);
       await page.getByTestId('nav-scan').click();
       await page.getByTestId('scan-screen').waitFor();
+      await expectAccessible(page, 'scan');
       // This chromium has no camera device (or no permission for one): the scanner says so in
       // place of the preview, and typing works meanwhile.
       await page.locator('[data-testid="scan-camera-unavailable"], [data-testid="scan-camera-permission-needed"]').waitFor({ timeout: 15_000 });
@@ -90,6 +94,7 @@ describe('without a camera', () => {
       await page.getByTestId('scan-typed-input').fill(item.tag.toLowerCase());
       await page.getByTestId('scan-typed-submit').click();
       await page.getByTestId('item-screen').waitFor({ timeout: 15_000 });
+      await expectAccessible(page, 'item');
       await expect(page.getByTestId('item-tag').textContent()).resolves.toBe(item.tag);
     } finally {
       await context.close();
@@ -137,6 +142,7 @@ describe('a label URL opened by any phone camera', () => {
       await page.getByTestId('sign-in-password').fill(person.password);
       await page.getByTestId('sign-in-submit').click();
       await page.getByTestId('item-screen').waitFor({ timeout: 20_000 });
+      await expectAccessible(page, 'item');
       await expect(page.getByTestId('item-tag').textContent()).resolves.toBe(scanned.tag);
     } finally {
       await context.close();

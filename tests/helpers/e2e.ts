@@ -1,6 +1,6 @@
 // Browser tests: the real server (exported web app + API) on a free loopback port against the test
 // database, driven by Debian's chromium through playwright-core. Never downloads a browser.
-import { mkdirSync } from 'node:fs';
+import { appendFileSync, mkdirSync, readFileSync } from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
 import type { Server } from 'node:http';
@@ -89,10 +89,13 @@ export async function newPage(browser: Browser, viewport: { width: number; heigh
 
 export async function signInThroughUi(page: Page, baseUrl: string, email: string, password: string): Promise<void> {
   await page.goto(`${baseUrl}/`, { waitUntil: 'load' });
+  await page.getByTestId('sign-in-screen').waitFor({ timeout: 20_000 });
+  await expectAccessible(page, 'sign-in');
   await page.getByTestId('sign-in-email').fill(email);
   await page.getByTestId('sign-in-password').fill(password);
   await page.getByTestId('sign-in-submit').click();
   await page.getByTestId('today-screen').waitFor({ timeout: 20_000 });
+  await expectAccessible(page, 'today');
 }
 
 export const SCREENSHOT_DIR = path.resolve(__dirname, '../../test-results');
@@ -119,4 +122,83 @@ export function e2eSuite(): E2eSuite {
     await suite.server?.close();
   });
   return suite;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Accessibility: axe-core (pinned in package.json) injected into the page, run on every screen a
+// browser test visits at both viewports and in both colour schemes. Any violation fails the test.
+
+// Four axe runs per screen: browser tests get three minutes each instead of jest's one.
+jest.setTimeout(180_000);
+
+/** Screens (by the name a test gives) already checked in this test file: each is checked once. */
+const checkedScreens = new Set<string>();
+
+const AXE_SOURCE = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
+const A11Y_VIEWPORTS = [
+  { name: 'phone', size: PHONE },
+  { name: 'wide', size: WIDE },
+] as const;
+const A11Y_SCHEMES = ['light', 'dark'] as const;
+/** One line per check (screen × viewport × scheme) with its violation count, for the report. */
+export const A11Y_LOG = path.join(SCREENSHOT_DIR, 'axe-checks.jsonl');
+
+interface AxeViolation {
+  id: string;
+  help: string;
+  impact: string | null;
+  targets: string[];
+}
+
+declare global {
+  interface Window {
+    axe?: { run(context: Document, options: Record<string, unknown>): Promise<{ violations: { id: string; help: string; impact: string | null; nodes: { target: unknown[] }[] }[] }> };
+  }
+}
+
+/** Two animation frames and a moment: a resize or a scheme change has re-rendered and painted. */
+async function settle(page: Page): Promise<void> {
+  await page.evaluate(() => new Promise<void>((resolve) => requestAnimationFrame(() => requestAnimationFrame(() => setTimeout(resolve, 120)))));
+}
+
+async function axeViolations(page: Page): Promise<AxeViolation[]> {
+  // Evaluated through the DevTools protocol: the app's CSP (script-src 'self') rightly refuses an
+  // injected <script>, and the page is tested with its real headers.
+  if (!(await page.evaluate(() => typeof window.axe !== 'undefined'))) await page.evaluate(AXE_SOURCE);
+  return page.evaluate(async () => {
+    const result = await window.axe!.run(document, { resultTypes: ['violations'] });
+    return result.violations.map((v) => ({ id: v.id, help: v.help, impact: v.impact, targets: v.nodes.slice(0, 4).map((n) => n.target.map(String).join(' ')) }));
+  });
+}
+
+/**
+ * Fails when axe-core finds any violation on the current screen, at 390x844 and 1280x800, light
+ * and dark. The page is put back to its own viewport and scheme afterwards, so a test goes on
+ * where it was. `screen` names the screen (and its state, where one matters) in the failure and
+ * the log; a name already checked in this file is not checked again.
+ */
+export async function expectAccessible(page: Page, screen: string): Promise<void> {
+  if (checkedScreens.has(screen)) return;
+  checkedScreens.add(screen);
+  const ownSize = page.viewportSize();
+  const ownScheme = (await page.evaluate(() => matchMedia('(prefers-color-scheme: dark)').matches)) ? 'dark' : 'light';
+  const problems: string[] = [];
+  mkdirSync(SCREENSHOT_DIR, { recursive: true });
+  try {
+    for (const viewport of A11Y_VIEWPORTS) {
+      await page.setViewportSize(viewport.size);
+      for (const scheme of A11Y_SCHEMES) {
+        await page.emulateMedia({ colorScheme: scheme });
+        await settle(page);
+        const violations = await axeViolations(page);
+        appendFileSync(A11Y_LOG, `${JSON.stringify({ screen, viewport: viewport.name, scheme, violations: violations.map((v) => v.id), targets: violations.map((v) => `${v.id}: ${v.targets.join(' | ')}`) })}\n`);
+        for (const v of violations) problems.push(`${viewport.name}/${scheme} ${v.id} (${v.impact ?? 'n/a'}): ${v.help}\n      ${v.targets.join('\n      ')}`);
+      }
+    }
+  } finally {
+    if (ownSize) await page.setViewportSize(ownSize);
+    await page.emulateMedia({ colorScheme: ownScheme });
+    await settle(page);
+  }
+  if (problems.length > 0 && !process.env.AXE_REPORT_ONLY) throw new Error(`axe-core found ${problems.length} violation(s) on ${screen}:\n  ${problems.join('\n  ')}`);
 }

@@ -521,6 +521,8 @@ export const ROUTES: Record<string, RouteFixture> = {
 
   'GET /api/mailbox': { access: MANAGER, build: ok() },
 
+  'GET /api/reports/desk': { access: STAFF, build: ok() },
+  'GET /api/reports/inspections': { access: STAFF, build: async () => ({ query: { limit: '5' }, status: 200 }) },
   'GET /api/reports/usage': { access: MANAGER, build: async () => ({ query: period(), status: 200 }) },
   'GET /api/reports/usage.csv': { access: MANAGER, build: async () => ({ query: period(), status: 200 }) },
   'GET /api/reports/overdue.csv': { access: MANAGER, build: ok() },

@@ -1,6 +1,12 @@
 import { Stack } from 'expo-router';
 
-// Access to this group is decided in app/(app)/_layout.tsx (see components/navigation/nav-model.ts).
+import { RoleGate } from '@/components/navigation/role-gate';
+
+// Who may open this group: the 'manager' area of components/navigation/nav-model.ts.
 export default function GroupLayout() {
-  return <Stack screenOptions={{ headerShown: false }} />;
+  return (
+    <RoleGate area="manager">
+      <Stack screenOptions={{ headerShown: false }} />
+    </RoleGate>
+  );
 }

@@ -3,7 +3,9 @@
 import { approachBoundaries, NFPA70E_AC_TABLE, NFPA70E_DC_TABLE, type ApproachBoundaries, type VoltageSystem } from '@/shared/hv';
 import { boundariesBodySchema } from '@/shared/schemas/calc';
 
-import { MARKER_LABELS, metres } from './format';
+import { boundarySourceWords } from '@/components/assessment/boundary-source';
+
+import { metres } from './format';
 import { readFields, runCalculation, waitingFor } from './read-inputs';
 import type { CalculatorDef, CalcState, CalcView, FieldSpec, ResultLine, ResultSection } from './types';
 import { VOLTAGE_UNITS } from './units';
@@ -76,8 +78,6 @@ export const boundariesCalculator: CalculatorDef = {
       { key: 'limited-fixed', label: 'Limited approach, exposed fixed circuit part', value: distance(b, 'limitedFixed', display) },
       { key: 'restricted', label: 'Restricted approach', value: distance(b, 'restricted', display) },
       { key: 'row', label: 'Table row', value: b.rowLabel },
-      { key: 'edition', label: 'Edition', value: b.edition },
-      { key: 'marker', label: display === 'imperial' ? 'Printed imperial values' : 'Metric values', value: MARKER_LABELS[display === 'imperial' ? b.imperialMarker : b.marker] },
     ];
     const notices = [];
     if (b.notSpecified) {
@@ -106,7 +106,7 @@ export const boundariesCalculator: CalculatorDef = {
     }
     return {
       errors,
-      sections: [{ ...section, lines, notices, source: b.source, facts: [`${b.table}. ${table.edition}.`] }],
+      sections: [{ ...section, lines, notices, source: boundarySourceWords(b), facts: display === 'imperial' ? ['Feet and inches as the table prints them (not conversions of the metric values).'] : [] }],
     };
   },
 };

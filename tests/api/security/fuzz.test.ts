@@ -64,6 +64,8 @@ const LIST_ROUTES = [
   'GET /api/people',
   'GET /api/groups',
   'GET /api/checklist-templates',
+  'GET /api/reports/desk',
+  'GET /api/reports/inspections',
   'GET /api/reports/usage',
   'GET /api/reports/usage.csv',
   'GET /api/reports/overdue.csv',
