@@ -460,7 +460,10 @@ class Lane {
       outbox:
         `id > ? AND to_address IN (${emails.map(() => '?').join(',')}) ` +
         `AND kind NOT IN ('overdue-officer', 'overdue-member', 'inspection-digest') ` +
-        `AND (kind <> 'approval-requested' OR SUBSTRING_INDEX(SUBSTRING_INDEX(dedupe_key, ':', 2), ':', -1) IN ${list(bookingIds, true)})`,
+        `AND (kind <> 'approval-requested' OR SUBSTRING_INDEX(SUBSTRING_INDEX(dedupe_key, ':', 2), ':', -1) IN ${list(bookingIds, true)}) ` +
+        // Mail to every officer about someone's bookings: only this lane's people and bookings count.
+        `AND (kind <> 'bench-run-beyond-plan' OR SUBSTRING_INDEX(SUBSTRING_INDEX(dedupe_key, ':', 2), ':', -1) IN ${list(bookingIds, true)}) ` +
+        `AND (kind <> 'bookings-cancelled' OR SUBSTRING_INDEX(SUBSTRING_INDEX(dedupe_key, ':', 2), ':', -1) IN ${list(world.people, true)})`,
       person_tokens: `person_id IN ${P}`,
       audit_events:
         `id > ? AND (actor_id IN ${P} OR (entity IN ('person', 'qualification') AND entity_id IN ${list(world.people, true)}) ` +
