@@ -53,9 +53,11 @@ it('records runs from the booking page, flags them in words, and imports a logge
     // The next point starts from the last: the setup folds away, two taps change the voltage.
     await page.getByTestId('bench-run-form-setup-summary').waitFor();
     await expect(page.getByTestId('bench-run-form-kv').inputValue()).resolves.toBe('8');
-    await page.getByTestId('bench-run-form-kv-up').click();
-    await page.getByTestId('bench-run-form-kv-up').click();
-    await page.getByTestId('bench-run-form-kv-up').click();
+    // One tap at a time: each waits for the field to show its step before the next.
+    for (const kv of ['9', '10', '11']) {
+      await page.getByTestId('bench-run-form-kv-up').click();
+      await page.waitForFunction((want) => (document.querySelector('[data-testid="bench-run-form-kv"]') as HTMLInputElement | null)?.value === want, kv, { timeout: 5_000 });
+    }
     await expect(page.getByTestId('bench-run-form-kv').inputValue()).resolves.toBe('11');
     await page.getByTestId('bench-run-form-unit-ua').click();
     await expect(page.getByTestId('bench-run-form-current').inputValue()).resolves.toBe('100');
