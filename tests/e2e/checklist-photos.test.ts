@@ -146,7 +146,12 @@ it('completes an officer-added required photo line by attaching a PNG, then rele
           const img = document.querySelector(`[data-testid="${id}"] img`) as HTMLImageElement | null;
           return img !== null && img.complete && img.naturalWidth > 0;
         }, `checklist-run-${runId}-line-${lineId}-photo`);
-        await photoLink.scrollIntoViewIfNeeded();
+        // The page may draw the record again as its queries refresh: scroll to it as it is then.
+        await page.waitForFunction((id) => {
+          const link = document.querySelector(`[data-testid="${id}"]`);
+          link?.scrollIntoView({ block: 'center' });
+          return link !== null && link.isConnected;
+        }, `checklist-run-${runId}-line-${lineId}-photo`);
       };
       await photoShown();
       await page.getByTestId('booking-checklist-runs').evaluate((el) => el.scrollIntoView({ block: 'start' }));
