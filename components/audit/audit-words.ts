@@ -92,6 +92,12 @@ export function auditWords(event: AuditEvent): AuditWords {
       return say(`${who} changed the test plan of ${booking}, so it is assessed (and, where needed, approved) again.`, null, bookingLink);
     case 'booking.cancelled':
       return say(`${who} cancelled ${booking}.`, null, bookingLink);
+    case 'booking.cancelled-on-deactivation':
+      return say(`${who} deactivated the person who booked ${booking}, so it was cancelled.`, null, bookingLink);
+    case 'booking.gear-changed':
+      return say(`${who} changed the ratings of gear in ${booking}, so it is assessed (and, where needed, approved) again.`, null, bookingLink);
+    case 'approval.voided':
+      return say(`The approval of ${booking} no longer counts: what it covered changed.`, null, bookingLink);
     case 'approval.granted':
       return say(`${who} approved ${booking}${subject.personName ? ` for ${subject.personName}` : ''}.`, text(after.conditions) ? `Conditions: ${text(after.conditions)}` : null, bookingLink);
     case 'approval.refused':
@@ -136,6 +142,8 @@ export function auditWords(event: AuditEvent): AuditWords {
     }
     case 'inspection.fail':
       return say(`${who} recorded a failed inspection of ${item}; it is out of service until repaired.`, text(after.notes), itemLink);
+    case 'lab-rules.confirmed':
+      return say(`${who} confirmed the lab rules, so they now apply to everyone.`, null, { href: '/lab-rules', label: 'Open the lab rules' });
     case 'lab-rules.updated':
       return say(`${who} changed the lab rules.`, changedFields(event.before, event.after, LAB_RULE_WORDS), { href: '/lab-rules', label: 'Open the lab rules' });
     case 'checklist-template.created':
