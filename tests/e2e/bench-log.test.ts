@@ -5,7 +5,9 @@
 import path from 'node:path';
 import { PNG } from 'pngjs';
 import type { Page } from 'playwright-core';
-import { createBooking, recordScan, releaseBooking, submitChecklist } from '../../server/services/bookings';
+import { createBooking } from '../../server/services/booking-plans';
+import { recordScan, submitChecklist } from '../../server/services/booking-counter';
+import { releaseBooking } from '../../server/services/booking-release';
 import type { ChecklistEntry } from '../../shared/schemas/bookings';
 import { insertKit, plan, qualify, windowFromNow } from '../helpers/gear';
 import { createPerson } from '../helpers/test-app';
