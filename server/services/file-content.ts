@@ -4,7 +4,7 @@ import { createHash } from 'node:crypto';
 import { AppError, ValidationError } from '../errors';
 
 // file-type 16 is the last CommonJS release; it reads magic numbers, not names.
-// eslint-disable-next-line @typescript-eslint/no-require-imports
+// eslint-disable-next-line @typescript-eslint/no-require-imports -- its CommonJS export has no ES default the server's module setting imports cleanly.
 const { fromBuffer } = require('file-type') as { fromBuffer(buffer: Buffer): Promise<{ ext: string; mime: string } | undefined> };
 
 export type FileKind = 'photo' | 'document';
@@ -37,7 +37,7 @@ const EXTENSIONS: Record<string, { canonical: string; aliases: string[] }> = {
 // C0 and C1 controls, and the Unicode bidirectional controls (marks, embeddings, overrides and
 // isolates: U+061C, U+200E, U+200F, U+202A–U+202E, U+2066–U+2069), which can make
 // "gnp\u202E.exe" read as "exe.png". Unicode Standard Annex #9, table 4.
-// eslint-disable-next-line no-control-regex
+// eslint-disable-next-line no-control-regex -- matching control characters is this pattern's purpose.
 const INVISIBLE = /[\u0000-\u001f\u007f-\u009f\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/g;
 
 const refused = () => new ValidationError('The file name is not acceptable: use a plain name without folders.', { file: ['Plain file names only'] });
