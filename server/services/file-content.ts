@@ -1,5 +1,6 @@
 // What an uploaded file is, judged by its bytes (never its name) against an allow-list, and the
 // plain name it is stored under (its extension follows the bytes).
+import { ERROR_CODES } from '../../shared/errors';
 import { createHash } from 'node:crypto';
 import { AppError, ValidationError } from '../errors';
 
@@ -66,9 +67,9 @@ async function detectKind(buffer: Buffer, accepted: readonly FileKind[]): Promis
   const kind = detected ? ALLOWED_TYPES[detected.mime] : undefined;
   if (!detected || !kind) {
     const allowed = accepted.includes('document') ? 'JPEG, PNG or WebP photos and PDF documents' : 'JPEG, PNG or WebP photos';
-    throw new AppError(415, 'UNSUPPORTED_FILE_TYPE', `Only ${allowed} can be uploaded; this file is none of those.`);
+    throw new AppError(415, ERROR_CODES.unsupportedFileType, `Only ${allowed} can be uploaded; this file is none of those.`);
   }
-  if (!accepted.includes(kind)) throw new AppError(415, 'UNSUPPORTED_FILE_TYPE', 'A photo must be a JPEG, PNG or WebP image.');
+  if (!accepted.includes(kind)) throw new AppError(415, ERROR_CODES.unsupportedFileType, 'A photo must be a JPEG, PNG or WebP image.');
   return { contentType: detected.mime, kind };
 }
 

@@ -2,6 +2,7 @@
 // one row of item_files (so GET /api/files/:id serves both) owned by exactly one item or booking.
 // The object is stored first, then the row; if the row cannot be written the object is removed
 // again, so nothing is ever half-stored.
+import { ERROR_CODES } from '../../shared/errors';
 import { randomUUID } from 'node:crypto';
 import type { ItemFile } from '../../shared/schemas/items';
 import type { SessionUser } from '../../shared/schemas/session';
@@ -90,7 +91,7 @@ export async function storeItemFile(
   const file = await checkUpload(upload, requestedKind === 'photo' ? ['photo'] : ['photo', 'document']);
   const item = await db('items').where({ id: itemId }).first('id', 'status');
   if (!item) throw new NotFoundError(`No item with id ${itemId}.`);
-  if (item.status === 'retired') throw new ConflictError('Retired gear takes no new files.', 'ITEM_RETIRED');
+  if (item.status === 'retired') throw new ConflictError('Retired gear takes no new files.', ERROR_CODES.itemRetired);
 
   const kind = requestedKind ?? file.kind;
   return storeThenRecord(db, store, `items/${itemId}`, file, async (trx, key) => {
