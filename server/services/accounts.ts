@@ -5,8 +5,8 @@ import { createHash, randomBytes } from 'node:crypto';
 import type { InvitationInput, PersonUpdateInput } from '../../shared/schemas/accounts';
 import type { SessionUser } from '../../shared/schemas/session';
 import { hashPassword } from '../auth/passwords';
-import { isDuplicateKey, type Db, type Trx } from '../db';
-import { AppError, ConflictError, ForbiddenError, NotFoundError } from '../errors';
+import { isDuplicateKey, isUnknownReference, type Db, type Trx } from '../db';
+import { AppError, ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../errors';
 import { enqueueDeferred, enqueueMail } from '../mail/enqueue';
 import { messages, type MailContent } from '../mail/messages';
 import { appendAudit, auditedTransaction } from './audit';
@@ -37,6 +37,8 @@ export async function invitePerson(db: Db, actor: SessionUser, input: Invitation
       [personId] = (await trx('people').insert({ email: input.email, name: input.name, role: input.role, group_id: input.groupId ?? null, password_hash: null, active: true })) as [number];
     } catch (error) {
       if (isDuplicateKey(error)) throw new ConflictError('Someone with that e-mail is already in Voltcrib.', ERROR_CODES.emailTaken);
+      // people.group_id references groups: the only parent an invitation names.
+      if (isUnknownReference(error)) throw new ValidationError(`No group with id ${input.groupId}.`, { groupId: ['Pick one of the lab’s groups'] });
       throw error;
     }
     const { token, expiresAt } = await issueToken(trx, personId, 'invitation', INVITATION_HOURS * 3600_000, { newPerson: true });
