@@ -44,7 +44,6 @@ async function releaseCheck(q: Db | Trx, row: BookingRow, items: ItemRow[], now:
     endsAt: new Date(row.ends_at),
     earlyPickupMin: rules.earlyPickupMin,
     planVersion: row.plan_version,
-    itemIds,
     scannedItemIds: scans.map((s: { item_id: number }) => s.item_id),
     assessment,
     basis,

@@ -62,7 +62,6 @@ export interface ReleaseContext {
   endsAt: Date;
   earlyPickupMin: number;
   planVersion: number;
-  itemIds: readonly number[];
   scannedItemIds: readonly number[];
   /** Recomputed from the gear, the person and the lab's rules as they are now. */
   assessment: Assessment;
