@@ -1,6 +1,6 @@
 // The one way the app talks to the API: same origin, session cookie, JSON both ways, and the
 // CSRF token on every state-changing request. Failures always surface as an ApiError.
-import { ERROR_CODES, isErrorBody, type FieldErrors } from '@/shared/errors';
+import { ERROR_CODES, isErrorBody, type FieldErrors, type RuleFailure } from '@/shared/errors';
 import type { SessionResponse } from '@/shared/schemas/session';
 
 export class ApiError extends Error {
@@ -8,9 +8,9 @@ export class ApiError extends Error {
   readonly code: string;
   readonly fieldErrors: FieldErrors | undefined;
   /** Every rule a release or return failed (RELEASE_REFUSED, RETURN_REFUSED). */
-  readonly failures: { rule: string; message: string }[] | undefined;
+  readonly failures: RuleFailure[] | undefined;
 
-  constructor(status: number, code: string, message: string, fieldErrors?: FieldErrors, failures?: { rule: string; message: string }[]) {
+  constructor(status: number, code: string, message: string, fieldErrors?: FieldErrors, failures?: RuleFailure[]) {
     super(message);
     this.name = 'ApiError';
     this.status = status;

@@ -3,7 +3,10 @@
 // cache (and what depends on it) itself, so screens never invalidate anything.
 import { useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
+import { ERROR_CODES, type RuleFailure } from '@/shared/errors';
+
 import type {
+  ApprovalDecisionInput,
   Booking,
   BookingApproval,
   BookingCreateInput,
@@ -14,6 +17,7 @@ import type {
   ChecklistRunState,
   ChecklistSubmitInput,
   ReleasePreview,
+  ReturnInput,
 } from '@/shared/schemas/bookings';
 
 import { apiRequest, isApiError } from './api-client';
@@ -146,14 +150,6 @@ export function useCancelBookingMutation(id: number) {
   });
 }
 
-export interface ApprovalDecisionInput {
-  decision: 'approve' | 'refuse';
-  /** The plan version on the officer's screen. */
-  planVersion: number;
-  conditions?: string;
-  reason?: string;
-}
-
 export function useApprovalDecisionMutation(id: number) {
   const written = useBookingWritten();
   const queryClient = useQueryClient();
@@ -181,11 +177,6 @@ export function useChecklistMutation(id: number) {
   });
 }
 
-export interface RuleFailure {
-  rule: string;
-  message: string;
-}
-
 /** A release or return the server refused, with every rule that failed. */
 export class GateRefusedError extends Error {
   readonly code: string;
@@ -211,7 +202,7 @@ export function useReleaseMutation(id: number) {
       try {
         return bookingOf(await apiRequest<{ booking: Booking }>(`/api/bookings/${id}/release`, { method: 'POST' }));
       } catch (error) {
-        if (!isApiError(error) || error.code !== 'RELEASE_REFUSED') throw error;
+        if (!isApiError(error) || error.code !== ERROR_CODES.releaseRefused) throw error;
         throw new GateRefusedError(error.code, error.message, error.failures ?? []);
       }
     },
@@ -219,11 +210,6 @@ export function useReleaseMutation(id: number) {
     // A refusal may be news (an inspection lapsed, an approval was voided): show the booking as it is.
     onError: () => Promise.all([queryClient.invalidateQueries({ queryKey: bookingKeys.detail(id) }), queryClient.invalidateQueries({ queryKey: bookingKeys.releaseCheck(id) })]),
   });
-}
-
-export interface ReturnInput {
-  damagedItemIds: number[];
-  notes: string;
 }
 
 /** The make-safe checklist, then the return itself: one step for the member at the counter. */
@@ -238,7 +224,7 @@ export function useReturnMutation(id: number) {
       try {
         return bookingOf(await apiRequest<{ booking: Booking }>(`/api/bookings/${id}/return`, { method: 'POST', body: input }));
       } catch (error) {
-        if (!isApiError(error) || error.code !== 'RETURN_REFUSED') throw error;
+        if (!isApiError(error) || error.code !== ERROR_CODES.returnRefused) throw error;
         throw new GateRefusedError(error.code, error.message, error.failures ?? []);
       }
     },

@@ -41,15 +41,6 @@ export function useCreateChecklistTemplateMutation() {
   });
 }
 
-export function useReplaceChecklistTemplateMutation() {
-  const invalidate = useInvalidateTemplates();
-  return useMutation({
-    mutationFn: ({ id, input }: { id: number; input: ChecklistTemplateItemInput }) =>
-      apiRequest<{ template: ChecklistTemplate }>(`/api/checklist-templates/${id}`, { method: 'PUT', body: input }),
-    onSuccess: invalidate,
-  });
-}
-
 export function useRetireChecklistTemplateMutation() {
   const invalidate = useInvalidateTemplates();
   return useMutation({

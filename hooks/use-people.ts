@@ -1,36 +1,13 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
-import type { InvitationInput, PersonUpdateInput } from '@/shared/schemas/accounts';
+import type { Group, InvitationInput, PersonSummary, PersonUpdateInput, UpdatedPerson } from '@/shared/schemas/accounts';
 import type { Role } from '@/shared/schemas/session';
 
 import { apiRequest } from './api-client';
 
-// The server owns these shapes (server/services/people.ts, server/services/accounts.ts).
-export interface Person {
-  id: number;
-  email: string;
-  name: string;
-  role: Role;
-  groupName: string | null;
-  active: boolean;
-  lastSignInAt: string | null;
-  /** The HV qualification on record; `expiresOn` is a calendar date (YYYY-MM-DD). */
-  qualification: { authorisedKv: number; expiresOn: string } | null;
-}
-
-export interface Group {
-  id: number;
-  name: string;
-}
-
-export interface UpdatedPerson {
-  id: number;
-  email: string;
-  name: string;
-  role: Role;
-  active: boolean;
-  groupId: number | null;
-}
+// The shapes are the shared schemas' (shared/schemas/accounts.ts), which the server builds too.
+export type Person = PersonSummary;
+export type { Group, UpdatedPerson };
 
 export const peopleKeys = {
   all: ['people'] as const,

@@ -96,3 +96,15 @@ export function isRetryableLockError(error: unknown): boolean {
 export function isDuplicateKey(error: unknown): boolean {
   return (error as { code?: string } | null)?.code === 'ER_DUP_ENTRY';
 }
+
+/** MariaDB's refusal of a row naming a parent row that does not exist (1452), so services can answer 400. */
+export function isUnknownReference(error: unknown): boolean {
+  const { code, errno } = (error ?? {}) as { code?: string; errno?: number };
+  return code === 'ER_NO_REFERENCED_ROW_2' || errno === 1452;
+}
+
+/** MariaDB's strict-mode refusal of a value longer than its column (1406), so services can answer 400. */
+export function isDataTooLong(error: unknown): boolean {
+  const { code, errno } = (error ?? {}) as { code?: string; errno?: number };
+  return code === 'ER_DATA_TOO_LONG' || errno === 1406;
+}

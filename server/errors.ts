@@ -1,13 +1,13 @@
 // Typed errors carry their HTTP status and envelope code; the one error handler turns them into
 // `{ error: { code, message, … } }`. Anything else becomes a plain 500 without a stack.
-import { ERROR_CODES, type FieldErrors } from '../shared/errors';
+import { ERROR_CODES, type FieldErrors, type RuleFailure } from '../shared/errors';
 
 export class AppError extends Error {
   constructor(
     readonly status: number,
     readonly code: string,
     message: string,
-    readonly details: { fieldErrors?: FieldErrors; failures?: { rule: string; message: string }[] } = {},
+    readonly details: { fieldErrors?: FieldErrors; failures?: RuleFailure[] } = {},
   ) {
     super(message);
     this.name = new.target.name;
@@ -39,7 +39,7 @@ export class NotFoundError extends AppError {
 }
 
 export class ConflictError extends AppError {
-  constructor(message: string, code: string = ERROR_CODES.conflict, failures?: { rule: string; message: string }[]) {
+  constructor(message: string, code: string = ERROR_CODES.conflict, failures?: RuleFailure[]) {
     super(409, code, message, { failures });
   }
 }

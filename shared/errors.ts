@@ -1,12 +1,19 @@
-// The one error envelope every API answer uses, and the codes both sides rely on.
+// The one error envelope every API answer uses, and every code in it: the server throws these,
+// the app compares against these; neither side writes a code as a string of its own.
 export type FieldErrors = Record<string, string[]>;
+
+/** One rule of the release or return gate that did not hold (shared/rules/release.ts names them). */
+export interface RuleFailure<Rule extends string = string> {
+  rule: Rule;
+  message: string;
+}
 
 export interface ErrorBody {
   error: {
     code: ErrorCode | string;
     message: string;
     fieldErrors?: FieldErrors;
-    failures?: { rule: string; message: string }[];
+    failures?: RuleFailure[];
   };
 }
 
@@ -21,6 +28,30 @@ export const ERROR_CODES = {
   conflict: 'CONFLICT',
   unavailable: 'SERVICE_UNAVAILABLE',
   internal: 'INTERNAL',
+  /** A value that names a row that does not exist (a foreign key the database refused). */
+  unknownReference: 'UNKNOWN_REFERENCE',
+  // Domain conflicts and refusals.
+  bookingLocked: 'BOOKING_LOCKED',
+  planChanged: 'PLAN_CHANGED',
+  notAwaitingApproval: 'NOT_AWAITING_APPROVAL',
+  releaseRefused: 'RELEASE_REFUSED',
+  returnRefused: 'RETURN_REFUSED',
+  itemTaken: 'ITEM_TAKEN',
+  itemRetired: 'ITEM_RETIRED',
+  itemNotInBooking: 'ITEM_NOT_IN_BOOKING',
+  inspectionRequired: 'INSPECTION_REQUIRED',
+  tagTaken: 'TAG_TAKEN',
+  emailTaken: 'EMAIL_TAKEN',
+  nothingToConfirm: 'NOTHING_TO_CONFIRM',
+  benchLogClosed: 'BENCH_LOG_CLOSED',
+  linkUsedOrInvalid: 'LINK_USED_OR_INVALID',
+  linkExpired: 'LINK_EXPIRED',
+  // Uploads.
+  unsupportedFileType: 'UNSUPPORTED_FILE_TYPE',
+  fileTooLarge: 'FILE_TOO_LARGE',
+  uploadCapReached: 'UPLOAD_CAP_REACHED',
+  // Physics input the calculators refuse (shared/hv/errors.ts).
+  invalidInput: 'INVALID_INPUT',
 } as const;
 
 export type ErrorCode = (typeof ERROR_CODES)[keyof typeof ERROR_CODES];

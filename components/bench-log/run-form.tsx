@@ -1,5 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useEffect, useState } from 'react';
+import { useEffect, useEffectEvent, useState } from 'react';
 import { useForm, useWatch, type Resolver } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 
@@ -79,11 +79,14 @@ export function RunForm({ bookingId, from, mode, planPolarity, onSubmit, onCance
   const photoFileId = useWatch({ control, name: 'photoFileId' });
 
   // After a run is recorded the form starts again from it, ready for the next point.
-  useEffect(() => {
+  // Keyed on the run's id only: a refetch of the same run must not wipe what is being typed.
+  const startFrom = useEffectEvent(() => {
     if (mode !== 'new') return;
     reset(valuesFromRun(from));
     if (from) setSetupOpen(false);
-  }, [from?.id]);
+  });
+  const fromId = from?.id;
+  useEffect(() => startFrom(), [fromId]);
 
   function switchCurrent(unit: 'mA' | 'µA') {
     const value = getValues(currentUnit === 'mA' ? 'currentMa' : 'currentUa');

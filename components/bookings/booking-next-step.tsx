@@ -12,9 +12,8 @@ import { FormAlert } from '@/components/ui/form-alert';
 import { HazardBadge } from '@/components/ui/hazard-badge';
 import { useCancelBookingMutation, type Booking } from '@/hooks/use-bookings';
 import { useCurrentUser } from '@/hooks/use-session';
-import type { BookingStatus } from '@/shared/schemas/bookings';
+import { OPEN_STATUSES, PRE_RELEASE_STATUSES } from '@/shared/schemas/bookings';
 
-const BEFORE_RELEASE: BookingStatus[] = ['requested', 'awaiting-approval', 'approved', 'refused'];
 
 interface Step {
   /** What happens next, in a sentence. */
@@ -71,8 +70,8 @@ export function BookingNextStep({ booking }: { booking: Booking }) {
   const step = nextStep(booking, user);
   const own = user?.id === booking.personId;
   const staff = user?.role === 'officer' || user?.role === 'manager';
-  const canChange = own && ['requested', 'awaiting-approval', 'approved'].includes(booking.status);
-  const canCancel = (own || staff) && BEFORE_RELEASE.includes(booking.status);
+  const canChange = own && PRE_RELEASE_STATUSES.includes(booking.status);
+  const canCancel = (own || staff) && OPEN_STATUSES.includes(booking.status);
 
   return (
     <Card title="Next step" testID="booking-next-step">

@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useEffect, useEffectEvent, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { spacing } from '@/components/theme/tokens';
@@ -48,11 +48,12 @@ function TimeField({ label, value, onChange, onBlur, error, testID }: TimeFieldP
   const resolution = resolveLocalText(text, zone);
   const candidates = resolution.kind === 'ambiguous' ? [resolution.earlier, resolution.later] : resolution.kind === 'exact' ? [resolution.candidate] : [];
   // A length chip or a reset moves the value: show it, unless it is what is typed already.
-  useEffect(() => {
-    if (value === '' || candidates.some((c) => c.instant.toISOString() === value)) return;
-    setText(wallTextOf(new Date(value), zone));
-    // Keyed on the value only, so typing is never overwritten mid-word.
-  }, [value]);
+  // Keyed on the value only (the typed text is read as it is then), so typing is never overwritten mid-word.
+  const followValue = useEffectEvent((next: string) => {
+    if (next === '' || candidates.some((c) => c.instant.toISOString() === next)) return;
+    setText(wallTextOf(new Date(next), zone));
+  });
+  useEffect(() => followValue(value), [value]);
   const chosen = resolution.kind === 'ambiguous' ? (['earlier', 'later'] as const).find((which) => resolution[which].instant.toISOString() === value) : undefined;
   return (
     <View style={styles.field}>

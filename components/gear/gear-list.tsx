@@ -7,7 +7,7 @@ import { Card } from '@/components/ui/card';
 import { LinkRow } from '@/components/ui/link-row';
 import { KIND_LABELS, type ItemSummary } from '@/shared/schemas/items';
 
-import { INSPECTION_LOOKS, InspectionBadge, STATUS_LOOKS, StatusBadge } from './item-badges';
+import { InspectionBadge, StatusBadge } from './item-badges';
 
 /** Phone layout: one row per item, tag and rating on top where a glance finds them. */
 export function GearList({ items }: { items: ItemSummary[] }) {

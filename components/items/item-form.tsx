@@ -1,5 +1,6 @@
 // Register or edit one item. The form holds what the person typed; the shared itemCreateSchema
 // (the one the server validates with) checks it, so a field error reads the same on both sides.
+import { ERROR_CODES } from '@/shared/errors';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { router } from 'expo-router';
 import { useState } from 'react';
@@ -106,7 +107,7 @@ export function ItemForm({ item }: ItemFormProps) {
   const pending = create.isPending || update.isPending;
 
   const showServerErrors = (error: unknown) => {
-    if (isApiError(error) && error.code === 'TAG_TAKEN') {
+    if (isApiError(error) && error.code === ERROR_CODES.tagTaken) {
       setError('tag', { type: 'server', message: error.message });
       setFormError(null);
       return;

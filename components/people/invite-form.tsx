@@ -1,3 +1,4 @@
+import { ERROR_CODES } from '@/shared/errors';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { Controller, useForm } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
@@ -41,7 +42,7 @@ export function InviteForm({ onSent, onCancel }: InviteFormProps) {
       onSent(person);
     } catch (error) {
       // A taken e-mail is a 409 without field errors, but it is plainly about the e-mail field.
-      if (isApiError(error) && error.code === 'EMAIL_TAKEN') {
+      if (isApiError(error) && error.code === ERROR_CODES.emailTaken) {
         setError('email', { type: 'server', message: error.message }, { shouldFocus: true });
         return;
       }

@@ -4,7 +4,7 @@ import { borders, radii, spacing } from '@/components/theme/tokens';
 import { useTheme } from '@/components/theme/use-theme';
 import { AppText } from '@/components/ui/app-text';
 import { Icon } from '@/components/ui/icon';
-import type { RuleFailure } from '@/hooks/use-bookings';
+import type { RuleFailure } from '@/shared/errors';
 
 interface ReleaseFailuresProps {
   title: string;

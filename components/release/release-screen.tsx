@@ -12,6 +12,7 @@ import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Screen } from '@/components/ui/screen';
 import { useBookingQuery, type Booking } from '@/hooks/use-bookings';
+import { PRE_RELEASE_STATUSES } from '@/shared/schemas/bookings';
 
 import { ChecklistStep } from './checklist-step';
 import { ReleasedState } from './released-state';
@@ -19,7 +20,6 @@ import { ReleaseStep } from './release-step';
 import { ScanStep } from './scan-step';
 import type { StepState } from './step-card';
 
-const RELEASABLE = ['requested', 'awaiting-approval', 'approved'];
 
 /** Release at the counter, phone first: scan, checklist, release; the next step stays on top. */
 export function ReleaseScreen({ id }: { id: number }) {
@@ -55,7 +55,7 @@ function ReleaseBody({ booking }: { booking: Booking }) {
       </>
     );
   }
-  if (!RELEASABLE.includes(booking.status)) {
+  if (!PRE_RELEASE_STATUSES.includes(booking.status)) {
     return (
       <>
         {header}

@@ -1,4 +1,4 @@
-import { useEffect, useState, type Ref } from 'react';
+import { useEffect, useEffectEvent, useState, type Ref } from 'react';
 import type { TextInput } from 'react-native';
 
 import { TextField } from './text-field';
@@ -33,12 +33,13 @@ export function NumberField({ label, unit, value, onChange, onBlur, error, hint,
   const [text, setText] = useState(value === undefined || value === null || Number.isNaN(value) ? '' : String(value));
 
   // Follow outside changes (a reset, a prefilled edit) without fighting the person's typing.
-  useEffect(() => {
+  // Keyed on the value only (the typed text is read as it is then): typing must not rewrite it.
+  const followValue = useEffectEvent((next: number | null | undefined) => {
     const typed = parseNumber(text);
-    const same = typed === value || (typed !== undefined && value !== undefined && value !== null && Number.isNaN(typed) && Number.isNaN(value));
-    if (!same) setText(value === undefined || value === null || Number.isNaN(value) ? '' : String(value));
-    // Deliberately keyed on the value only: the person's own typing must not rewrite the text.
-  }, [value]);
+    const same = typed === next || (typed !== undefined && next !== undefined && next !== null && Number.isNaN(typed) && Number.isNaN(next));
+    if (!same) setText(next === undefined || next === null || Number.isNaN(next) ? '' : String(next));
+  });
+  useEffect(() => followValue(value), [value]);
 
   return (
     <TextField

@@ -1,5 +1,6 @@
 // Receives one multipart file (form field "file") into memory, with the configured size limit.
 // Item files and booking photos both come through here, so limits and messages are the same.
+import { ERROR_CODES } from '../../shared/errors';
 import type { Request } from 'express';
 import multer from 'multer';
 import { AppError, ValidationError } from '../errors';
@@ -18,7 +19,7 @@ export function uploadReader(maxBytes: number): (req: Request) => Promise<void> 
       upload(req, req.res!, (error: unknown) => {
         if (!error) return resolve();
         const code = (error as { code?: string }).code;
-        if (code === 'LIMIT_FILE_SIZE') return reject(new AppError(413, 'FILE_TOO_LARGE', `Files can be at most ${Math.round(maxBytes / 1024 / 1024)} MB.`));
+        if (code === 'LIMIT_FILE_SIZE') return reject(new AppError(413, ERROR_CODES.fileTooLarge, `Files can be at most ${Math.round(maxBytes / 1024 / 1024)} MB.`));
         if (typeof code === 'string' && code.startsWith('LIMIT_')) return reject(new ValidationError('Send one file in the form field "file".'));
         reject(new ValidationError('The upload could not be read as multipart form data.'));
       }),

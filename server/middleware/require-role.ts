@@ -3,10 +3,10 @@ import type { Role, SessionUser } from '../../shared/schemas/session';
 import { ForbiddenError, UnauthenticatedError } from '../errors';
 
 declare global {
-  // eslint-disable-next-line @typescript-eslint/no-namespace
+  // eslint-disable-next-line @typescript-eslint/no-namespace -- Express's own types declare `Express.User` in this global namespace; merging into it is how a typed req.user is written.
   namespace Express {
     // Passport's user is the snapshot we keep in the session.
-    // eslint-disable-next-line @typescript-eslint/no-empty-object-type
+    // eslint-disable-next-line @typescript-eslint/no-empty-object-type -- an interface (not a type alias) is needed to merge with Express's declaration.
     interface User extends SessionUser {}
   }
 }

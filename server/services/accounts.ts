@@ -1,11 +1,12 @@
 // Invitations, password resets and people management. Tokens are random, sent once by e-mail,
 // and stored only as SHA-256 hashes; each works once and expires.
+import { ERROR_CODES } from '../../shared/errors';
 import { createHash, randomBytes } from 'node:crypto';
 import type { InvitationInput, PersonUpdateInput } from '../../shared/schemas/accounts';
 import type { SessionUser } from '../../shared/schemas/session';
 import { hashPassword } from '../auth/passwords';
-import { isDuplicateKey, type Db, type Trx } from '../db';
-import { AppError, ConflictError, ForbiddenError, NotFoundError } from '../errors';
+import { isDuplicateKey, isUnknownReference, type Db, type Trx } from '../db';
+import { AppError, ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../errors';
 import { enqueueDeferred, enqueueMail } from '../mail/enqueue';
 import { messages, type MailContent } from '../mail/messages';
 import { appendAudit, auditedTransaction } from './audit';
@@ -35,7 +36,9 @@ export async function invitePerson(db: Db, actor: SessionUser, input: Invitation
     try {
       [personId] = (await trx('people').insert({ email: input.email, name: input.name, role: input.role, group_id: input.groupId ?? null, password_hash: null, active: true })) as [number];
     } catch (error) {
-      if (isDuplicateKey(error)) throw new ConflictError('Someone with that e-mail is already in Voltcrib.', 'EMAIL_TAKEN');
+      if (isDuplicateKey(error)) throw new ConflictError('Someone with that e-mail is already in Voltcrib.', ERROR_CODES.emailTaken);
+      // people.group_id references groups: the only parent an invitation names.
+      if (isUnknownReference(error)) throw new ValidationError(`No group with id ${input.groupId}.`, { groupId: ['Pick one of the lab’s groups'] });
       throw error;
     }
     const { token, expiresAt } = await issueToken(trx, personId, 'invitation', INVITATION_HOURS * 3600_000, { newPerson: true });
@@ -50,10 +53,10 @@ async function redeem(db: Db, token: string, purpose: 'invitation' | 'password-r
   const hash = await hashPassword(password);
   const personId = await auditedTransaction(db, async (trx) => {
     const row = await trx('person_tokens').where({ token_hash: sha256(token), purpose }).forUpdate().first();
-    if (!row || row.used_at !== null) throw new AppError(410, 'LINK_USED_OR_INVALID', 'This link is not valid or has already been used. Ask for a new one.');
-    if (new Date(row.expires_at).getTime() < Date.now()) throw new AppError(410, 'LINK_EXPIRED', 'This link has expired. Ask for a new one.');
+    if (!row || row.used_at !== null) throw new AppError(410, ERROR_CODES.linkUsedOrInvalid, 'This link is not valid or has already been used. Ask for a new one.');
+    if (new Date(row.expires_at).getTime() < Date.now()) throw new AppError(410, ERROR_CODES.linkExpired, 'This link has expired. Ask for a new one.');
     const person = await trx('people').where({ id: row.person_id }).forUpdate().first('id', 'active');
-    if (!person?.active) throw new AppError(410, 'LINK_USED_OR_INVALID', 'This link is not valid or has already been used. Ask for a new one.');
+    if (!person?.active) throw new AppError(410, ERROR_CODES.linkUsedOrInvalid, 'This link is not valid or has already been used. Ask for a new one.');
     await trx('person_tokens').where({ id: row.id }).update({ used_at: new Date() });
     await trx('people').where({ id: row.person_id }).update({ password_hash: hash, updated_at: new Date() });
     await appendAudit(trx, { actorId: row.person_id, entity: 'person', entityId: row.person_id, action: purpose === 'invitation' ? 'person.invitation-accepted' : 'person.password-reset' });

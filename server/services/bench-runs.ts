@@ -31,7 +31,7 @@ function assertOpen(row: BookingRow): void {
     row.status === 'returned'
       ? `it was returned more than ${BENCH_LOG_GRACE_HOURS} h ago`
       : `it is ${row.status}; runs are recorded once the gear is released`;
-  throw new ConflictError(`Runs cannot be added to this booking: ${why}.`, 'BENCH_LOG_CLOSED');
+  throw new ConflictError(`Runs cannot be added to this booking: ${why}.`, ERROR_CODES.benchLogClosed);
 }
 
 async function suppliesOf(trx: Trx, bookingId: number) {

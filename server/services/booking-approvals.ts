@@ -1,5 +1,6 @@
 // An officer's decision on a booking awaiting approval. It binds to the plan version the officer
 // read and records the basis (what was approved), which release compares with the booking then.
+import { ERROR_CODES } from '../../shared/errors';
 import type { Booking, BookingStatus } from '../../shared/schemas/bookings';
 import type { SessionUser } from '../../shared/schemas/session';
 import type { Db } from '../db';
@@ -25,10 +26,10 @@ export async function decideApproval(
     const row = await lockBooking(trx, id);
     // Nobody approves their own test, whatever their role.
     if (row.person_id === actor.id) throw new ForbiddenError('You cannot decide on your own booking; another officer must.');
-    if (row.status !== 'awaiting-approval') throw new ConflictError(`Only bookings awaiting approval can be decided; this one is ${row.status}.`, 'NOT_AWAITING_APPROVAL');
+    if (row.status !== 'awaiting-approval') throw new ConflictError(`Only bookings awaiting approval can be decided; this one is ${row.status}.`, ERROR_CODES.notAwaitingApproval);
     // The decision binds to the version the officer read, never to whatever is current at the click.
     if (input.planVersion !== undefined && input.planVersion !== row.plan_version) {
-      throw new ConflictError(`The plan changed while you were reviewing it (version ${input.planVersion} → ${row.plan_version}). Read it again before deciding.`, 'PLAN_CHANGED');
+      throw new ConflictError(`The plan changed while you were reviewing it (version ${input.planVersion} → ${row.plan_version}). Read it again before deciding.`, ERROR_CODES.planChanged);
     }
     // What the officer approves, recorded as it stands under the locks: release compares it with the booking then.
     const itemIds = (await trx('booking_items').where({ booking_id: id }).select('item_id')).map((r) => r.item_id as number);

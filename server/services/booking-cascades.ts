@@ -2,6 +2,7 @@
 // holding it (server/services/items.ts), a deactivation cancels the person's open bookings
 // (server/services/accounts.ts). Both first lock the bookings, keeping the lock order of
 // DEVELOPERS.md (bookings, then items, then a person's row).
+import { OPEN_STATUSES, PRE_RELEASE_STATUSES } from '../../shared/schemas/bookings';
 import type { SessionUser } from '../../shared/schemas/session';
 import type { Trx } from '../db';
 import { enqueueMail } from '../mail/enqueue';
@@ -12,7 +13,7 @@ import { assess, statusFor } from './booking-assessment';
 import { lockItems } from './booking-holds';
 import { notifyOfficers } from './booking-mail';
 import { voidApproval } from './booking-plans';
-import { EDITABLE, planOf, PRE_RELEASE, type MailContext } from './booking-rows';
+import { planOf, type MailContext } from './booking-rows';
 
 /** Open bookings holding an item. */
 function openBookingsHolding(trx: Trx, itemId: number): Promise<number[]> {
@@ -20,7 +21,7 @@ function openBookingsHolding(trx: Trx, itemId: number): Promise<number[]> {
     .join('bookings as b', 'b.id', 'bi.booking_id')
     .where('bi.item_id', itemId)
     .andWhere('bi.live', true)
-    .whereIn('b.status', PRE_RELEASE)
+    .whereIn('b.status', PRE_RELEASE_STATUSES)
     .orderBy('b.id')
     .pluck('b.id');
 }
@@ -47,7 +48,7 @@ export async function replanBookingsHolding(trx: Trx, actor: SessionUser, itemId
     // Locked already by lockBookingsHolding, except a booking that took the item while this
     // edit waited for the item lock; a deadlock there is retried (server/services/audit.ts).
     const row = await lockBooking(trx, bookingId);
-    if (!PRE_RELEASE.includes(row.status)) continue;
+    if (!PRE_RELEASE_STATUSES.includes(row.status)) continue;
     const itemIds = (await trx('booking_items').where({ booking_id: bookingId }).select('item_id')).map((r) => r.item_id as number);
     const items = await lockItems(trx, itemIds);
     const assessment = await assess(trx, items, planOf(row), row.person_id);
@@ -74,7 +75,7 @@ export async function replanBookingsHolding(trx: Trx, actor: SessionUser, itemId
  * person; taking the bookings first keeps that order, so the two never deadlock.
  */
 export async function lockOpenBookingsOf(trx: Trx, personId: number): Promise<void> {
-  const ids = (await trx('bookings').where({ person_id: personId }).whereIn('status', EDITABLE).pluck('id')) as number[];
+  const ids = (await trx('bookings').where({ person_id: personId }).whereIn('status', OPEN_STATUSES).pluck('id')) as number[];
   if (ids.length > 0) await trx('bookings').whereIn('id', ids).orderBy('id').forUpdate().select('id');
 }
 
@@ -84,11 +85,11 @@ export async function lockOpenBookingsOf(trx: Trx, personId: number): Promise<vo
  * returned; the booking shows it as needing return.
  */
 export async function cancelOpenBookingsOf(trx: Trx, actor: SessionUser, personId: number, mail: MailContext): Promise<number[]> {
-  const open = (await trx('bookings').where({ person_id: personId }).whereIn('status', EDITABLE).orderBy('id').pluck('id')) as number[];
+  const open = (await trx('bookings').where({ person_id: personId }).whereIn('status', OPEN_STATUSES).orderBy('id').pluck('id')) as number[];
   const cancelled: number[] = [];
   for (const bookingId of open) {
     const row = await lockBooking(trx, bookingId);
-    if (!EDITABLE.includes(row.status)) continue;
+    if (!OPEN_STATUSES.includes(row.status)) continue;
     await trx('bookings').where({ id: bookingId }).update({ status: 'cancelled', cancelled_at: new Date(), updated_at: new Date() });
     await trx('booking_items').where({ booking_id: bookingId }).update({ live: false });
     await appendAudit(trx, { actorId: actor.id, entity: 'booking', entityId: bookingId, action: 'booking.cancelled-on-deactivation', before: { status: row.status }, after: { status: 'cancelled', personId } });

@@ -1,5 +1,6 @@
 // Photos taken at the counter for a booking's checklist lines. Stored like item files
 // (files.ts); a checklist answer may only name a photo of its own booking.
+import { ERROR_CODES } from '../../shared/errors';
 import { LIVE_STATUSES, type BookingPhoto } from '../../shared/schemas/bookings';
 import type { SessionUser } from '../../shared/schemas/session';
 import type { Db, Trx } from '../db';
@@ -14,13 +15,13 @@ import { describeFile, insertFileRow, storeThenRecord } from './files';
 
 /** Checklists are answered while a booking is live: before release (pre) and while out (make-safe). */
 function assertTakesPhotos(row: Pick<BookingRow, 'status'>): void {
-  if (!LIVE_STATUSES.includes(row.status)) throw new ConflictError(`Checklist photos are for live bookings; this booking is ${row.status}.`, 'BOOKING_LOCKED');
+  if (!LIVE_STATUSES.includes(row.status)) throw new ConflictError(`Checklist photos are for live bookings; this booking is ${row.status}.`, ERROR_CODES.bookingLocked);
 }
 
 export type UploadCaps = Config['uploadCaps'];
 
 const mb = (bytes: number) => `${Math.round((bytes / 1024 / 1024) * 10) / 10} MB`;
-const capReached = (message: string) => new AppError(413, 'UPLOAD_CAP_REACHED', message);
+const capReached = (message: string) => new AppError(413, ERROR_CODES.uploadCapReached, message);
 
 /**
  * 413 unless one more photo of `sizeBytes` keeps the booking within its count and bytes, and the

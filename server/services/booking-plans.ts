@@ -1,8 +1,9 @@
 // A member's booking: created, changed and cancelled. Every write runs in one audited
 // transaction that locks the booking row first, then its items in id order (holdItems), so
 // concurrent requests queue instead of deadlocking.
+import { ERROR_CODES } from '../../shared/errors';
 import { bookingWindowErrors } from '../../shared/rules/booking-window';
-import type { Booking, BookingCreateInput, BookingUpdateInput } from '../../shared/schemas/bookings';
+import { OPEN_STATUSES, type Booking, type BookingCreateInput, type BookingUpdateInput } from '../../shared/schemas/bookings';
 import type { SessionUser } from '../../shared/schemas/session';
 import type { Db, Trx } from '../db';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../errors';
@@ -11,7 +12,7 @@ import { canSeeBooking, lockBooking, STAFF } from './booking-access';
 import { assess, statusFor } from './booking-assessment';
 import { clashingTags, holdItems, itemTaken, lockItems } from './booking-holds';
 import { notifyOfficers } from './booking-mail';
-import { bookingItemTags, EDITABLE, planOf, type BookingRow, type MailContext } from './booking-rows';
+import { bookingItemTags, planOf, type BookingRow, type MailContext } from './booking-rows';
 import { getBooking } from './booking-view';
 
 function assertWindow(startsAt: Date, endsAt: Date): void {
@@ -82,7 +83,7 @@ export async function updateBooking(db: Db, actor: SessionUser, id: number, inpu
   await auditedTransaction(db, async (trx) => {
     const row = await lockBooking(trx, id);
     if (row.person_id !== actor.id) throw new ForbiddenError('Only the person who booked can change the booking.');
-    if (!EDITABLE.includes(row.status)) throw new ConflictError(`A ${row.status} booking cannot be changed.`, 'BOOKING_LOCKED');
+    if (!OPEN_STATUSES.includes(row.status)) throw new ConflictError(`A ${row.status} booking cannot be changed.`, ERROR_CODES.bookingLocked);
     // The booking row is locked, so its item set cannot change under us.
     const currentItems = (await trx('booking_items').where({ booking_id: id }).select('item_id')).map((r) => r.item_id as number);
     const itemIds = input.itemIds ?? currentItems;
@@ -149,7 +150,7 @@ export async function cancelBooking(db: Db, actor: SessionUser, id: number): Pro
     const row = await lockBooking(trx, id);
     if (!canSeeBooking(actor, row)) throw new NotFoundError(`No booking with id ${id}.`);
     if (row.person_id !== actor.id && !STAFF.includes(actor.role)) throw new ForbiddenError();
-    if (!EDITABLE.includes(row.status)) throw new ConflictError(`A ${row.status} booking cannot be cancelled.`, 'BOOKING_LOCKED');
+    if (!OPEN_STATUSES.includes(row.status)) throw new ConflictError(`A ${row.status} booking cannot be cancelled.`, ERROR_CODES.bookingLocked);
     await trx('bookings').where({ id }).update({ status: 'cancelled', cancelled_at: new Date(), updated_at: new Date() });
     await trx('booking_items').where({ booking_id: id }).update({ live: false });
     await appendAudit(trx, { actorId: actor.id, entity: 'booking', entityId: id, action: 'booking.cancelled', before: { status: row.status }, after: { status: 'cancelled' } });

@@ -1,6 +1,7 @@
 // The release gate. `releaseCheck` gathers what the pure rules in shared/rules/release.ts read
 // and serves both the release and GET /api/bookings/:id/release-check, so the screen and the
 // gate say the same thing. Releasing is the only write that sets a booking to released.
+import { ERROR_CODES } from '../../shared/errors';
 import { approvalStanding, releaseFailures } from '../../shared/rules/release';
 import type { Booking, ReleasePreview } from '../../shared/schemas/bookings';
 import type { SessionUser } from '../../shared/schemas/session';
@@ -43,7 +44,6 @@ async function releaseCheck(q: Db | Trx, row: BookingRow, items: ItemRow[], now:
     endsAt: new Date(row.ends_at),
     earlyPickupMin: rules.earlyPickupMin,
     planVersion: row.plan_version,
-    itemIds,
     scannedItemIds: scans.map((s: { item_id: number }) => s.item_id),
     assessment,
     basis,
@@ -74,7 +74,7 @@ export async function releaseBooking(db: Db, actor: SessionUser, id: number, now
     const items = await lockItems(trx, itemIds);
     const { failures, assessment, basis, approval, rules } = await releaseCheck(trx, row, items, now);
     if (failures.length > 0) {
-      throw new ConflictError(`Release refused: ${failures.length} rule${failures.length === 1 ? '' : 's'} not met.`, 'RELEASE_REFUSED', failures);
+      throw new ConflictError(`Release refused: ${failures.length} rule${failures.length === 1 ? '' : 's'} not met.`, ERROR_CODES.releaseRefused, failures);
     }
     const approvedBy = approval && approvalStanding(approval, row.plan_version, basis).current ? { officer: approval.officerName, conditions: approval.conditions } : null;
     await trx('bookings').where({ id }).update({ status: 'released', released_at: now, assessment: JSON.stringify(assessment), approval_required: assessment.approvalRequired, updated_at: new Date() });

@@ -25,10 +25,6 @@ export interface BookingRow {
   updated_at: Date;
 }
 
-/** States in which the booker may still change or cancel a booking. */
-export const EDITABLE: BookingStatus[] = ['requested', 'awaiting-approval', 'approved', 'refused'];
-/** States before release: scans and the pre-energize checklist happen here. */
-export const PRE_RELEASE: BookingStatus[] = ['requested', 'awaiting-approval', 'approved'];
 
 /** mysql2 returns MariaDB JSON columns already parsed, sometimes as text: accept both. */
 export const json = <T>(value: unknown): T => (typeof value === 'string' ? JSON.parse(value) : value) as T;

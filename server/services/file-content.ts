@@ -1,10 +1,11 @@
 // What an uploaded file is, judged by its bytes (never its name) against an allow-list, and the
 // plain name it is stored under (its extension follows the bytes).
+import { ERROR_CODES } from '../../shared/errors';
 import { createHash } from 'node:crypto';
 import { AppError, ValidationError } from '../errors';
 
 // file-type 16 is the last CommonJS release; it reads magic numbers, not names.
-// eslint-disable-next-line @typescript-eslint/no-require-imports
+// eslint-disable-next-line @typescript-eslint/no-require-imports -- its CommonJS export has no ES default the server's module setting imports cleanly.
 const { fromBuffer } = require('file-type') as { fromBuffer(buffer: Buffer): Promise<{ ext: string; mime: string } | undefined> };
 
 export type FileKind = 'photo' | 'document';
@@ -37,7 +38,7 @@ const EXTENSIONS: Record<string, { canonical: string; aliases: string[] }> = {
 // C0 and C1 controls, and the Unicode bidirectional controls (marks, embeddings, overrides and
 // isolates: U+061C, U+200E, U+200F, U+202A–U+202E, U+2066–U+2069), which can make
 // "gnp\u202E.exe" read as "exe.png". Unicode Standard Annex #9, table 4.
-// eslint-disable-next-line no-control-regex
+// eslint-disable-next-line no-control-regex -- matching control characters is this pattern's purpose.
 const INVISIBLE = /[\u0000-\u001f\u007f-\u009f\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/g;
 
 const refused = () => new ValidationError('The file name is not acceptable: use a plain name without folders.', { file: ['Plain file names only'] });
@@ -66,9 +67,9 @@ async function detectKind(buffer: Buffer, accepted: readonly FileKind[]): Promis
   const kind = detected ? ALLOWED_TYPES[detected.mime] : undefined;
   if (!detected || !kind) {
     const allowed = accepted.includes('document') ? 'JPEG, PNG or WebP photos and PDF documents' : 'JPEG, PNG or WebP photos';
-    throw new AppError(415, 'UNSUPPORTED_FILE_TYPE', `Only ${allowed} can be uploaded; this file is none of those.`);
+    throw new AppError(415, ERROR_CODES.unsupportedFileType, `Only ${allowed} can be uploaded; this file is none of those.`);
   }
-  if (!accepted.includes(kind)) throw new AppError(415, 'UNSUPPORTED_FILE_TYPE', 'A photo must be a JPEG, PNG or WebP image.');
+  if (!accepted.includes(kind)) throw new AppError(415, ERROR_CODES.unsupportedFileType, 'A photo must be a JPEG, PNG or WebP image.');
   return { contentType: detected.mime, kind };
 }
 

@@ -2,11 +2,12 @@
 // one row of item_files (so GET /api/files/:id serves both) owned by exactly one item or booking.
 // The object is stored first, then the row; if the row cannot be written the object is removed
 // again, so nothing is ever half-stored.
+import { ERROR_CODES } from '../../shared/errors';
 import { randomUUID } from 'node:crypto';
 import type { ItemFile } from '../../shared/schemas/items';
 import type { SessionUser } from '../../shared/schemas/session';
-import type { Db, Trx } from '../db';
-import { ConflictError, NotFoundError } from '../errors';
+import { isDataTooLong, type Db, type Trx } from '../db';
+import { ConflictError, NotFoundError, ValidationError } from '../errors';
 import type { ObjectStore } from '../storage/object-store';
 import { appendAudit, auditedTransaction } from './audit';
 import { canSeeBooking } from './booking-access';
@@ -43,16 +44,23 @@ export function describeFile(row: Pick<FileRow, 'id' | 'kind' | 'file_name' | 'c
 
 /** Writes the file's row for its owner and returns its id. */
 export async function insertFileRow(trx: Trx, owner: FileOwner, file: CheckedFile, storageKey: string, actor: SessionUser, kind: FileKind = file.kind): Promise<number> {
-  const [id] = (await trx('item_files').insert({
-    ...owner,
-    kind,
-    file_name: file.fileName,
-    content_type: file.contentType,
-    size_bytes: file.sizeBytes,
-    storage_key: storageKey,
-    sha256: file.sha256,
-    uploaded_by: actor.id,
-  })) as [number];
+  const [id] = (await trx('item_files')
+    .insert({
+      ...owner,
+      kind,
+      file_name: file.fileName,
+      content_type: file.contentType,
+      size_bytes: file.sizeBytes,
+      storage_key: storageKey,
+      sha256: file.sha256,
+      uploaded_by: actor.id,
+    })
+    .catch((error: unknown) => {
+      // The stored name is the sent one with the extension its bytes show, which can make a
+      // name that passed the 200-character check longer than the column (item_files.file_name).
+      if (isDataTooLong(error)) throw new ValidationError('The file name is too long; rename the file (at most 200 characters) and send it again.', { file: ['Name too long'] });
+      throw error;
+    })) as [number];
   return id;
 }
 
@@ -90,7 +98,7 @@ export async function storeItemFile(
   const file = await checkUpload(upload, requestedKind === 'photo' ? ['photo'] : ['photo', 'document']);
   const item = await db('items').where({ id: itemId }).first('id', 'status');
   if (!item) throw new NotFoundError(`No item with id ${itemId}.`);
-  if (item.status === 'retired') throw new ConflictError('Retired gear takes no new files.', 'ITEM_RETIRED');
+  if (item.status === 'retired') throw new ConflictError('Retired gear takes no new files.', ERROR_CODES.itemRetired);
 
   const kind = requestedKind ?? file.kind;
   return storeThenRecord(db, store, `items/${itemId}`, file, async (trx, key) => {

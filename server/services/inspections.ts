@@ -1,5 +1,6 @@
 // Inspections of an item: recording one moves its due date (never backwards) and a failed one
 // tags the item out of service.
+import { ERROR_CODES } from '../../shared/errors';
 import { inspectionCreateSchema, type Inspection } from '../../shared/schemas/items';
 import type { SessionUser } from '../../shared/schemas/session';
 import type { Db } from '../db';
@@ -16,7 +17,7 @@ export async function recordInspection(db: Db, actor: SessionUser, itemId: numbe
   if (inspectedOn > todayIso()) throw new ValidationError('An inspection cannot be dated in the future.', { inspectedOn: ['Pick today or an earlier date'] });
   return auditedTransaction(db, async (trx) => {
     const item = await lockItem(trx, itemId);
-    if (item.status === 'retired') throw new ConflictError(`${item.tag} is retired.`, 'ITEM_RETIRED');
+    if (item.status === 'retired') throw new ConflictError(`${item.tag} is retired.`, ERROR_CODES.itemRetired);
     const nextDue = addDaysIso(inspectedOn, item.inspection_interval_days);
     const [id] = (await trx('inspections').insert({
       item_id: itemId,

@@ -1,6 +1,7 @@
 // Gear registry operations: an item created, read and changed. Every write runs in one
 // transaction with its audit entry. Inspections are in inspections.ts, the listing and word
 // search in item-search.ts.
+import { ERROR_CODES } from '../../shared/errors';
 import {
   DEFAULT_INSPECTION_DAYS,
   KIND_TAG_CODES,
@@ -89,7 +90,7 @@ export async function createItem(db: Db, actor: SessionUser, input: ItemCreateIn
     try {
       [id] = (await trx('items').insert(record)) as [number];
     } catch (error) {
-      if (isDuplicateKey(error)) throw new ConflictError(`The tag ${tag} has already been issued; tags are never reused.`, 'TAG_TAKEN');
+      if (isDuplicateKey(error)) throw new ConflictError(`The tag ${tag} has already been issued; tags are never reused.`, ERROR_CODES.tagTaken);
       throw error;
     }
     const row = await lockItem(trx, id);
@@ -118,7 +119,7 @@ export async function updateItem(db: Db, actor: SessionUser, id: number, input: 
   return auditedTransaction(db, async (trx) => {
     if (input.ratings !== undefined) await lockBookingsHolding(trx, id);
     const before = await lockItem(trx, id);
-    if (before.status === 'retired') throw new ConflictError(`${before.tag} is retired; retired gear cannot be changed.`, 'ITEM_RETIRED');
+    if (before.status === 'retired') throw new ConflictError(`${before.tag} is retired; retired gear cannot be changed.`, ERROR_CODES.itemRetired);
     const changes: Partial<ItemRow> & { ratings?: string; updated_at: Date } = { updated_at: new Date() };
     for (const key of ['name', 'make', 'model', 'serial', 'location', 'notes'] as const) {
       if (input[key] !== undefined) changes[key] = input[key];
@@ -143,7 +144,7 @@ export async function updateItem(db: Db, actor: SessionUser, id: number, input: 
         .andWhere('inspected_on', '>=', isoOfMillis(new Date(since).getTime()).slice(0, 10))
         .andWhere('inspected_on', '<=', todayIso())
         .first('id');
-      if (!passed) throw new ConflictError(`${before.tag} is tagged out: record a passing inspection carried out since the tag-out before clearing it.`, 'INSPECTION_REQUIRED');
+      if (!passed) throw new ConflictError(`${before.tag} is tagged out: record a passing inspection carried out since the tag-out before clearing it.`, ERROR_CODES.inspectionRequired);
     }
     if (input.status !== undefined && input.status !== before.status) {
       changes.status = input.status;

@@ -1,3 +1,4 @@
+import { ERROR_CODES } from '../../shared/errors';
 import type { LabRules } from '../../shared/schemas/bookings';
 import { rulesForPerson, type LabRulesState } from '../../shared/rules/lab-rules';
 import type { SessionUser } from '../../shared/schemas/session';
@@ -74,7 +75,7 @@ export async function updateLabRules(db: Db, actor: SessionUser, input: LabRules
 export async function confirmLabRules(db: Db, actor: SessionUser): Promise<LabRulesState> {
   const state = await auditedTransaction(db, async (trx) => {
     const before = toState(await trx('lab_rules').where({ id: 1 }).forUpdate().first());
-    if (before.pendingEditors.length === 0) throw new ConflictError('The lab rules have no change waiting for confirmation.', 'NOTHING_TO_CONFIRM');
+    if (before.pendingEditors.length === 0) throw new ConflictError('The lab rules have no change waiting for confirmation.', ERROR_CODES.nothingToConfirm);
     if (before.pendingEditors.includes(actor.id)) throw new ForbiddenError('You changed these rules; another officer must confirm them.');
     await trx('lab_rules').where({ id: 1 }).update({ confirmed_rules: JSON.stringify(before.rules), pending_editors: '[]', updated_at: new Date() });
     await appendAudit(trx, { actorId: actor.id, entity: 'lab-rules', entityId: 1, action: 'lab-rules.confirmed', before: { confirmed: before.confirmed, pendingEditors: before.pendingEditors }, after: before.rules });

@@ -1,3 +1,4 @@
+import type { PersonSummary } from '../../shared/schemas/accounts';
 import type { Role, SessionUser } from '../../shared/schemas/session';
 import type { Db } from '../db';
 import { sessionCacheOf } from '../auth/session-cache';
@@ -13,16 +14,6 @@ export interface PersonRow {
   last_sign_in_at: Date | null;
 }
 
-export interface PersonSummary {
-  id: number;
-  email: string;
-  name: string;
-  role: Role;
-  groupName: string | null;
-  active: boolean;
-  lastSignInAt: string | null;
-  qualification: { authorisedKv: number; expiresOn: string } | null;
-}
 
 export function toSessionUser(person: Pick<PersonRow, 'id' | 'email' | 'name' | 'role'>): SessionUser {
   return { id: person.id, email: person.email, name: person.name, role: person.role };

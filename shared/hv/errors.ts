@@ -1,3 +1,5 @@
+import { ERROR_CODES } from '../errors';
+
 /**
  * Thrown for any input a calculation cannot answer honestly. A safety number computed from NaN,
  * a negative capacitance or a safe level above the start voltage would look valid on screen, so
@@ -5,7 +7,7 @@
  * so the API can put the message beside the right form field.
  */
 export class HvInputError extends Error {
-  readonly code = 'INVALID_INPUT' as const;
+  readonly code = ERROR_CODES.invalidInput;
   readonly field: string;
 
   constructor(field: string, message: string) {

@@ -4,7 +4,8 @@
 import { basisChanges, type ApprovalBasis } from './approval-basis';
 import type { Assessment, Reason } from '../schemas/assessment';
 import { checklistCoverage } from './checklist-coverage';
-import type { BookingStatus, ChecklistAnswerRecord, ChecklistEntry } from '../schemas/bookings';
+import { PRE_RELEASE_STATUSES, type BookingStatus, type ChecklistAnswerRecord, type ChecklistEntry } from '../schemas/bookings';
+import type { RuleFailure } from '../errors';
 
 export const RELEASE_RULES = {
   status: 'The booking is not in a state that can be released.',
@@ -30,13 +31,6 @@ export const RETURN_RULES = {
 } as const;
 export type ReturnRule = keyof typeof RETURN_RULES;
 
-export interface RuleFailure<Rule extends string = string> {
-  rule: Rule;
-  message: string;
-}
-
-/** States from which a booking may be released. */
-export const RELEASABLE_STATUSES: readonly BookingStatus[] = ['requested', 'awaiting-approval', 'approved'];
 
 /** The latest officer decision on a booking, as stored. */
 export interface ApprovalRecord {
@@ -68,7 +62,6 @@ export interface ReleaseContext {
   endsAt: Date;
   earlyPickupMin: number;
   planVersion: number;
-  itemIds: readonly number[];
   scannedItemIds: readonly number[];
   /** Recomputed from the gear, the person and the lab's rules as they are now. */
   assessment: Assessment;
@@ -88,7 +81,7 @@ export function releaseFailures(ctx: ReleaseContext): RuleFailure<ReleaseRule>[]
   const fail = (rule: ReleaseRule, detail?: string) => failures.push({ rule, message: detail ? `${RELEASE_RULES[rule]} ${detail}` : RELEASE_RULES[rule] });
   const a = ctx.assessment;
 
-  if (!RELEASABLE_STATUSES.includes(ctx.status)) fail('status', `It is ${ctx.status}.`);
+  if (!PRE_RELEASE_STATUSES.includes(ctx.status)) fail('status', `It is ${ctx.status}.`);
   if (!ctx.bookerActive) fail('booker', 'The account was deactivated.');
   const standing = approvalStanding(ctx.approval, ctx.planVersion, ctx.basis);
   if (a.approvalRequired && !standing.current) {

@@ -30,3 +30,31 @@ export const personUpdateSchema = z
   .strict()
   .refine((v) => Object.keys(v).length > 0, 'Nothing to change');
 export type PersonUpdateInput = z.infer<typeof personUpdateSchema>;
+
+// Answers (GET /api/people, PATCH /api/people/:id, GET /api/groups): the server builds them
+// (server/services/people.ts, accounts.ts) and the app's hooks read them, both through these types.
+export const personSummarySchema = z.object({
+  id: z.number().int(),
+  email: z.string(),
+  name: z.string(),
+  role: roleSchema,
+  groupName: z.string().nullable(),
+  active: z.boolean(),
+  lastSignInAt: z.string().nullable(),
+  /** The HV qualification on record; `expiresOn` is a calendar date (YYYY-MM-DD). */
+  qualification: z.object({ authorisedKv: z.number(), expiresOn: z.string() }).nullable(),
+});
+export type PersonSummary = z.infer<typeof personSummarySchema>;
+
+export const updatedPersonSchema = z.object({
+  id: z.number().int(),
+  email: z.string(),
+  name: z.string(),
+  role: roleSchema,
+  active: z.boolean(),
+  groupId: z.number().int().nullable(),
+});
+export type UpdatedPerson = z.infer<typeof updatedPersonSchema>;
+
+export const groupSchema = z.object({ id: z.number().int(), name: z.string() });
+export type Group = z.infer<typeof groupSchema>;

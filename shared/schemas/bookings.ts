@@ -1,6 +1,7 @@
 // Booking payloads, lab rules and qualifications: one schema each, for the form and the API.
 import { z } from 'zod';
 // Installs the shared error map (plain words with units) wherever a schema is used.
+import type { RuleFailure } from '../errors';
 import '../zod-errors';
 import type { Assessment } from './assessment';
 import { BOOKING_WINDOW } from '../rules/booking-window';
@@ -16,7 +17,11 @@ export const decimalNumber = (places: number) =>
 export const BOOKING_STATUSES = ['requested', 'awaiting-approval', 'approved', 'refused', 'released', 'returned', 'cancelled'] as const;
 export type BookingStatus = (typeof BOOKING_STATUSES)[number];
 /** States in which a booking holds its items (an item is never in two overlapping live bookings). */
-export const LIVE_STATUSES: BookingStatus[] = ['requested', 'awaiting-approval', 'approved', 'released'];
+export const LIVE_STATUSES: readonly BookingStatus[] = ['requested', 'awaiting-approval', 'approved', 'released'];
+/** On the way to release: the states in which gear is scanned, the pre-energize checklist answered and the booking released. */
+export const PRE_RELEASE_STATUSES: readonly BookingStatus[] = ['requested', 'awaiting-approval', 'approved'];
+/** Not yet released and not closed: the booker may still change or cancel it. */
+export const OPEN_STATUSES: readonly BookingStatus[] = [...PRE_RELEASE_STATUSES, 'refused'];
 
 export const testPlanSchema = z
   .object({
@@ -94,6 +99,8 @@ export const approvalDecisionSchema = z
   .strict()
   .refine((v) => v.decision !== 'refuse' || (v.reason ?? '').length > 0, { message: 'Say why the test is refused', path: ['reason'] })
   .refine((v) => v.decision !== 'approve' || v.planVersion !== undefined, { message: 'Approve the plan version you reviewed', path: ['planVersion'] });
+/** What the officer's form sends (the schema's input: optional fields may be left out). */
+export type ApprovalDecisionInput = z.input<typeof approvalDecisionSchema>;
 
 export const scanSchema = z.object({ tag: z.string().trim().min(1).max(40) }).strict();
 
@@ -123,6 +130,7 @@ export const returnSchema = z
   })
   .strict()
   .refine((v) => v.damagedItemIds.length === 0 || v.notes.length > 0, { message: 'Describe the damage', path: ['notes'] });
+export type ReturnInput = z.input<typeof returnSchema>;
 
 export const labRulesSchema = z
   .object({
@@ -339,7 +347,7 @@ export interface ChecklistTemplate {
 
 /** What release would answer now (GET /api/bookings/:id/release-check): the screen shows it before the last button. */
 export interface ReleasePreview {
-  failures: { rule: string; message: string }[];
+  failures: RuleFailure[];
   /** When the counter may release at the earliest (the start less the lab's early pick-up). */
   opensAt: string;
   checkedAt: string;

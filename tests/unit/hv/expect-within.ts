@@ -28,7 +28,7 @@ export function catchHvInputError(fn: () => unknown): HvInputError {
     fn();
   } catch (error) {
     if (error instanceof HvInputError) return error;
-    throw new Error(`expected an HvInputError, got ${String(error)}`);
+    throw new Error(`expected an HvInputError, got ${String(error)}`, { cause: error });
   }
   throw new Error('expected an HvInputError, but the call returned normally');
 }

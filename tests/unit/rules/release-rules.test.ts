@@ -56,7 +56,6 @@ function context(overrides: Partial<ReleaseContext> & { items?: AssessedItem[]; 
     endsAt: end,
     earlyPickupMin: 15,
     planVersion: 1,
-    itemIds: items.map((i) => i.id),
     scannedItemIds: items.map((i) => i.id),
     assessment,
     basis,
