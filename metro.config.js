@@ -10,6 +10,9 @@
 // first download. The components below are rendered by nothing in the app or those packages, so
 // react-native-web's own index (and its Animated wrappers) get a stand-in that throws if rendered;
 // our code importing one of them directly still gets the real component.
+// Likewise expo-router's index re-exports parts the app never runs (route sitemap, header search
+// bar, iOS link previews, React Navigation's static configuration API): they get a stand-in that
+// throws if ever called (metro/expo-router-left-out.js).
 const path = require('path');
 const { getDefaultConfig } = require('expo/metro-config');
 
@@ -28,6 +31,10 @@ const RN_WEB_EXPORT = new RegExp(`[\\\\/]react-native-web[\\\\/]dist[\\\\/]expor
 const INSIDE_RN_WEB = /[\\/]node_modules[\\/]react-native-web[\\/]/;
 const rnWebLeftOut = path.resolve(__dirname, 'metro/rn-web-left-out.js');
 
+const ROUTER_LEFT_OUT = ['views/Sitemap', 'react-navigation/elements/Header/HeaderSearchBar', 'link/preview/HrefPreview', 'link/LinkWithPreview', 'react-navigation/core/StaticNavigation', 'react-navigation/native/createStaticNavigation'];
+const ROUTER_EXPORT = new RegExp(`[\\\\/]expo-router[\\\\/]build[\\\\/](${ROUTER_LEFT_OUT.join('|')})\\.js$`);
+const routerLeftOut = path.resolve(__dirname, 'metro/expo-router-left-out.js');
+
 const upstreamResolveRequest = config.resolver.resolveRequest;
 
 config.resolver.resolveRequest = (context, moduleName, platform) => {
@@ -39,6 +46,9 @@ config.resolver.resolveRequest = (context, moduleName, platform) => {
   const resolved = (upstreamResolveRequest ?? context.resolveRequest)(context, moduleName, platform);
   if (platform === 'web' && resolved.type === 'sourceFile' && INSIDE_RN_WEB.test(context.originModulePath) && RN_WEB_EXPORT.test(resolved.filePath)) {
     return { type: 'sourceFile', filePath: rnWebLeftOut };
+  }
+  if (platform === 'web' && resolved.type === 'sourceFile' && ROUTER_EXPORT.test(resolved.filePath)) {
+    return { type: 'sourceFile', filePath: routerLeftOut };
   }
   return resolved;
 };

@@ -1,3 +1,6 @@
+// First: lazy screens must find their shared chunk (see shared-chunk.web.ts).
+import '@/components/common/shared-chunk';
+
 import { QueryClientProvider } from '@tanstack/react-query';
 import { Stack, ThemeProvider, type ErrorBoundaryProps } from 'expo-router';
 import { StatusBar } from 'expo-status-bar';

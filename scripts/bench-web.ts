@@ -45,12 +45,19 @@ interface RunFigures {
    * The 4x slowdown is applied on top of it, so on a busy shared machine TBT and LCP grow.
    */
   benchmarkIndex: number;
+  /** The machine's 1-minute load average when the run started (2 cores: above 2, others wait). */
+  loadAverage: number;
 }
 
 interface PageResult extends RunFigures {
   name: string;
   path: string;
   runs: RunFigures[];
+}
+
+/** The 1-minute load average, to two places: the other engineers' work shares these cores. */
+function loadNow(): number {
+  return Math.round(os.loadavg()[0]! * 100) / 100;
 }
 
 async function signIn(base: string, email: string): Promise<string> {
@@ -105,7 +112,7 @@ function loadedSignedInData(lhr: Lhr): boolean {
   });
 }
 
-function figuresOf(lhr: Lhr): RunFigures {
+function figuresOf(lhr: Lhr, loadAverage: number): RunFigures {
   const n = (id: string) => lhr.audits[id]?.numericValue ?? Number.NaN;
   return {
     score: Math.round((lhr.categories.performance.score ?? 0) * 100),
@@ -116,6 +123,7 @@ function figuresOf(lhr: Lhr): RunFigures {
     bytes: n('total-byte-weight'),
     unusedJsBytes: lhr.audits['unused-javascript']?.details?.overallSavingsBytes ?? 0,
     benchmarkIndex: Math.round(lhr.environment?.benchmarkIndex ?? 0),
+    loadAverage,
   };
 }
 
@@ -190,6 +198,7 @@ function kb(bytes: number): string {
 }
 
 async function main(): Promise<void> {
+  const loadAtStart = loadNow();
   const options = benchWebInstance();
   await startInstance(options);
   resetDatabase(options);
@@ -227,7 +236,8 @@ async function main(): Promise<void> {
       const chrome = await chromeLauncher.launch({ chromePath: CHROMIUM, chromeFlags: CHROME_FLAGS });
       try {
         for (let i = 0; i < RUNS; i += 1) {
-          runs.push(figuresOf(await lighthouseRun(lighthouse, chrome.port, `${base}${spec.path}`, spec.signedIn ? cookie : null)));
+          const load = loadNow();
+          runs.push(figuresOf(await lighthouseRun(lighthouse, chrome.port, `${base}${spec.path}`, spec.signedIn ? cookie : null), load));
         }
       } finally {
         chrome.kill();
@@ -236,24 +246,26 @@ async function main(): Promise<void> {
       const ordered = [...runs].sort((a, b) => a.score - b.score || b.lcpMs - a.lcpMs);
       const mid = ordered[Math.floor(ordered.length / 2)]!;
       results.push({ name: spec.name, path: spec.path, ...mid, runs });
-      console.log(`[bench:web] ${spec.name}: score ${mid.score} (runs ${runs.map((r) => r.score).join(', ')})`);
+      console.log(`[bench:web] ${spec.name}: score ${mid.score} (runs ${runs.map((r) => `${r.score} at load ${r.loadAverage}`).join(', ')})`);
     }
     const signInVisit = await visitTransfers(base, null, '/sign-in');
     const todayVisit = await visitTransfers(base, cookie, '/');
 
-    console.log('\n| page | score | FCP | LCP | TBT | CLS | transferred | unused JS | CPU index |');
-    console.log('| --- | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: |');
+    console.log('\n| page | score | FCP | LCP | TBT | CLS | transferred | unused JS | CPU index | load |');
+    console.log('| --- | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: |');
     for (const r of results) {
-      console.log(`| ${r.name} | ${r.score} | ${(r.fcpMs / 1000).toFixed(1)} s | ${(r.lcpMs / 1000).toFixed(1)} s | ${r.tbtMs.toFixed(0)} ms | ${r.cls.toFixed(3)} | ${kb(r.bytes)} | ${kb(r.unusedJsBytes)} | ${r.benchmarkIndex} |`);
+      console.log(`| ${r.name} | ${r.score} | ${(r.fcpMs / 1000).toFixed(1)} s | ${(r.lcpMs / 1000).toFixed(1)} s | ${r.tbtMs.toFixed(0)} ms | ${r.cls.toFixed(3)} | ${kb(r.bytes)} | ${kb(r.unusedJsBytes)} | ${r.benchmarkIndex} | ${r.loadAverage.toFixed(1)} |`);
     }
     console.log('\n| visit (before the first API call) | first visit | repeat visit |');
     console.log('| --- | ---: | ---: |');
     console.log(`| Sign-in | ${kb(signInVisit.firstVisitBytes)} | ${(signInVisit.repeatVisitBytes / 1024).toFixed(1)} KB (${signInVisit.repeatRequests} requests) |`);
     console.log(`| Today | ${kb(todayVisit.firstVisitBytes)} | ${(todayVisit.repeatVisitBytes / 1024).toFixed(1)} KB (${todayVisit.repeatRequests} requests) |`);
     const median3 = (key: keyof RunFigures) => results.map((r) => ({ page: r.name, median: median(r.runs.map((x) => x[key])) }));
+    const loadAverages = { atStart: loadAtStart, atEnd: loadNow() };
+    console.log(`load average (1 min) at the start ${loadAverages.atStart}, at the end ${loadAverages.atEnd}; each row's is its median run's`);
     const machine = { cpus: os.cpus().length, cpuModel: os.cpus()[0]?.model ?? 'unknown', memGb: Math.round(os.totalmem() / 2 ** 30), node: process.version, platform: `${os.type()} ${os.release()}` };
     console.log(`\nmachine: ${machine.cpus} × ${machine.cpuModel}, ${machine.memGb} GB, ${machine.platform}, Node ${machine.node}; Lighthouse 12.2.3 mobile (simulated), ${RUNS} runs per page, median run`);
-    const out = { at: new Date().toISOString(), lighthouse: '12.2.3', profile: 'default mobile, simulated throttling', runsPerPage: RUNS, machine, pages: results, perMetricMedians: { lcpMs: median3('lcpMs'), score: median3('score') }, visits: { signIn: signInVisit, today: todayVisit } };
+    const out = { at: new Date().toISOString(), lighthouse: '12.2.3', profile: 'default mobile, simulated throttling', runsPerPage: RUNS, machine, loadAverages, pages: results, perMetricMedians: { lcpMs: median3('lcpMs'), score: median3('score') }, visits: { signIn: signInVisit, today: todayVisit } };
     const dir = path.join(ROOT, 'bench', 'results');
     mkdirSync(dir, { recursive: true });
     const json = JSON.stringify(out, null, 2);

@@ -1,16 +1,17 @@
 // Builds the Expo web app into dist/ when its sources are newer than the last build, then makes
 // what a phone needs from it: WOFF2 fonts (the icon font cut to the icons the app lists) declared
-// and preloaded in index.html, a service worker for opening offline, and a brotli and a gzip twin
-// of every text file. `tsx scripts/build-web.ts --force` rebuilds regardless.
+// and preloaded in index.html, the lazy screens' shared chunk taken off the first page, a service
+// worker for opening offline, and a brotli and a gzip twin of every text file. `tsx scripts/build-web.ts --force` rebuilds regardless.
 import { spawnSync } from 'node:child_process';
 import { copyFileSync, existsSync, mkdirSync, readdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { buildWebFonts, fontHeadHtml } from './lib/web-fonts';
 import { precompressWeb } from './lib/web-precompress';
+import { deferSharedChunk } from './lib/web-shared-chunk';
 import { buildServiceWorker } from './lib/web-service-worker';
 
 const ROOT = path.resolve(__dirname, '..');
-const SOURCES = ['app', 'components', 'hooks', 'shared', 'assets', 'metro', 'public', 'app.json', 'metro.config.js', 'babel.config.js', 'package-lock.json', 'scripts/build-web.ts', 'scripts/lib/web-fonts.ts', 'scripts/lib/web-precompress.ts', 'scripts/lib/web-service-worker.ts'];
+const SOURCES = ['app', 'components', 'hooks', 'shared', 'assets', 'metro', 'public', 'app.json', 'metro.config.js', 'babel.config.js', 'package-lock.json', 'scripts/build-web.ts', 'scripts/lib/web-fonts.ts', 'scripts/lib/web-precompress.ts', 'scripts/lib/web-service-worker.ts', 'scripts/lib/web-shared-chunk.ts'];
 const DIST = path.join(ROOT, 'dist');
 const STAMP = path.join(DIST, '.build-stamp');
 
@@ -40,7 +41,9 @@ async function finishWebBuild(webDir: string): Promise<void> {
   if (!html.includes('</head>')) throw new Error('dist/index.html has no </head> to add the fonts to');
   writeFileSync(indexPath, html.replace('</head>', `${fontHeadHtml(fonts)}</head>`));
   console.log(`[web] fonts: ${fonts.map((f) => `${path.basename(f.href)} ${(f.bytes / 1024).toFixed(1)} KB`).join(', ')}`);
-  const sw = await buildServiceWorker(webDir);
+  const sharedChunk = deferSharedChunk(webDir);
+  if (sharedChunk) console.log(`[web] lazy screens' shared chunk loads with the first of them: ${path.basename(sharedChunk)}`);
+  const sw = await buildServiceWorker(webDir, sharedChunk);
   console.log(`[web] service worker precaches ${sw.count} files (${(sw.size / 1024).toFixed(0)} KB)`);
   const totals = precompressWeb(webDir);
   console.log(`[web] precompressed ${totals.files} files: ${(totals.rawBytes / 1024).toFixed(0)} KB raw, ${(totals.brBytes / 1024).toFixed(0)} KB brotli, ${(totals.gzBytes / 1024).toFixed(0)} KB gzip`);

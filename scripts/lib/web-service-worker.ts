@@ -10,9 +10,11 @@ import { generateSW } from 'workbox-build';
 /** Hashed file names (Metro's 32-hex chunks, our 16-hex fonts) never change content. */
 const HASHED = /[.-][0-9a-f]{16,}\./;
 
-export async function buildServiceWorker(webDir: string): Promise<{ count: number; size: number }> {
+/** `sharedChunk`: the lazy screens' shared chunk (no longer a script of the page), kept for offline too. */
+export async function buildServiceWorker(webDir: string, sharedChunk: string | null = null): Promise<{ count: number; size: number }> {
   const html = readFileSync(path.join(webDir, 'index.html'), 'utf8');
   const shellScripts = [...html.matchAll(/<script src="\/([^"]+)"/g)].map((m) => m[1]!);
+  if (sharedChunk) shellScripts.push(sharedChunk.replace(/^\//, ''));
   const { count, size, warnings } = await generateSW({
     globDirectory: webDir,
     globPatterns: ['index.html', 'register-sw.js', 'favicon.ico', 'fonts/*.woff2', ...shellScripts],

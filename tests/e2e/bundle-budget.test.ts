@@ -3,11 +3,9 @@
 // are summed, for the sign-in screen and for Today. The heavy parts (scanner and its wasm,
 // Planner, admin and reports screens) must stay out: they load lazily.
 //
-// Issue 15 asks for at most 300 KB. The first screen is at about 314 KB now (from 1.74 MB
-// uncompressed): React DOM, react-native-web, expo-router with its navigation, zod and
-// react-hook-form are about 1.2 MB of the 1.46 MB entry script, and the chunk of modules shared by
-// the lazy screens is loaded up front by Expo's web export. The budget below holds that line so
-// nothing grows back; lower it when the first screen gets lighter.
+// Issue 15 asks for at most 300 KB brotli. The lazy screens' shared chunk (`__common`, the gate's
+// rules, HV tables and booking schemas) is not a script of the first screen: it loads with the
+// first lazy screen (components/common/shared-chunk.web.ts).
 import http from 'node:http';
 import { readdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
@@ -15,11 +13,9 @@ import { createPerson } from '../helpers/test-app';
 import { e2eSuite, newPage, PHONE, signInThroughUi } from '../helpers/e2e';
 
 const WEB_DIR = process.env.VOLTCRIB_E2E_WEB_DIR ?? path.resolve(__dirname, '../../dist');
-// 330 KB until the first screen is cut: the merged error map, role gate and desk words brought
-// it to 322 KB (issue 15 asks 300 KB; see the closing note).
-const BUDGET_BROTLI_BYTES = 330 * 1024;
+const BUDGET_BROTLI_BYTES = 300 * 1024;
 /** Chunks that must not be part of a first screen. */
-const LAZY_CHUNKS = ['qr-camera', 'scan-screen', 'planner-calculators', 'people-screen', 'labels-screen', 'outbox-screen', 'reports-screen', 'audit-screen', 'lab-rules-screen', 'approvals-screen'];
+const LAZY_CHUNKS = ['__common', 'qr-camera', 'scan-screen', 'planner-calculators', 'people-screen', 'labels-screen', 'outbox-screen', 'reports-screen', 'audit-screen', 'lab-rules-screen', 'approvals-screen'];
 
 const suite = e2eSuite();
 
@@ -72,12 +68,12 @@ async function firstScreenScripts(screen: 'sign-in' | 'today'): Promise<string[]
 }
 
 describe.each(['sign-in', 'today'] as const)('the %s screen', (screen) => {
-  it('loads at most 330 KB of brotli script (issue 15: 300 KB), each precompressed, cached for good and none of the lazy screens', async () => {
+  it('loads at most 300 KB of brotli script, each precompressed, cached for good and none of the lazy screens', async () => {
     const scripts = await firstScreenScripts(screen);
     expect(scripts.some((p) => p.includes('/entry-'))).toBe(true);
     const wire = await Promise.all(scripts.map((p) => onTheWire(suite.server.baseUrl, p)));
     const total = wire.reduce((sum, w) => sum + w.bytes, 0);
-    console.log(`[budget] ${screen}: ${wire.length} scripts, ${(total / 1024).toFixed(1)} KB on the wire (budget ${BUDGET_BROTLI_BYTES / 1024} KB; issue 15 asks 300 KB)\n${wire.map((w) => `  ${w.path} ${w.encoding ?? 'identity'} ${(w.bytes / 1024).toFixed(1)} KB`).join('\n')}`);
+    console.log(`[budget] ${screen}: ${wire.length} scripts, ${(total / 1024).toFixed(1)} KB on the wire (budget ${BUDGET_BROTLI_BYTES / 1024} KB)\n${wire.map((w) => `  ${w.path} ${w.encoding ?? 'identity'} ${(w.bytes / 1024).toFixed(1)} KB`).join('\n')}`);
     for (const w of wire) {
       // Tiny files are sent as they are; everything else as brotli, varying by Accept-Encoding.
       if (w.bytes > 1024) expect({ path: w.path, encoding: w.encoding }).toEqual({ path: w.path, encoding: 'br' });
