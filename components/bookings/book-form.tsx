@@ -10,11 +10,13 @@ import { Card } from '@/components/ui/card';
 import { FormAlert } from '@/components/ui/form-alert';
 import { FormTextField } from '@/components/ui/form-fields';
 import { useLiveAssessment } from '@/hooks/use-assessment';
-import { useGearItems } from '@/hooks/use-booking-gear';
+import { useGearAvailability, useGearItems } from '@/hooks/use-booking-gear';
 import { useCreateBookingMutation, useUpdateBookingMutation, type Booking } from '@/hooks/use-bookings';
 import { useBreakpoints } from '@/hooks/use-breakpoints';
 import { useCurrentUser } from '@/hooks/use-session';
+import { gearFailures } from '@/shared/rules/release';
 import { bookingCreateSchema } from '@/shared/schemas/bookings';
+import { GateSummary } from '@/components/assessment/gate-summary';
 
 import { BOOK_FIELDS, bookingDefaults, newBookingDefaults, type BookFormValues } from './book-form-values';
 import { ItemPicker } from './item-picker';
@@ -50,6 +52,14 @@ export function BookForm({ booking }: BookFormProps) {
   const live = useLiveAssessment({ items: gear.items, itemsLoading: gear.loading, plan: values.plan, personId: user?.id });
   const window =
     values.startsAt && values.endsAt && new Date(values.endsAt) > new Date(values.startsAt) ? { from: values.startsAt, to: values.endsAt } : null;
+
+  // The same gear rules the release enforces (shared/rules/release.ts), with the window's clashes,
+  // so a set that can never be released says why before it is requested.
+  const availability = useGearAvailability(itemIds, window);
+  const clashingTags = window
+    ? itemIds.filter((id) => (availability[id]?.busy ?? []).some((slot) => slot.bookingId !== booking?.id)).map((id) => gear.items.find((i) => i.id === id)?.tag ?? `item ${id}`)
+    : [];
+  const blockers = live.state === 'ready' ? gearFailures(live.assessment, clashingTags) : [];
 
   const onSubmit = handleSubmit(async (input) => {
     try {
@@ -131,6 +141,7 @@ export function BookForm({ booking }: BookFormProps) {
 
   const submit = (
     <View style={styles.submit}>
+      {live.state === 'ready' ? <GateSummary failures={blockers} clashesChecked={window !== null} testID="book-gate" /> : null}
       {approvalLine ? (
         <AppText variant="bodyStrong" testID="book-approval-line">
           {approvalLine}

@@ -10,11 +10,17 @@ import { Card } from '@/components/ui/card';
 import { describeError } from '@/components/ui/error-state';
 import { FormAlert } from '@/components/ui/form-alert';
 import { HazardBadge } from '@/components/ui/hazard-badge';
-import { useCancelBookingMutation, type Booking } from '@/hooks/use-bookings';
-import { useCurrentUser } from '@/hooks/use-session';
+import { ReleaseFailures } from '@/components/release/release-failures';
+import { useCancelBookingMutation, useReleaseCheckQuery, type Booking } from '@/hooks/use-bookings';
+import { useCurrentUser, useLabTimeZone } from '@/hooks/use-session';
+import { GEAR_RULES } from '@/shared/rules/release';
 import type { BookingStatus } from '@/shared/schemas/bookings';
+import { zonedTimeWords } from '@/shared/zoned-time';
 
 const BEFORE_RELEASE: BookingStatus[] = ['requested', 'awaiting-approval', 'approved', 'refused'];
+const RELEASABLE: BookingStatus[] = ['requested', 'awaiting-approval', 'approved'];
+/** Failures no one at the counter can clear: the booking's gear or window must change first. */
+const STANDING_RULES: readonly string[] = [...GEAR_RULES, 'booker'];
 
 interface Step {
   /** What happens next, in a sentence. */
@@ -63,16 +69,29 @@ function nextStep(booking: Booking, viewer: { id: number; role: string } | null)
   }
 }
 
+const own = (booking: Booking, viewer: { id: number } | null) => viewer?.id === booking.personId;
+
 /** The next step as the screen's one primary action, with the lesser ones (change, cancel) below. */
 export function BookingNextStep({ booking }: { booking: Booking }) {
   const user = useCurrentUser();
   const cancel = useCancelBookingMutation(booking.id);
   const [confirming, setConfirming] = useState(false);
-  const step = nextStep(booking, user);
-  const own = user?.id === booking.personId;
+  const zone = useLabTimeZone();
+  const check = useReleaseCheckQuery(booking.id, RELEASABLE.includes(booking.status));
+  const standing = (check.data?.failures ?? []).filter((f) => STANDING_RULES.includes(f.rule));
+  const opensAt = check.data && new Date(check.data.opensAt).getTime() > Date.now() ? check.data.opensAt : null;
+  const counter = nextStep(booking, user);
+  // Never "Go to release" for a booking the gate will refuse whatever is done at the counter.
+  const step: Step =
+    RELEASABLE.includes(booking.status) && standing.length > 0
+      ? { say: own(booking, user) ? 'This booking cannot be released as it stands. Change the gear, window or plan as listed below.' : 'This booking cannot be released as it stands; the person who booked must change it.' }
+      : opensAt && counter.action?.testID === 'booking-go-release'
+        ? { ...counter, say: `${counter.say} The counter opens it at ${zonedTimeWords(opensAt, zone)}.` }
+        : counter;
+  const mine = own(booking, user);
   const staff = user?.role === 'officer' || user?.role === 'manager';
-  const canChange = own && ['requested', 'awaiting-approval', 'approved'].includes(booking.status);
-  const canCancel = (own || staff) && BEFORE_RELEASE.includes(booking.status);
+  const canChange = mine && ['requested', 'awaiting-approval', 'approved'].includes(booking.status);
+  const canCancel = (mine || staff) && BEFORE_RELEASE.includes(booking.status);
 
   return (
     <Card title="Next step" testID="booking-next-step">
@@ -80,6 +99,9 @@ export function BookingNextStep({ booking }: { booking: Booking }) {
       <AppText variant="bodyStrong" testID="booking-next-step-text">
         {step.say}
       </AppText>
+      {standing.length > 0 && RELEASABLE.includes(booking.status) ? (
+        <ReleaseFailures testID="booking-blocked" title={`The release will refuse it: ${standing.length} rule${standing.length === 1 ? '' : 's'} the gear fails.`} failures={standing} />
+      ) : null}
       {step.action ? (
         <Button label={step.action.label} icon={step.action.icon} block testID={step.action.testID} onPress={() => router.push(step.action!.href)} />
       ) : null}

@@ -2,7 +2,8 @@
 // metres, and whether a safety officer must approve it. Pure: the app runs it as the member types;
 // the server runs the same code and stores the result with the booking.
 import { approachBoundaries, classifyHazardousLive, dischargePlan, HvInputError, multiplierOutput, ratingMargin, storedEnergyJ as capacitorEnergyJ } from '../hv';
-import type { ItemKind } from '../schemas/items';
+import type { ItemKind, Polarity } from '../schemas/items';
+import { polarityProblem } from './polarity';
 import type { LabRules, TestPlan } from '../schemas/bookings';
 
 export interface AssessedItem {
@@ -47,6 +48,8 @@ export interface Assessment {
   requiredKv: number;
   items: ItemCheck[];
   missingCompanions: Reason[];
+  /** The sources cannot produce the plan's polarity (shared/rules/polarity.ts); absent on assessments stored before the check. */
+  polarity?: Reason | null;
   storedEnergyJ: number;
   outputCapacitanceF: number;
   hazard: { hazardous: boolean; criterion: string; explanation: string; source: string };
@@ -105,6 +108,11 @@ export function assessSetup(input: { items: AssessedItem[]; plan: TestPlan; rule
   if (plan.plannedKv > rules.interlockKv && !ratedFor('interlock')) {
     missingCompanions.push({ code: 'interlock', message: `Above ${rules.interlockKv} kV the lab requires an interlocked enclosure or barrier rated for at least ${requiredKv.toFixed(1)} kV.` });
   }
+
+  const polaritySources = items
+    .filter((i) => i.kind === 'hv-supply' || i.kind === 'multiplier')
+    .map((i) => ({ tag: i.tag, polarity: typeof i.ratings.polarity === 'string' ? (i.ratings.polarity as Polarity) : null }));
+  const polarity = polarityProblem(plan.polarity, polaritySources);
 
   // Stored energy and output capacitance of the sources at the planned voltage.
   let storedEnergyJ = 0;
@@ -211,6 +219,7 @@ export function assessSetup(input: { items: AssessedItem[]; plan: TestPlan; rule
     requiredKv,
     items: itemChecks,
     missingCompanions,
+    polarity,
     storedEnergyJ,
     outputCapacitanceF,
     hazard,
