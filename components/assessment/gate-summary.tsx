@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { borders, iconSizes, radii, spacing } from '@/components/theme/tokens';
@@ -22,13 +23,15 @@ interface GateSummaryProps {
   /** Whether clashes were checked (a window is set): otherwise the "Free" line is left out. */
   clashesChecked: boolean;
   testID: string;
+  /** Something to do about one failure, shown under it (the booking form's "Add a suitable one"). */
+  actionFor?: (failure: RuleFailure) => ReactNode;
 }
 
 /**
  * One line per gear rule, pass or fail, as word + icon + colour, above the long assessment: what
  * the gate will refuse on, before anyone asks for the gear. A failing line says what is wrong.
  */
-export function GateSummary({ failures, clashesChecked, testID }: GateSummaryProps) {
+export function GateSummary({ failures, clashesChecked, testID, actionFor }: GateSummaryProps) {
   const { colors } = useTheme();
   const failing = LINES.filter((line) => failures.some((f) => line.rules.includes(f.rule))).length;
   return (
@@ -54,9 +57,10 @@ export function GateSummary({ failures, clashesChecked, testID }: GateSummaryPro
                 </AppText>
               ) : (
                 own.map((f, index) => (
-                  <AppText key={index} variant="small">
-                    {f.message}
-                  </AppText>
+                  <View key={index} style={styles.text}>
+                    <AppText variant="small">{f.message}</AppText>
+                    {actionFor?.(f)}
+                  </View>
                 ))
               )}
             </View>

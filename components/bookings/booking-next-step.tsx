@@ -26,8 +26,10 @@ interface Step {
   /** What happens next, in a sentence. */
   say: string;
   /** The one primary action, when the next step is the viewer's. */
-  action?: { label: string; icon: 'lock-open-variant' | 'keyboard-return' | 'pencil' | 'clipboard-check'; href: Href; testID: string };
+  action?: { label: string; icon: 'lock-open-variant' | 'keyboard-return' | 'pencil' | 'clipboard-check' | 'calendar-plus'; href: Href; testID: string };
 }
+
+const bookAgain = (id: string): Step['action'] => ({ label: 'Book again', icon: 'calendar-plus', href: { pathname: '/bookings/new', params: { from: id } }, testID: 'booking-book-again' });
 
 function nextStep(booking: Booking, viewer: { id: number; role: string } | null): Step {
   const own = viewer?.id === booking.personId;
@@ -63,9 +65,9 @@ function nextStep(booking: Booking, viewer: { id: number; role: string } | null)
         action: { label: 'Return and make safe', icon: 'keyboard-return', href: { pathname: '/bookings/[id]/return', params: { id } }, testID: 'booking-go-return' },
       };
     case 'returned':
-      return { say: `Returned${booking.returnedAt ? ` ${formatDateTime(booking.returnedAt)}` : ''}. Nothing more to do.` };
+      return { say: `Returned${booking.returnedAt ? ` ${formatDateTime(booking.returnedAt)}` : ''}. Nothing more to do.`, action: own ? bookAgain(id) : undefined };
     case 'cancelled':
-      return { say: `Cancelled${booking.cancelledAt ? ` ${formatDateTime(booking.cancelledAt)}` : ''}. The gear is free for others.` };
+      return { say: `Cancelled${booking.cancelledAt ? ` ${formatDateTime(booking.cancelledAt)}` : ''}. The gear is free for others.`, action: own ? bookAgain(id) : undefined };
   }
 }
 

@@ -1,8 +1,10 @@
+import { router } from 'expo-router';
 import type { ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { spacing } from '@/components/theme/tokens';
 import { AppText } from '@/components/ui/app-text';
+import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
@@ -58,6 +60,16 @@ function ItemBody({ item, role, isWide }: { item: Item; role: Role; isWide: bool
   const first = (
     <>
       <ItemSummaryCard item={item} />
+      {item.status === 'in-service' ? (
+        <View style={styles.book}>
+          <Button
+            label="Book this"
+            icon="calendar-plus"
+            testID="item-book-this"
+            onPress={() => router.push({ pathname: '/bookings/new', params: { itemId: String(item.id) } })}
+          />
+        </View>
+      ) : null}
       <ItemActions item={item} role={role} />
       <ItemPhoto item={item} />
       <ItemRatingsCard item={item} />
@@ -95,4 +107,5 @@ function Column({ children }: { children: ReactNode }) {
 const styles = StyleSheet.create({
   columns: { flexDirection: 'row', alignItems: 'flex-start', gap: spacing.lg },
   column: { flex: 1, gap: spacing.lg, minWidth: 0 },
+  book: { alignItems: 'flex-start' },
 });

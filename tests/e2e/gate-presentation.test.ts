@@ -47,7 +47,21 @@ it('names an out-of-limit reading with its line, value and limits, and clears it
     await signInThroughUi(page, suite.server.baseUrl, person.email, person.password);
     await page.goto(`${suite.server.baseUrl}/bookings/${booking.id}/release`, { waitUntil: 'load' });
     await page.getByTestId('release-step-scan').waitFor({ timeout: 20_000 });
-    for (const item of kit.all) {
+    // The typed tag's button says what it does; its answer sits right under the field, and a
+    // second scan of the same item says it was already ticked off.
+    const first = kit.all[0]!;
+    expect(await page.getByTestId('release-scanner-typed-submit').textContent()).toMatch(/Tick off$/);
+    await page.getByTestId('release-scanner-typed-input').fill(first.tag);
+    await page.getByTestId('release-scanner-typed-submit').click();
+    await page.getByTestId(`scan-item-${first.id}-scanned`).waitFor({ timeout: 15_000 });
+    await page.getByTestId('release-scanner-typed-input').fill(first.tag);
+    await page.getByTestId('release-scanner-typed-submit').click();
+    await expect(page.getByTestId('release-scan-ok').textContent({ timeout: 15_000 })).resolves.toBe(`${first.tag} was already ticked off. ${kit.all.length - 1} still to scan.`);
+    const field = await page.getByTestId('release-scanner-typed-input').boundingBox();
+    const answer = await page.getByTestId('release-scan-ok').boundingBox();
+    expect(answer!.y).toBeGreaterThan(field!.y);
+    expect(answer!.y - (field!.y + field!.height)).toBeLessThan(120);
+    for (const item of kit.all.slice(1)) {
       await page.getByTestId('release-scanner-typed-input').fill(item.tag);
       await page.getByTestId('release-scanner-typed-submit').click();
       await page.getByTestId(`scan-item-${item.id}-scanned`).waitFor({ timeout: 15_000 });
