@@ -27,7 +27,7 @@ import { ItemLabelCard } from './item-label-card';
 import { ItemRatingsCard } from './item-ratings-card';
 import { ItemSummaryCard } from './item-summary-card';
 
-export function ItemScreen({ id }: { id: number }) {
+export function ItemScreen({ id, justRegistered = false }: { id: number; justRegistered?: boolean }) {
   const item = useItemQuery(id);
   const role = useCurrentUser()?.role ?? 'member';
   const { isWide } = useBreakpoints();
@@ -48,7 +48,16 @@ export function ItemScreen({ id }: { id: number }) {
       ) : item.isError ? (
         <ErrorState testID="item-error" title="The item did not load" error={item.error} onRetry={() => void item.refetch()} retrying={item.isRefetching} />
       ) : (
-        <ItemBody item={item.data} role={role} isWide={isWide} />
+        <>
+          {justRegistered ? (
+            <View accessibilityLiveRegion="polite" testID="item-registered">
+              <AppText variant="bodyStrong">
+                {`Registered ${item.data.tag}. Print its label below and stick it on the item. ${item.data.inspectionState === 'never' ? 'Record its first inspection: until then the release refuses it.' : ''}`}
+              </AppText>
+            </View>
+          ) : null}
+          <ItemBody item={item.data} role={role} isWide={isWide} />
+        </>
       )}
     </Screen>
   );
