@@ -46,9 +46,9 @@ export function GateSummary({ failures, clashesChecked, testID, actionFor }: Gat
           <View
             key={line.rule}
             testID={`${testID}-${line.rule}-${ok ? 'pass' : 'fail'}`}
-            style={[styles.line, { borderLeftColor: ok ? colors.hazard.safe.fill : colors.hazard.warning.fill, backgroundColor: colors.surface }]}
+            style={[styles.line, { borderLeftColor: ok ? colors.state.ok.edge : colors.state.late.edge, backgroundColor: ok ? colors.surface : colors.state.late.fill }]}
           >
-            <Icon name={ok ? 'check-circle' : 'close-circle'} size={iconSizes.md} color={ok ? colors.text : colors.errorText} />
+            <Icon name={ok ? 'check-circle' : 'close-circle'} size={iconSizes.md} color={ok ? colors.state.ok.edge : colors.state.late.text} />
             <View style={styles.text}>
               <AppText variant="smallStrong">{`${line.name}: ${ok ? 'pass' : 'fail'}`}</AppText>
               {ok ? (

@@ -177,13 +177,13 @@ function AvailabilityLine({ id, state, window, ownBookingId }: { id: number; sta
   if (clashes.length === 0) {
     return (
       <View testID={`availability-${id}`}>
-        <Badge label="Free over this window" icon="check-circle" testID={`availability-${id}-free`} />
+        <Badge label="Free over this window" icon="check-circle" tone="ok" testID={`availability-${id}-free`} />
       </View>
     );
   }
   return (
     <View style={styles.clashes} testID={`availability-${id}`}>
-      <Badge label="Already booked in this window" icon="clock-alert" testID={`availability-${id}-busy`} />
+      <Badge label="Already booked in this window" icon="clock-alert" tone="held" testID={`availability-${id}-busy`} />
       {clashes.map((slot) => (
         <AppText key={slot.bookingId} variant="small">
           {`${slot.personName}: ${formatWindow(slot.startsAt, slot.endsAt)} (${statusWords[slot.status as keyof typeof statusWords]?.label ?? slot.status})`}
