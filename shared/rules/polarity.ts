@@ -4,7 +4,7 @@
 // something it was not built for. Common practice, no source: a "reversible" source produces
 // either polarity; a plan marked reversible needs both from the set.
 import type { Polarity } from '../schemas/items';
-import type { Reason } from './assessment';
+import type { Reason } from '../schemas/assessment';
 
 export interface PolaritySource {
   tag: string;

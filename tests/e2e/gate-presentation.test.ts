@@ -5,7 +5,7 @@
 // says why above "Request booking", and its page offers no "Go to release".
 import path from 'node:path';
 import type { Page } from 'playwright-core';
-import { createBooking } from '../../server/services/bookings';
+import { createBooking } from '../../server/services/booking-plans';
 import { addDaysIso, todayIso } from '../../server/services/dates';
 import { insertKit, qualify } from '../helpers/gear';
 import { createPerson } from '../helpers/test-app';

@@ -2,7 +2,8 @@
 // Expected values are common practice, no source: a DC supply or multiplier stack built for one
 // polarity produces only that polarity (its rectifier diodes face one way); one sold as
 // "reversible" produces either.
-import { assessSetup, type AssessedItem } from '../../../shared/rules/assessment';
+import { assessSetup } from '../../../shared/rules/assessment';
+import type { AssessedItem } from '../../../shared/schemas/assessment';
 import { polarityProblem } from '../../../shared/rules/polarity';
 import { gearFailures, releaseFailures } from '../../../shared/rules/release';
 import type { LabRules, TestPlan } from '../../../shared/schemas/bookings';
