@@ -20,7 +20,7 @@ import { passedSinceTagOut } from './item-clearance';
 import { appendAudit, auditedTransaction } from './audit';
 import { lockBookingsHolding, replanBookingsHolding } from './booking-cascades';
 import type { MailContext } from './booking-rows';
-import { addDaysIso, dateColumnToIso, isoOfMillis, timestampToIso, todayIso } from './dates';
+import { addDaysIso, dateColumnToIso, timestampToIso } from './dates';
 import { writeItemTerms } from './item-terms';
 import { lockItem, toItemSummary, type ItemRow } from './item-rows';
 
