@@ -73,6 +73,6 @@ export function GateSummary({ failures, clashesChecked, testID, actionFor }: Gat
 
 const styles = StyleSheet.create({
   root: { gap: spacing.xs },
-  line: { flexDirection: 'row', alignItems: 'flex-start', gap: spacing.sm, paddingVertical: spacing.xxs, paddingLeft: spacing.sm, borderLeftWidth: borders.focusRing, borderRadius: radii.sm },
+  line: { flexDirection: 'row', alignItems: 'flex-start', gap: spacing.sm, paddingVertical: spacing.xxs, paddingHorizontal: spacing.sm, borderLeftWidth: borders.focusRing, borderRadius: radii.sm },
   text: { flex: 1, gap: spacing.xxs },
 });
