@@ -26,11 +26,13 @@ export const bookingGearKeys = {
 const SEARCH_LIMIT = 8;
 
 /** In-service and tagged-out gear (retired gear cannot be booked), best matches by tag order. */
-export function useGearSearchQuery(q: string) {
-  const params = new URLSearchParams({ limit: String(SEARCH_LIMIT) });
+export function useGearSearchQuery(q: string, filters: { kind?: string; minKv?: number; limit?: number } = {}) {
+  const params = new URLSearchParams({ limit: String(filters.limit ?? SEARCH_LIMIT) });
   if (q.trim() !== '') params.set('q', q.trim());
+  if (filters.kind) params.set('kind', filters.kind);
+  if (filters.minKv !== undefined && Number.isFinite(filters.minKv) && filters.minKv > 0) params.set('minKv', String(filters.minKv));
   return useQuery({
-    queryKey: bookingGearKeys.search(q.trim()),
+    queryKey: [...bookingGearKeys.search(q.trim()), params.toString()],
     queryFn: ({ signal }) => apiRequest<{ items: ItemSummary[]; nextCursor: string | null }>(`/api/items?${params.toString()}`, { signal }),
     select: (data) => data.items,
     placeholderData: keepPreviousData,

@@ -31,6 +31,7 @@ export const itemKeys = {
   detail: (id: number) => [...itemKeys.details(), id] as const,
   history: (id: number) => [...itemKeys.detail(id), 'history'] as const,
   bookings: (id: number) => [...itemKeys.detail(id), 'bookings'] as const,
+  clearance: (id: number) => [...itemKeys.detail(id), 'clearance'] as const,
   byTag: (tag: string) => [...itemKeys.all, 'by-tag', tag] as const,
 };
 
@@ -127,3 +128,12 @@ export const itemUrls = {
   labelSheetPdf: (ids: readonly number[]) => `/api/labels.pdf?items=${ids.join(',')}`,
   file: (fileId: number) => `/api/files/${fileId}`,
 };
+
+/** Whether a tagged-out item can be put back in service now (a passing inspection since the tag-out). */
+export function useItemClearanceQuery(id: number, enabled: boolean) {
+  return useQuery({
+    queryKey: itemKeys.clearance(id),
+    queryFn: ({ signal }) => apiRequest<{ clearable: boolean; reason: string | null }>(`/api/items/${id}/clearance`, { signal }),
+    enabled,
+  });
+}

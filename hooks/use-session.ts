@@ -54,3 +54,8 @@ export function useSignOutMutation() {
   });
 }
 
+
+/** The lab's clock, for the gate's times; the device's own zone until the session has loaded. */
+export function useLabTimeZone(): string {
+  return useSessionQuery().data?.labTimeZone ?? (Intl.DateTimeFormat().resolvedOptions().timeZone || 'UTC');
+}

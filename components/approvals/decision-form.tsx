@@ -1,4 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import type { z } from 'zod';
@@ -25,6 +26,9 @@ interface DecisionFormProps {
 export function DecisionForm({ bookingId, planVersion, onDecided }: DecisionFormProps) {
   const decide = useApprovalDecisionMutation(bookingId);
   const prefix = `approval-${bookingId}`;
+  // A decision binds the plan for the member at once: one more press says which it is, so a tap
+  // meant for the next card in the queue never approves or refuses this one.
+  const [confirming, setConfirming] = useState<'approve' | 'refuse' | null>(null);
   const {
     control,
     handleSubmit,
@@ -64,7 +68,7 @@ export function DecisionForm({ bookingId, planVersion, onDecided }: DecisionForm
         multiline
         testID={`${prefix}-conditions`}
       />
-      <Button label="Approve this plan" icon="check-circle" block loading={isSubmitting && decide.variables?.decision !== 'refuse'} loadingLabel="Approving" testID={`${prefix}-approve`} onPress={() => submit('approve')} />
+      <Button label="Approve this plan" icon="check-circle" block testID={`${prefix}-approve`} onPress={() => setConfirming('approve')} disabled={isSubmitting} />
       <AppText variant="small" tone="muted">
         Or refuse it, saying what would make it acceptable:
       </AppText>
@@ -75,7 +79,28 @@ export function DecisionForm({ bookingId, planVersion, onDecided }: DecisionForm
         multiline
         testID={`${prefix}-reason`}
       />
-      <Button label="Refuse" icon="close-circle" variant="danger" loading={isSubmitting && decide.variables?.decision === 'refuse'} loadingLabel="Refusing" testID={`${prefix}-refuse`} onPress={() => submit('refuse')} />
+      <Button label="Refuse" icon="close-circle" variant="danger" testID={`${prefix}-refuse`} onPress={() => setConfirming('refuse')} disabled={isSubmitting} />
+      {confirming ? (
+        <View style={styles.confirm} testID={`${prefix}-confirm`}>
+          <AppText variant="bodyStrong">
+            {confirming === 'approve'
+              ? `Approve booking ${bookingId} as planned (plan version ${planVersion})? The member can then release it at the counter.`
+              : `Refuse booking ${bookingId}? The member is told your reason and can change the plan.`}
+          </AppText>
+          <View style={styles.row}>
+            <Button
+              label={confirming === 'approve' ? 'Yes, approve' : 'Yes, refuse'}
+              icon={confirming === 'approve' ? 'check-circle' : 'close-circle'}
+              variant={confirming === 'approve' ? 'primary' : 'danger'}
+              loading={isSubmitting}
+              loadingLabel={confirming === 'approve' ? 'Approving' : 'Refusing'}
+              testID={`${prefix}-confirm-yes`}
+              onPress={() => submit(confirming)}
+            />
+            <Button label="Go back" variant="secondary" testID={`${prefix}-confirm-no`} onPress={() => setConfirming(null)} disabled={isSubmitting} />
+          </View>
+        </View>
+      ) : null}
       {errors.root?.server?.message ? <FormAlert message={errors.root.server.message} testID={`${prefix}-error`} /> : null}
     </View>
   );
@@ -83,4 +108,6 @@ export function DecisionForm({ bookingId, planVersion, onDecided }: DecisionForm
 
 const styles = StyleSheet.create({
   root: { gap: spacing.md },
+  confirm: { gap: spacing.sm },
+  row: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.sm },
 });

@@ -5,11 +5,13 @@ import { spacing } from '@/components/theme/tokens';
 import { AppText } from '@/components/ui/app-text';
 import { Card } from '@/components/ui/card';
 import type { Assessment } from '@/shared/schemas/assessment';
+import { gearFailures } from '@/shared/rules/release';
 
 import { ApprovalReasons } from './approval-reasons';
 import { BoundariesFacts } from './boundaries-facts';
 import { CompanionsList } from './companions-list';
 import { EnergyFacts } from './energy-facts';
+import { GateSummary } from './gate-summary';
 import { HazardSummary } from './hazard-summary';
 import { MultiplierFacts } from './multiplier-facts';
 import { formatKv } from './quantities';
@@ -23,10 +25,12 @@ interface AssessmentPanelProps {
   testID: string;
   /** Placed after the decisive part (hazard, approval, cautions), before the detail: a form's submit. */
   afterSummary?: ReactNode;
+  /** The pass/fail lines at the top; the booking form shows its own (with clashes) by its button instead. */
+  gateSummary?: ReactNode | false;
 }
 
 /** The whole setup assessment, most decisive first: hazard and approval, cautions, then the detail. */
-export function AssessmentPanel({ assessment, provenance, testID, afterSummary }: AssessmentPanelProps) {
+export function AssessmentPanel({ assessment, provenance, testID, afterSummary, gateSummary }: AssessmentPanelProps) {
   return (
     <View style={styles.root} testID={testID}>
       <Card title="Setup assessment">
@@ -36,6 +40,7 @@ export function AssessmentPanel({ assessment, provenance, testID, afterSummary }
         <AppText variant="bodyStrong">
           {`Planned ${formatKv(assessment.plannedKv)}; the sources can reach ${formatKv(assessment.sourcePeakKv)}.`}
         </AppText>
+        {gateSummary === undefined ? <GateSummary failures={gearFailures(assessment, [])} clashesChecked={false} testID={`${testID}-gate`} /> : gateSummary || null}
         <HazardSummary assessment={assessment} testID={`${testID}-hazard`} />
         <ApprovalReasons assessment={assessment} testID={`${testID}-approval`} />
       </Card>

@@ -45,3 +45,10 @@ export function bookingDefaults(booking: Booking): BookFormValues {
     plan: booking.plan,
   };
 }
+
+/** "Book again": the same gear, place, purpose and plan in a new window from the next quarter hour. */
+export function copiedDefaults(booking: Booking, now = new Date()): BookFormValues {
+  const hours = Math.max(1, Math.round((new Date(booking.endsAt).getTime() - new Date(booking.startsAt).getTime()) / 3600_000));
+  const start = nextQuarterHour(now);
+  return { ...bookingDefaults(booking), startsAt: start.toISOString(), endsAt: addHours(start, hours).toISOString() };
+}

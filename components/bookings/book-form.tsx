@@ -10,14 +10,17 @@ import { Card } from '@/components/ui/card';
 import { FormAlert } from '@/components/ui/form-alert';
 import { FormTextField } from '@/components/ui/form-fields';
 import { useLiveAssessment } from '@/hooks/use-assessment';
-import { useGearItems } from '@/hooks/use-booking-gear';
+import { useGearAvailability, useGearItems } from '@/hooks/use-booking-gear';
 import { useCreateBookingMutation, useUpdateBookingMutation, type Booking } from '@/hooks/use-bookings';
 import { useBreakpoints } from '@/hooks/use-breakpoints';
 import { useCurrentUser } from '@/hooks/use-session';
+import { gearFailures } from '@/shared/rules/release';
 import { bookingCreateSchema } from '@/shared/schemas/bookings';
+import { GateSummary } from '@/components/assessment/gate-summary';
 
-import { BOOK_FIELDS, bookingDefaults, newBookingDefaults, type BookFormValues } from './book-form-values';
+import { BOOK_FIELDS, bookingDefaults, copiedDefaults, newBookingDefaults, type BookFormValues } from './book-form-values';
 import { ItemPicker } from './item-picker';
+import { COMPANION_KINDS, SuitableItems } from './suitable-items';
 import { LiveAssessmentView } from './live-assessment';
 import { PlanFields } from './plan-fields';
 import { applyServerErrors } from './server-errors';
@@ -26,10 +29,14 @@ import { WindowFields } from './window-fields';
 interface BookFormProps {
   /** Present when changing a booking: the form starts from it and saves with PATCH. */
   booking?: Booking;
+  /** A new booking copied from this one (gear, place, purpose, plan), in a new window. */
+  copyOf?: Booking;
+  /** A new booking starting with these items. */
+  itemIds?: number[];
 }
 
 /** Gear, window, place, purpose and test plan, with the setup assessment worked out as they change. */
-export function BookForm({ booking }: BookFormProps) {
+export function BookForm({ booking, copyOf, itemIds: startItems }: BookFormProps) {
   const user = useCurrentUser();
   const { isWide } = useBreakpoints();
   const create = useCreateBookingMutation();
@@ -38,10 +45,11 @@ export function BookForm({ booking }: BookFormProps) {
     control,
     handleSubmit,
     setError,
+    setValue,
     formState: { errors, isSubmitting },
   } = useForm<BookFormValues>({
     resolver: zodResolver(bookingCreateSchema),
-    defaultValues: booking ? bookingDefaults(booking) : newBookingDefaults(),
+    defaultValues: booking ? bookingDefaults(booking) : copyOf ? copiedDefaults(copyOf) : { ...newBookingDefaults(), itemIds: startItems ?? [] },
   });
 
   const values = useWatch({ control });
@@ -50,6 +58,14 @@ export function BookForm({ booking }: BookFormProps) {
   const live = useLiveAssessment({ items: gear.items, itemsLoading: gear.loading, plan: values.plan, personId: user?.id });
   const window =
     values.startsAt && values.endsAt && new Date(values.endsAt) > new Date(values.startsAt) ? { from: values.startsAt, to: values.endsAt } : null;
+
+  // The same gear rules the release enforces (shared/rules/release.ts), with the window's clashes,
+  // so a set that can never be released says why before it is requested.
+  const availability = useGearAvailability(itemIds, window);
+  const clashingTags = window
+    ? itemIds.filter((id) => (availability[id]?.busy ?? []).some((slot) => slot.bookingId !== booking?.id)).map((id) => gear.items.find((i) => i.id === id)?.tag ?? `item ${id}`)
+    : [];
+  const blockers = live.state === 'ready' ? gearFailures(live.assessment, clashingTags) : [];
 
   const onSubmit = handleSubmit(async (input) => {
     try {
@@ -131,6 +147,26 @@ export function BookForm({ booking }: BookFormProps) {
 
   const submit = (
     <View style={styles.submit}>
+      {live.state === 'ready' ? (
+        <GateSummary
+          failures={blockers}
+          clashesChecked={window !== null}
+          testID="book-gate"
+          actionFor={(failure) => {
+            const kind = COMPANION_KINDS[failure.rule];
+            if (!kind) return null;
+            return (
+              <SuitableItems
+                kind={kind}
+                minKv={live.assessment.requiredKv}
+                picked={itemIds}
+                onAdd={(id) => setValue('itemIds', [...itemIds, id], { shouldValidate: true })}
+                testID={`book-suitable-${failure.rule}`}
+              />
+            );
+          }}
+        />
+      ) : null}
       {approvalLine ? (
         <AppText variant="bodyStrong" testID="book-approval-line">
           {approvalLine}

@@ -8,14 +8,30 @@ import { useBreakpoints } from '@/hooks/use-breakpoints';
 import { BackLink } from './back-link';
 import { BookForm } from './book-form';
 
-/** A new booking. */
-export function BookScreen() {
+const validId = (id: number | undefined): id is number => id !== undefined && Number.isInteger(id) && id > 0;
+
+/** A new booking: empty, with one item ("Book this"), or copied from an earlier booking ("Book again"). */
+export function BookScreen({ itemId, fromBookingId }: { itemId?: number; fromBookingId?: number }) {
   const { isWide } = useBreakpoints();
+  const from = useBookingQuery(validId(fromBookingId) ? fromBookingId : 0);
   return (
     <Screen testID="book-screen" title="Book gear" width={isWide ? 'wide' : 'regular'}>
       <BackLink href="/bookings" label="Bookings" />
       <AppText tone="muted">Pick the gear and describe the test: its safety assessment updates as you type.</AppText>
-      <BookForm />
+      {validId(fromBookingId) ? (
+        from.isPending ? (
+          <LoadingState label="Loading the booking to copy" />
+        ) : from.isError ? (
+          <ErrorState title="The booking to copy did not load" error={from.error} onRetry={() => void from.refetch()} retrying={from.isFetching} />
+        ) : (
+          <>
+            <AppText variant="bodyStrong" testID="book-again-note">{`Copied from booking ${from.data.id}: the same gear, place, purpose and plan. Choose the new window.`}</AppText>
+            <BookForm copyOf={from.data} />
+          </>
+        )
+      ) : (
+        <BookForm itemIds={validId(itemId) ? [itemId] : undefined} />
+      )}
     </Screen>
   );
 }

@@ -10,17 +10,24 @@ import { Card } from '@/components/ui/card';
 import { describeError } from '@/components/ui/error-state';
 import { FormAlert } from '@/components/ui/form-alert';
 import { HazardBadge } from '@/components/ui/hazard-badge';
-import { useCancelBookingMutation, type Booking } from '@/hooks/use-bookings';
-import { useCurrentUser } from '@/hooks/use-session';
+import { ReleaseFailures } from '@/components/release/release-failures';
+import { useCancelBookingMutation, useReleaseCheckQuery, type Booking } from '@/hooks/use-bookings';
+import { useCurrentUser, useLabTimeZone } from '@/hooks/use-session';
+import { GEAR_RULES } from '@/shared/rules/release';
 import { OPEN_STATUSES, PRE_RELEASE_STATUSES } from '@/shared/schemas/bookings';
+import { zonedTimeWords } from '@/shared/zoned-time';
 
+/** Failures no one at the counter can clear: the booking's gear or window must change first. */
+const STANDING_RULES: readonly string[] = [...GEAR_RULES, 'booker'];
 
 interface Step {
   /** What happens next, in a sentence. */
   say: string;
   /** The one primary action, when the next step is the viewer's. */
-  action?: { label: string; icon: 'lock-open-variant' | 'keyboard-return' | 'pencil' | 'clipboard-check'; href: Href; testID: string };
+  action?: { label: string; icon: 'lock-open-variant' | 'keyboard-return' | 'pencil' | 'clipboard-check' | 'calendar-plus'; href: Href; testID: string };
 }
+
+const bookAgain = (id: string): Step['action'] => ({ label: 'Book again', icon: 'calendar-plus', href: { pathname: '/bookings/new', params: { from: id } }, testID: 'booking-book-again' });
 
 function nextStep(booking: Booking, viewer: { id: number; role: string } | null): Step {
   const own = viewer?.id === booking.personId;
@@ -56,22 +63,35 @@ function nextStep(booking: Booking, viewer: { id: number; role: string } | null)
         action: { label: 'Return and make safe', icon: 'keyboard-return', href: { pathname: '/bookings/[id]/return', params: { id } }, testID: 'booking-go-return' },
       };
     case 'returned':
-      return { say: `Returned${booking.returnedAt ? ` ${formatDateTime(booking.returnedAt)}` : ''}. Nothing more to do.` };
+      return { say: `Returned${booking.returnedAt ? ` ${formatDateTime(booking.returnedAt)}` : ''}. Nothing more to do.`, action: own ? bookAgain(id) : undefined };
     case 'cancelled':
-      return { say: `Cancelled${booking.cancelledAt ? ` ${formatDateTime(booking.cancelledAt)}` : ''}. The gear is free for others.` };
+      return { say: `Cancelled${booking.cancelledAt ? ` ${formatDateTime(booking.cancelledAt)}` : ''}. The gear is free for others.`, action: own ? bookAgain(id) : undefined };
   }
 }
+
+const own = (booking: Booking, viewer: { id: number } | null) => viewer?.id === booking.personId;
 
 /** The next step as the screen's one primary action, with the lesser ones (change, cancel) below. */
 export function BookingNextStep({ booking }: { booking: Booking }) {
   const user = useCurrentUser();
   const cancel = useCancelBookingMutation(booking.id);
   const [confirming, setConfirming] = useState(false);
-  const step = nextStep(booking, user);
-  const own = user?.id === booking.personId;
+  const zone = useLabTimeZone();
+  const check = useReleaseCheckQuery(booking.id, PRE_RELEASE_STATUSES.includes(booking.status));
+  const standing = (check.data?.failures ?? []).filter((f) => STANDING_RULES.includes(f.rule));
+  const opensAt = check.data && new Date(check.data.opensAt).getTime() > Date.now() ? check.data.opensAt : null;
+  const counter = nextStep(booking, user);
+  // Never "Go to release" for a booking the gate will refuse whatever is done at the counter.
+  const step: Step =
+    PRE_RELEASE_STATUSES.includes(booking.status) && standing.length > 0
+      ? { say: own(booking, user) ? 'This booking cannot be released as it stands. Change the gear, window or plan as listed below.' : 'This booking cannot be released as it stands; the person who booked must change it.' }
+      : opensAt && counter.action?.testID === 'booking-go-release'
+        ? { ...counter, say: `${counter.say} The counter opens it at ${zonedTimeWords(opensAt, zone)}.` }
+        : counter;
+  const mine = own(booking, user);
   const staff = user?.role === 'officer' || user?.role === 'manager';
-  const canChange = own && PRE_RELEASE_STATUSES.includes(booking.status);
-  const canCancel = (own || staff) && OPEN_STATUSES.includes(booking.status);
+  const canChange = mine && PRE_RELEASE_STATUSES.includes(booking.status);
+  const canCancel = (mine || staff) && OPEN_STATUSES.includes(booking.status);
 
   return (
     <Card title="Next step" testID="booking-next-step">
@@ -79,6 +99,9 @@ export function BookingNextStep({ booking }: { booking: Booking }) {
       <AppText variant="bodyStrong" testID="booking-next-step-text">
         {step.say}
       </AppText>
+      {standing.length > 0 && PRE_RELEASE_STATUSES.includes(booking.status) ? (
+        <ReleaseFailures testID="booking-blocked" title={`The release will refuse it: ${standing.length} rule${standing.length === 1 ? '' : 's'} the gear fails.`} failures={standing} />
+      ) : null}
       {step.action ? (
         <Button label={step.action.label} icon={step.action.icon} block testID={step.action.testID} onPress={() => router.push(step.action!.href)} />
       ) : null}

@@ -6,11 +6,13 @@ import { HazardBadge } from '@/components/ui/hazard-badge';
 import type { IconName } from '@/components/ui/icon';
 import type { BookingStatus } from '@/shared/schemas/bookings';
 
-export const statusWords: Record<BookingStatus, { label: string; icon: IconName; tone: 'neutral' | 'primary' | 'muted' }> = {
+// Colour carries the states that decide what happens next (approved against awaiting or refused),
+// always beside the word and the icon.
+export const statusWords: Record<BookingStatus, { label: string; icon: IconName; tone: 'neutral' | 'primary' | 'muted' | 'ok' | 'held' | 'late' }> = {
   requested: { label: 'Booked', icon: 'clock-outline', tone: 'neutral' },
-  'awaiting-approval': { label: 'Awaiting approval', icon: 'timer-sand', tone: 'primary' },
-  approved: { label: 'Approved', icon: 'check-circle', tone: 'primary' },
-  refused: { label: 'Refused', icon: 'close-circle', tone: 'neutral' },
+  'awaiting-approval': { label: 'Awaiting approval', icon: 'timer-sand', tone: 'held' },
+  approved: { label: 'Approved', icon: 'check-circle', tone: 'ok' },
+  refused: { label: 'Refused', icon: 'close-circle', tone: 'late' },
   released: { label: 'Released', icon: 'lock-open-variant', tone: 'primary' },
   returned: { label: 'Returned', icon: 'package-variant-closed', tone: 'muted' },
   cancelled: { label: 'Cancelled', icon: 'cancel', tone: 'muted' },

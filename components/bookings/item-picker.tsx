@@ -13,7 +13,8 @@ import { TextField } from '@/components/ui/text-field';
 import { useDebouncedValue } from '@/hooks/use-assessment';
 import { useGearAvailability, useGearSearchQuery, type Availability } from '@/hooks/use-booking-gear';
 import type { Item, ItemSummary } from '@/shared/schemas/items';
-import { KIND_LABELS } from '@/shared/schemas/items';
+import { ITEM_KINDS, KIND_LABELS, type ItemKind } from '@/shared/schemas/items';
+import { ChoiceChips } from '@/components/ui/choice-chips';
 
 import { statusWords } from './booking-status';
 import { formatWindow } from './booking-time';
@@ -41,7 +42,10 @@ function summaryLine(item: ItemSummary): string {
 export function ItemPicker({ value, onChange, picked, window, ownBookingId, error }: ItemPickerProps) {
   const { colors } = useTheme();
   const [query, setQuery] = useState('');
-  const search = useGearSearchQuery(useDebouncedValue(query, 250));
+  const [kind, setKind] = useState<ItemKind | 'any'>('any');
+  const [minKvText, setMinKvText] = useState('');
+  const minKv = Number(minKvText.replace(',', '.'));
+  const search = useGearSearchQuery(useDebouncedValue(query, 250), { kind: kind === 'any' ? undefined : kind, minKv: minKvText.trim() === '' || !Number.isFinite(minKv) ? undefined : minKv });
   const availability = useGearAvailability(value, window);
 
   return (
@@ -90,6 +94,21 @@ export function ItemPicker({ value, onChange, picked, window, ownBookingId, erro
         autoCorrect={false}
         inputMode="search"
       />
+      <ChoiceChips
+        label="Kind"
+        testID="item-search-kind"
+        choices={[{ value: 'any', label: 'Any kind' }, ...ITEM_KINDS.map((k) => ({ value: k, label: KIND_LABELS[k] }))]}
+        value={kind}
+        onChange={setKind}
+      />
+      <TextField
+        label="Rated for at least (kV)"
+        hint="Leave empty for any rating"
+        value={minKvText}
+        onChangeText={setMinKvText}
+        inputMode="decimal"
+        testID="item-search-min-kv"
+      />
       <View style={[styles.results, { borderColor: colors.border, backgroundColor: colors.surface }]} testID="item-search-results">
         {search.isPending ? (
           <LoadingState label="Searching the gear" />
@@ -99,7 +118,7 @@ export function ItemPicker({ value, onChange, picked, window, ownBookingId, erro
           </AppText>
         ) : search.data.length === 0 ? (
           <AppText tone="muted" style={styles.pad}>
-            No gear matches. Try a tag such as SUP-0001, or a word of the name.
+            {kind !== 'any' || minKvText.trim() !== '' ? 'No gear matches these filters. Try another kind or a lower rating.' : 'No gear matches. Try a tag such as SUP-0001, or a word of the name.'}
           </AppText>
         ) : (
           search.data.map((item, index) => {
@@ -158,13 +177,13 @@ function AvailabilityLine({ id, state, window, ownBookingId }: { id: number; sta
   if (clashes.length === 0) {
     return (
       <View testID={`availability-${id}`}>
-        <Badge label="Free over this window" icon="check-circle" testID={`availability-${id}-free`} />
+        <Badge label="Free over this window" icon="check-circle" tone="ok" testID={`availability-${id}-free`} />
       </View>
     );
   }
   return (
     <View style={styles.clashes} testID={`availability-${id}`}>
-      <Badge label="Already booked in this window" icon="clock-alert" testID={`availability-${id}-busy`} />
+      <Badge label="Already booked in this window" icon="clock-alert" tone="held" testID={`availability-${id}-busy`} />
       {clashes.map((slot) => (
         <AppText key={slot.bookingId} variant="small">
           {`${slot.personName}: ${formatWindow(slot.startsAt, slot.endsAt)} (${statusWords[slot.status as keyof typeof statusWords]?.label ?? slot.status})`}

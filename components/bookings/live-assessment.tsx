@@ -13,6 +13,7 @@ import type { LiveAssessment } from '@/hooks/use-assessment';
 
 /** The live preview as the member types; the server's stored assessment follows on the booking. */
 export function LiveAssessmentView({ live, afterSummary }: { live: LiveAssessment; afterSummary?: ReactNode }) {
+  // The form shows the gear's pass/fail lines (clashes included) right above its button.
   if (live.state === 'ready') {
     return (
       <View style={styles.root} testID="live-assessment">
@@ -20,6 +21,7 @@ export function LiveAssessmentView({ live, afterSummary }: { live: LiveAssessmen
           assessment={live.assessment}
           testID="live-assessment-panel"
           afterSummary={afterSummary}
+          gateSummary={false}
           provenance={
             live.stale
               ? 'Updating as you type…'

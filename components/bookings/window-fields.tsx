@@ -3,13 +3,16 @@ import { StyleSheet, View } from 'react-native';
 
 import { spacing } from '@/components/theme/tokens';
 import { ChoiceChips } from '@/components/ui/choice-chips';
+import { PlatformDateTime } from '@/components/ui/platform-date-time';
 import { TextField } from '@/components/ui/text-field';
+import { useLabTimeZone } from '@/hooks/use-session';
 
-import { deviceTimeZone, formatUtcOffset, resolveLocalText, wallTextOf, type LocalTimeResolution } from '@/shared/local-time';
+import { formatUtcOffset, offsetMinutesAt, resolveLocalText, wallTextOf, type LocalTimeResolution } from '@/shared/local-time';
 
 import { addHours } from './booking-time';
 
-const FORMAT_HINT = 'Local time, written YYYY-MM-DD HH:MM';
+/** Times are the lab's wall clock, named, whatever zone the device at the counter is set to. */
+const formatHint = (zone: string) => `Lab time (${zone}, now ${formatUtcOffset(offsetMinutesAt(new Date(), zone))}), written YYYY-MM-DD HH:MM`;
 const LENGTHS = [1, 2, 4, 8] as const;
 
 /** The shared schema speaks of ISO times; at the counter the fields take local date and time. */
@@ -43,7 +46,7 @@ interface TimeFieldProps {
 }
 
 function TimeField({ label, value, onChange, onBlur, error, testID }: TimeFieldProps) {
-  const zone = deviceTimeZone();
+  const zone = useLabTimeZone();
   const [text, setText] = useState(value ? wallTextOf(new Date(value), zone) : '');
   const resolution = resolveLocalText(text, zone);
   const candidates = resolution.kind === 'ambiguous' ? [resolution.earlier, resolution.later] : resolution.kind === 'exact' ? [resolution.candidate] : [];
@@ -54,24 +57,26 @@ function TimeField({ label, value, onChange, onBlur, error, testID }: TimeFieldP
     setText(wallTextOf(new Date(next), zone));
   });
   useEffect(() => followValue(value), [value]);
+  const typed = (next: string) => {
+    setText(next);
+    onChange(instantOf(resolveLocalText(next, zone)));
+  };
   const chosen = resolution.kind === 'ambiguous' ? (['earlier', 'later'] as const).find((which) => resolution[which].instant.toISOString() === value) : undefined;
   return (
     <View style={styles.field}>
       <TextField
         label={label}
         value={text}
-        onChangeText={(next) => {
-          setText(next);
-          onChange(instantOf(resolveLocalText(next, zone)));
-        }}
+        onChangeText={typed}
         onBlur={onBlur}
         error={clockChangeError(text, resolution, chosen !== undefined) ?? friendly(error)}
-        hint={FORMAT_HINT}
+        hint={formatHint(zone)}
         testID={testID}
         autoCorrect={false}
         autoCapitalize="none"
         inputMode="text"
       />
+      <PlatformDateTime text={text} onText={typed} label={label} testID={testID} />
       {resolution.kind === 'ambiguous' ? (
         <ChoiceChips
           label={`Which ${text.trim()}?`}

@@ -3,7 +3,7 @@
 // item from being released is drawn in the error ink with a heavier edge instead.
 import { StyleSheet, View } from 'react-native';
 
-import { borders, iconSizes, radii, spacing } from '@/components/theme/tokens';
+import { borders, iconSizes, shapes, spacing } from '@/components/theme/tokens';
 import { useTheme } from '@/components/theme/use-theme';
 import { AppText } from '@/components/ui/app-text';
 import { Icon, type IconName } from '@/components/ui/icon';
@@ -65,6 +65,6 @@ const styles = StyleSheet.create({
     gap: spacing.xxs,
     paddingHorizontal: spacing.sm,
     paddingVertical: spacing.xxs,
-    borderRadius: radii.pill,
+    borderRadius: shapes.chipRadius,
   },
 });

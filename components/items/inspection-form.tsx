@@ -4,7 +4,7 @@ import { Controller, useFieldArray, useForm, useWatch } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import type { z } from 'zod';
 
-import { borders, radii, spacing } from '@/components/theme/tokens';
+import { borders, radii, shapes, spacing } from '@/components/theme/tokens';
 import { useTheme } from '@/components/theme/use-theme';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
@@ -227,7 +227,7 @@ function ReadingValue({ control, index }: { control: ReturnType<typeof useForm<I
 }
 
 const styles = StyleSheet.create({
-  panel: { gap: spacing.md, padding: spacing.md, borderWidth: borders.control, borderRadius: radii.lg },
+  panel: { gap: spacing.md, padding: spacing.md, borderWidth: borders.control, borderRadius: shapes.cardRadius },
   warning: { padding: spacing.sm, borderWidth: borders.control, borderLeftWidth: spacing.xs, borderRadius: radii.md },
   readings: { gap: spacing.sm },
   reading: { gap: spacing.sm, padding: spacing.sm, borderWidth: borders.hairline, borderRadius: radii.md },

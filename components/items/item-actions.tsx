@@ -5,6 +5,7 @@ import { StyleSheet, View } from 'react-native';
 import { spacing } from '@/components/theme/tokens';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
+import { useItemClearanceQuery } from '@/hooks/use-items';
 import type { Item } from '@/shared/schemas/items';
 import type { Role } from '@/shared/schemas/session';
 
@@ -28,6 +29,7 @@ export function ItemActions({ item, role }: ItemActionsProps) {
   const [done, setDone] = useState<string | null>(null);
   const isManager = role === 'manager';
   const isStaff = isManager || role === 'officer';
+  const clearance = useItemClearanceQuery(item.id, isManager && item.status === 'out-of-service');
   if (!isStaff || item.status === 'retired') return null;
 
   const finish = (message: string) => {
@@ -64,7 +66,15 @@ export function ItemActions({ item, role }: ItemActionsProps) {
               testID="item-edit"
             />
             {item.status === 'out-of-service' ? (
-              <Button label="Put back in service" icon="check-circle" variant="secondary" onPress={() => open('clear')} testID="item-clear" />
+              // The server clears a tag only after a passing inspection since the tag-out; until
+              // one is recorded, offer the inspection instead of a button it would refuse.
+              clearance.data?.clearable ? (
+                <Button label="Put back in service" icon="check-circle" variant="secondary" onPress={() => open('clear')} testID="item-clear" />
+              ) : (
+                <AppText variant="small" tone="muted" testID="item-clear-needs-inspection">
+                  {clearance.data?.reason ?? 'Checking whether it can be put back in service…'}
+                </AppText>
+              )
             ) : (
               <Button label="Tag out" icon="tag-off" variant="secondary" onPress={() => open('tag-out')} testID="item-tag-out" />
             )}

@@ -126,7 +126,7 @@ export function ItemForm({ item }: ItemFormProps) {
 
   const submit = handleSubmit((body) => {
     setFormError(null);
-    const open = (id: number) => router.replace({ pathname: '/gear/[id]', params: { id: String(id) } });
+    const open = (id: number, registered = false) => router.replace({ pathname: '/gear/[id]', params: registered ? { id: String(id), registered: '1' } : { id: String(id) } });
     if (editing) {
       const { name, make, model, serial, location, notes, inspectionIntervalDays, ratings } = body;
       update.mutate(
@@ -134,7 +134,7 @@ export function ItemForm({ item }: ItemFormProps) {
         { onSuccess: ({ item: saved }) => open(saved.id), onError: showServerErrors },
       );
     } else {
-      create.mutate(body, { onSuccess: ({ item: saved }) => open(saved.id), onError: showServerErrors });
+      create.mutate(body, { onSuccess: ({ item: saved }) => open(saved.id, true), onError: showServerErrors });
     }
   });
 

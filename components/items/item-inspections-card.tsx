@@ -6,6 +6,7 @@ import { useTheme } from '@/components/theme/use-theme';
 import { AppText } from '@/components/ui/app-text';
 import { Card } from '@/components/ui/card';
 import { ErrorState } from '@/components/ui/error-state';
+import { HazardBadge } from '@/components/ui/hazard-badge';
 import { Icon } from '@/components/ui/icon';
 import { LoadingState } from '@/components/ui/loading-state';
 import { useInspectionsQuery } from '@/hooks/use-inspections';
@@ -17,12 +18,18 @@ import { formatNumber } from './rating-fields';
 export function ItemInspectionsCard({ item }: { item: Item }) {
   const { colors } = useTheme();
   const inspections = useInspectionsQuery(item.id);
+  const failed = item.lastInspectionResult === 'fail';
   return (
     <Card title="Inspections" testID="item-inspections">
-      <InspectionBadge state={item.inspectionState} />
+      {failed ? (
+        // A failed inspection is no inspection to count on: the item waits for one that passes.
+        <HazardBadge level="warning" detail={`Failed its last inspection${item.lastInspectedOn ? ` on ${formatDay(item.lastInspectedOn)}` : ''}`} testID="item-inspection-failed" />
+      ) : (
+        <InspectionBadge state={item.inspectionState} />
+      )}
       <View style={styles.facts}>
         <AppText testID="item-next-due">
-          {item.nextInspectionDue ? `Next due ${formatDay(item.nextInspectionDue)}` : 'No inspection on record: due now'}
+          {failed ? 'Needs an inspection that passes before it can be used again.' : item.nextInspectionDue ? `Next due ${formatDay(item.nextInspectionDue)}` : 'No inspection on record: due now'}
         </AppText>
         <AppText variant="small" tone="muted" testID="item-next-due-source">
           {item.lastInspectedOn
@@ -68,7 +75,7 @@ function InspectionRow({ inspection }: { inspection: Inspection }) {
         </AppText>
       </View>
       <AppText variant="small" tone="muted">
-        {`By ${inspection.inspectorName} · next due ${formatDay(inspection.nextDue)}`}
+        {passed ? `By ${inspection.inspectorName} · next due ${formatDay(inspection.nextDue)}` : `By ${inspection.inspectorName} · tagged out until an inspection passes`}
       </AppText>
       {inspection.readings.map((reading, index) => (
         <AppText key={index} variant="small">

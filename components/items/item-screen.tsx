@@ -1,8 +1,10 @@
+import { router } from 'expo-router';
 import type { ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { spacing } from '@/components/theme/tokens';
 import { AppText } from '@/components/ui/app-text';
+import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
@@ -25,7 +27,7 @@ import { ItemLabelCard } from './item-label-card';
 import { ItemRatingsCard } from './item-ratings-card';
 import { ItemSummaryCard } from './item-summary-card';
 
-export function ItemScreen({ id }: { id: number }) {
+export function ItemScreen({ id, justRegistered = false }: { id: number; justRegistered?: boolean }) {
   const item = useItemQuery(id);
   const role = useCurrentUser()?.role ?? 'member';
   const { isWide } = useBreakpoints();
@@ -46,7 +48,16 @@ export function ItemScreen({ id }: { id: number }) {
       ) : item.isError ? (
         <ErrorState testID="item-error" title="The item did not load" error={item.error} onRetry={() => void item.refetch()} retrying={item.isRefetching} />
       ) : (
-        <ItemBody item={item.data} role={role} isWide={isWide} />
+        <>
+          {justRegistered ? (
+            <View accessibilityLiveRegion="polite" testID="item-registered">
+              <AppText variant="bodyStrong">
+                {`Registered ${item.data.tag}. Print its label below and stick it on the item. ${item.data.inspectionState === 'never' ? 'Record its first inspection: until then the release refuses it.' : ''}`}
+              </AppText>
+            </View>
+          ) : null}
+          <ItemBody item={item.data} role={role} isWide={isWide} />
+        </>
       )}
     </Screen>
   );
@@ -58,6 +69,16 @@ function ItemBody({ item, role, isWide }: { item: Item; role: Role; isWide: bool
   const first = (
     <>
       <ItemSummaryCard item={item} />
+      {item.status === 'in-service' ? (
+        <View style={styles.book}>
+          <Button
+            label="Book this"
+            icon="calendar-plus"
+            testID="item-book-this"
+            onPress={() => router.push({ pathname: '/bookings/new', params: { itemId: String(item.id) } })}
+          />
+        </View>
+      ) : null}
       <ItemActions item={item} role={role} />
       <ItemPhoto item={item} />
       <ItemRatingsCard item={item} />
@@ -95,4 +116,5 @@ function Column({ children }: { children: ReactNode }) {
 const styles = StyleSheet.create({
   columns: { flexDirection: 'row', alignItems: 'flex-start', gap: spacing.lg },
   column: { flex: 1, gap: spacing.lg, minWidth: 0 },
+  book: { alignItems: 'flex-start' },
 });

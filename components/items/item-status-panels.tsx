@@ -6,7 +6,7 @@ import { useForm } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import type { z } from 'zod';
 
-import { borders, radii, spacing } from '@/components/theme/tokens';
+import { borders, shapes, spacing } from '@/components/theme/tokens';
 import { useTheme } from '@/components/theme/use-theme';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
@@ -126,6 +126,6 @@ export function ClearPanel({ item, onDone, onCancel }: PanelProps) {
 }
 
 const styles = StyleSheet.create({
-  panel: { gap: spacing.md, padding: spacing.md, borderWidth: borders.control, borderRadius: radii.lg },
+  panel: { gap: spacing.md, padding: spacing.md, borderWidth: borders.control, borderRadius: shapes.cardRadius },
   buttons: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.xs },
 });

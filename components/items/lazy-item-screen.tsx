@@ -7,7 +7,7 @@ import { Screen } from '@/components/ui/screen';
 // own chunk so the first download (sign-in, Today) stays within the web budget.
 const ItemScreen = lazy(() => import('./item-screen').then((module) => ({ default: module.ItemScreen })));
 
-export function LazyItemScreen({ id }: { id: number }) {
+export function LazyItemScreen({ id, justRegistered }: { id: number; justRegistered?: boolean }) {
   return (
     <Suspense
       fallback={
@@ -16,7 +16,7 @@ export function LazyItemScreen({ id }: { id: number }) {
         </Screen>
       }
     >
-      <ItemScreen id={id} />
+      <ItemScreen id={id} justRegistered={justRegistered} />
     </Suspense>
   );
 }

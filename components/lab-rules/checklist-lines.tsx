@@ -1,3 +1,4 @@
+import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { trimNumber } from '@/components/assessment/quantities';
@@ -29,6 +30,8 @@ export function ChecklistLines() {
   const { colors } = useTheme();
   const templates = useChecklistTemplatesQuery();
   const retire = useRetireChecklistTemplateMutation();
+  // Retiring a line changes every release from now on: the press asks once more, naming the line.
+  const [confirming, setConfirming] = useState<number | null>(null);
   return (
     <Card title="Checklist lines" testID="checklist-lines">
       {templates.isPending ? (
@@ -49,14 +52,24 @@ export function ChecklistLines() {
                   <AppText variant="small" tone="muted">
                     {conditions(line)}
                   </AppText>
-                  <Button
-                    label="Retire this line"
-                    variant="secondary"
-                    icon="close"
-                    onPress={() => retire.mutate(line.id)}
-                    loading={retire.isPending && retire.variables === line.id}
-                    testID={`checklist-line-retire-${line.id}`}
-                  />
+                  <Button label="Retire this line" variant="secondary" icon="close" onPress={() => setConfirming(line.id)} testID={`checklist-line-retire-${line.id}`} />
+                  {confirming === line.id ? (
+                    <View style={styles.confirm} testID={`checklist-line-retire-${line.id}-confirm`}>
+                      <AppText variant="bodyStrong">{`Retire “${line.text}”? Checklists answered from now on no longer ask it.`}</AppText>
+                      <View style={styles.row}>
+                        <Button
+                          label="Yes, retire it"
+                          variant="danger"
+                          icon="close"
+                          loading={retire.isPending && retire.variables === line.id}
+                          loadingLabel="Retiring"
+                          testID={`checklist-line-retire-${line.id}-yes`}
+                          onPress={() => retire.mutate(line.id, { onSuccess: () => setConfirming(null) })}
+                        />
+                        <Button label="Keep it" variant="secondary" testID={`checklist-line-retire-${line.id}-no`} onPress={() => setConfirming(null)} />
+                      </View>
+                    </View>
+                  ) : null}
                 </View>
               ))}
           </View>
@@ -71,4 +84,6 @@ export function ChecklistLines() {
 const styles = StyleSheet.create({
   phase: { gap: spacing.xs },
   line: { gap: spacing.xxs, paddingVertical: spacing.xs },
+  confirm: { gap: spacing.xs },
+  row: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.sm },
 });

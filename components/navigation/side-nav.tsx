@@ -3,7 +3,7 @@ import { Pressable, ScrollView, StyleSheet, View } from 'react-native';
 import { SafeAreaView } from 'react-native-safe-area-context';
 
 import { roleLabels } from '@/components/common/roles';
-import { borders, layout, radii, spacing } from '@/components/theme/tokens';
+import { borders, layout, shapes, spacing } from '@/components/theme/tokens';
 import { useTheme } from '@/components/theme/use-theme';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
@@ -82,15 +82,16 @@ function SideNavItem({ entry, detail }: { entry: NavEntry; detail?: string }) {
         {...webA11y({ current: active ? 'page' : undefined })}
         // Link's asChild Slot takes one flat style object: no arrays (it throws in development)
         // and no style callbacks (dropped).
-        style={StyleSheet.flatten([styles.item, active && { backgroundColor: colors.primarySoft, borderColor: colors.primary }])}
+        // The current place: a rail down the item's left edge (tokens.ts `shapes`), on a neutral fill.
+        style={StyleSheet.flatten([styles.item, active && { backgroundColor: colors.surfaceMuted, borderLeftColor: colors.rail }])}
       >
-        <Icon name={entry.icon} color={active ? colors.onPrimarySoft : colors.textMuted} />
+        <Icon name={entry.icon} color={active ? colors.text : colors.textMuted} />
         <View style={styles.itemText}>
-          <AppText variant={active ? 'bodyStrong' : 'body'} color={active ? colors.onPrimarySoft : colors.text} numberOfLines={1}>
+          <AppText variant={active ? 'bodyStrong' : 'body'} color={colors.text} numberOfLines={1}>
             {entry.label}
           </AppText>
           {detail ? (
-            <AppText variant="small" color={active ? colors.onPrimarySoft : colors.textMuted} numberOfLines={1}>
+            <AppText variant="small" color={colors.textMuted} numberOfLines={1}>
               {detail}
             </AppText>
           ) : null}
@@ -113,9 +114,9 @@ const styles = StyleSheet.create({
     minHeight: layout.minTouchTarget,
     paddingHorizontal: spacing.sm,
     paddingVertical: spacing.xxs,
-    borderRadius: radii.md,
-    borderWidth: borders.control,
-    borderColor: 'transparent',
+    borderRadius: shapes.chipRadius,
+    borderLeftWidth: shapes.railThickness,
+    borderLeftColor: 'transparent',
   },
   itemText: { flex: 1 },
   footer: { padding: spacing.md, gap: spacing.xs, borderTopWidth: borders.hairline },

@@ -2,7 +2,7 @@ import { Link, usePathname } from 'expo-router';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { useSafeAreaInsets } from 'react-native-safe-area-context';
 
-import { borders, layout, radii, spacing } from '@/components/theme/tokens';
+import { borders, layout, shapes, spacing } from '@/components/theme/tokens';
 import { useTheme } from '@/components/theme/use-theme';
 import { AppText } from '@/components/ui/app-text';
 import { Icon } from '@/components/ui/icon';
@@ -36,9 +36,9 @@ export function TabBar() {
               {...webA11y({ current: active ? 'page' : undefined })}
               style={styles.item}
             >
-              <View style={[styles.iconPill, active && { backgroundColor: colors.primarySoft }]}>
-                <Icon name={entry.icon} color={active ? colors.onPrimarySoft : colors.textMuted} />
-              </View>
+              {/* Voltcrib's indicator: a rail along the top edge of the current tab (tokens.ts `shapes`). */}
+              <View style={[styles.rail, active && { backgroundColor: colors.rail }]} />
+              <Icon name={entry.icon} color={active ? colors.text : colors.textMuted} />
               <AppText variant={active ? 'smallStrong' : 'small'} color={active ? colors.text : colors.textMuted}>
                 {entry.label}
               </AppText>
@@ -60,9 +60,5 @@ const styles = StyleSheet.create({
     gap: spacing.xxs,
     paddingVertical: spacing.xs,
   },
-  iconPill: {
-    paddingHorizontal: spacing.md,
-    paddingVertical: spacing.xxs,
-    borderRadius: radii.pill,
-  },
+  rail: { position: 'absolute', top: 0, left: spacing.xs, right: spacing.xs, height: shapes.railThickness, borderBottomLeftRadius: shapes.chipRadius, borderBottomRightRadius: shapes.chipRadius },
 });

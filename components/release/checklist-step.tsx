@@ -25,13 +25,30 @@ export function ChecklistStep({ booking, state }: { booking: Booking; state: Ste
     <StepCard number={2} title="Pre-energize checklist" state={state} testID="release-step-checklist">
       {run && !answering ? (
         <View style={styles.done} testID="release-checklist-done">
-          {run.withinLimits ? (
+          {run.withinLimits && run.complete ? (
             <Badge label="Recorded, readings within limits" icon="check-circle" tone="primary" />
           ) : (
-            <HazardBadge level="warning" detail="A reading is outside its limits" testID="release-checklist-outside" />
+            <View style={styles.done} testID="release-checklist-outside">
+              <HazardBadge
+                level="warning"
+                detail={run.withinLimits ? 'The recorded checklist does not count: answer it again' : 'A reading is outside its limits: answer the checklist again'}
+              />
+              {/* Each line that stops the run, with its reading and limits (shared/rules/checklist-coverage.ts). */}
+              {run.gaps.map((gap, index) => (
+                <AppText key={index} variant="bodyStrong" testID={`release-checklist-gap-${index}`}>
+                  {gap}
+                </AppText>
+              ))}
+            </View>
           )}
           <AppText variant="small" tone="muted">{`Recorded ${formatDateTime(run.completedAt)}`}</AppText>
-          <Button label="Answer again" icon="refresh" variant="secondary" testID="release-checklist-again" onPress={() => setAnswering(true)} />
+          <Button
+            label="Answer again"
+            icon="refresh"
+            variant={run.withinLimits && run.complete ? 'secondary' : 'primary'}
+            testID="release-checklist-again"
+            onPress={() => setAnswering(true)}
+          />
         </View>
       ) : (
         <ChecklistForm booking={booking} primary={state === 'current'} onDone={() => setAnswering(false)} />

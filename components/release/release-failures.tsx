@@ -48,6 +48,7 @@ const ruleNames: Record<string, string> = {
   'grounding-stick': 'Grounding stick',
   'isolation-stand': 'Isolation stand',
   interlock: 'Interlock',
+  polarity: 'Polarity',
   checklist: 'Pre-energize checklist',
   qualification: 'Qualification',
   'make-safe-checklist': 'Make-safe checklist',

@@ -11,14 +11,15 @@ import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Screen } from '@/components/ui/screen';
-import { useBookingQuery, type Booking } from '@/hooks/use-bookings';
+import { useBookingQuery, useReleaseCheckQuery, type Booking } from '@/hooks/use-bookings';
 import { PRE_RELEASE_STATUSES } from '@/shared/schemas/bookings';
 
 import { ChecklistStep } from './checklist-step';
+import { ReleaseLocked } from './release-locked';
 import { ReleasedState } from './released-state';
 import { ReleaseStep } from './release-step';
 import { ScanStep } from './scan-step';
-import type { StepState } from './step-card';
+import { StepCard, type StepState } from './step-card';
 
 
 /** Release at the counter, phone first: scan, checklist, release; the next step stays on top. */
@@ -39,6 +40,7 @@ export function ReleaseScreen({ id }: { id: number }) {
 }
 
 function ReleaseBody({ booking }: { booking: Booking }) {
+  const check = useReleaseCheckQuery(booking.id, PRE_RELEASE_STATUSES.includes(booking.status));
   const header = (
     <View style={styles.header}>
       <BookingStatusBadge status={booking.status} overdue={booking.overdue} testID="release-status" />
@@ -69,8 +71,25 @@ function ReleaseBody({ booking }: { booking: Booking }) {
     );
   }
 
+  // Until the window opens (the server's opensAt, checked again every half minute) every step waits.
+  const opensAt = check.data?.opensAt;
+  if (opensAt && new Date(opensAt).getTime() > Date.now()) {
+    const earlyMinutes = Math.round((new Date(booking.startsAt).getTime() - new Date(opensAt).getTime()) / 60_000);
+    return (
+      <>
+        {header}
+        <StepCard number={1} title="Scan, check and release" state="later" testID="release-step-locked">
+          <ReleaseLocked opensAt={opensAt} earlyMinutes={earlyMinutes} />
+        </StepCard>
+        <SafetyCaution cautions={booking.assessment.cautions} testID="release-caution" />
+      </>
+    );
+  }
+
   const allScanned = booking.items.every((item) => booking.scannedItemIds.includes(item.id));
-  const checklistDone = booking.checklistRuns.pre !== null;
+  const run = booking.checklistRuns.pre;
+  // A run with a reading outside its limits is recorded but not done: step 2 stays the current one.
+  const checklistDone = run !== null && run.withinLimits && run.complete;
   const scanState: StepState = allScanned ? 'done' : 'current';
   const checklistState: StepState = checklistDone ? 'done' : allScanned ? 'current' : 'later';
   const releaseState: StepState = allScanned && checklistDone ? 'current' : 'later';

@@ -1,3 +1,4 @@
+import { useEffect } from 'react';
 import { View } from 'react-native';
 
 import { formatWindow } from '@/components/bookings/booking-time';
@@ -12,8 +13,6 @@ import { isGateRefusedError, useReleaseCheckQuery, useReleaseMutation, type Book
 import { ReleaseFailures } from './release-failures';
 import { StepCard, type StepState } from './step-card';
 
-const timeFormat = new Intl.DateTimeFormat(undefined, { weekday: 'short', day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
-
 /**
  * Step 3: release. Before the button, what the release rules say now (the same rules the server
  * runs when the button is pressed), so nobody learns of a refusal only at the last step; the
@@ -24,12 +23,14 @@ export function ReleaseStep({ booking, state }: { booking: Booking; state: StepS
   const check = useReleaseCheckQuery(booking.id);
   const refusal = isGateRefusedError(release.error) ? release.error : null;
   const failures = check.data?.failures ?? [];
-  const opensAt = check.data ? new Date(check.data.opensAt) : null;
-  const notYet = opensAt !== null && opensAt.getTime() > Date.now();
+  // A refusal answers the booking as it was when pressed: once the checklist is answered again
+  // (or a scan lands), it no longer describes anything, and the check above says what holds now.
+  const runKey = `${booking.checklistRuns.pre?.completedAt ?? ''}|${booking.scannedItemIds.length}`;
+  const { reset } = release;
+  useEffect(() => reset(), [runKey, reset]);
 
   return (
     <StepCard number={3} title="Release" state={state} testID="release-step-release">
-      {notYet && opensAt ? <Badge label={`Opens ${timeFormat.format(opensAt)}`} icon="timer-sand" tone="primary" testID="release-opens-at" /> : null}
       <AppText>{`The release rules are checked again when you press the button: approval, window (${formatWindow(booking.startsAt, booking.endsAt)}), scans, service and inspection, ratings, companions, checklist and qualification.`}</AppText>
       {check.isPending ? (
         <LoadingState label="Checking the release rules" />

@@ -23,12 +23,28 @@ export function ScanStep({ booking, state }: { booking: Booking; state: StepStat
 
   const onTag = (tag: string) => {
     setOutcome(null);
+    // A second scan of a ticked-off item changes nothing: say so instead of "ticked off" again.
+    const already = booking.items.find((item) => item.tag.toUpperCase() === tag.toUpperCase() && booking.scannedItemIds.includes(item.id));
+    if (already) {
+      setOutcome({ ok: true, text: `${already.tag} was already ticked off. ${booking.items.length - scanned} still to scan.` });
+      return;
+    }
     scan.mutate(tag, {
       onSuccess: () => setOutcome({ ok: true, text: `${tag} ticked off.` }),
       // The server says why (not in this booking, unknown tag): show its words as they are.
       onError: (error) => setOutcome({ ok: false, text: describeError(error) }),
     });
   };
+
+  const result = outcome ? (
+    outcome.ok ? (
+      <View accessibilityLiveRegion="polite">
+        <Badge label={outcome.text} icon="check-circle" testID="release-scan-ok" />
+      </View>
+    ) : (
+      <FormAlert message={outcome.text} testID="release-scan-error" />
+    )
+  ) : null;
 
   return (
     <StepCard number={1} title="Scan each item" state={state} testID="release-step-scan">
@@ -60,14 +76,11 @@ export function ScanStep({ booking, state }: { booking: Booking; state: StepStat
           );
         })}
       </View>
-      {outcome ? (
-        outcome.ok ? (
-          <Badge label={outcome.text} icon="check-circle" testID="release-scan-ok" />
-        ) : (
-          <FormAlert message={outcome.text} testID="release-scan-error" />
-        )
-      ) : null}
-      {all ? null : <QrScanner onTag={onTag} paused={scan.isPending} testID="release-scanner" />}
+      {all ? (
+        result
+      ) : (
+        <QrScanner onTag={onTag} paused={scan.isPending} typedSubmitLabel="Tick off" result={result} testID="release-scanner" />
+      )}
     </StepCard>
   );
 }

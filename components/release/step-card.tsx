@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 
-import { borders, radii, spacing } from '@/components/theme/tokens';
+import { borders, shapes, spacing } from '@/components/theme/tokens';
 import { useTheme } from '@/components/theme/use-theme';
 import { AppText } from '@/components/ui/app-text';
 import { Badge } from '@/components/ui/badge';
@@ -45,7 +45,7 @@ export function StepCard({ number, title, state, testID, children }: StepCardPro
 }
 
 const styles = StyleSheet.create({
-  card: { gap: spacing.md, padding: spacing.md, borderWidth: borders.hairline, borderRadius: radii.lg },
+  card: { gap: spacing.md, padding: spacing.md, borderWidth: borders.hairline, borderRadius: shapes.cardRadius },
   current: { borderWidth: borders.focusRing },
   header: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', justifyContent: 'space-between', gap: spacing.xs },
   title: { flexShrink: 1 },

@@ -13,7 +13,7 @@ import type { Assessment } from '@/shared/schemas/assessment';
  * The computed bleed-down time as a countdown the member starts when switching off. A hint only:
  * the residual reading below is what the return is judged on, and the stick goes on regardless.
  */
-export function BleedDownCountdown({ assessment, safeResidualV }: { assessment: Assessment; safeResidualV: number | undefined }) {
+export function BleedDownCountdown({ assessment, safeResidualV, onRunning }: { assessment: Assessment; safeResidualV: number | undefined; onRunning?: (running: boolean) => void }) {
   const bleed = assessment.bleedDown;
   const [startedAt, setStartedAt] = useState<number | null>(null);
   const [now, setNow] = useState(() => Date.now());
@@ -23,6 +23,10 @@ export function BleedDownCountdown({ assessment, safeResidualV }: { assessment: 
     const timer = setInterval(() => setNow(Date.now()), 250);
     return () => clearInterval(timer);
   }, [startedAt]);
+
+  const running = bleed !== null && startedAt !== null && bleed.timeS - (now - startedAt) / 1000 > 0;
+  // The return form waits while the output may still be charged.
+  useEffect(() => onRunning?.(running), [running, onRunning]);
 
   if (!bleed) {
     return (

@@ -25,10 +25,12 @@ type ReturnFormOutput = z.output<typeof returnFormSchema>;
 interface ReturnFormProps {
   booking: Booking;
   safeResidualV: number | undefined;
+  /** The bleed-down countdown is running: the output may still be charged, so the return waits. */
+  bleeding?: boolean;
 }
 
 /** The make-safe checklist, damage, and the return: refused by the server until the readings are safe. */
-export function ReturnForm({ booking, safeResidualV }: ReturnFormProps) {
+export function ReturnForm({ booking, safeResidualV, bleeding = false }: ReturnFormProps) {
   const entries = booking.checklist.return;
   const submit = useReturnMutation(booking.id);
   const [lineErrors, setLineErrors] = useState<Record<number, string>>({});
@@ -85,7 +87,7 @@ export function ReturnForm({ booking, safeResidualV }: ReturnFormProps) {
         />
       </Card>
       <Card title="Damage">
-        <AppText tone="muted">Mark anything that came back damaged. It is tagged out of service and the safety officer is told.</AppText>
+        <AppText tone="muted">Mark anything that came back damaged. The return tags it out of service, so nobody can book or release it until a safety officer or manager has looked at it.</AppText>
         <Controller
           control={control}
           name="ret.damagedItemIds"
@@ -117,10 +119,16 @@ export function ReturnForm({ booking, safeResidualV }: ReturnFormProps) {
       </Card>
       {refusal ? <ReleaseFailures testID="return-failures" title={refusal.message} failures={refusal.failures} /> : null}
       {errors.root?.server?.message ? <FormAlert message={errors.root.server.message} testID="return-error" /> : null}
+      {bleeding ? (
+        <AppText variant="bodyStrong" testID="return-wait-bleed">
+          Wait for the bleed-down countdown to finish, then ground the output and measure before returning.
+        </AppText>
+      ) : null}
       <Button
         label="Return the gear"
         icon="keyboard-return"
         block
+        disabled={bleeding}
         loading={isSubmitting}
         loadingLabel="Recording the return"
         testID="return-submit"

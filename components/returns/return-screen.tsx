@@ -1,4 +1,5 @@
 import { router } from 'expo-router';
+import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { formatKv } from '@/components/assessment/quantities';
@@ -41,6 +42,7 @@ export function ReturnScreen({ id }: { id: number }) {
 
 function ReturnBody({ booking }: { booking: Booking }) {
   const rules = useLabRulesQuery();
+  const [bleeding, setBleeding] = useState(false);
   const header = (
     <View style={styles.header}>
       <BookingStatusBadge status={booking.status} overdue={booking.overdue} testID="return-status" />
@@ -59,6 +61,7 @@ function ReturnBody({ booking }: { booking: Booking }) {
             Thank you. The gear is back.
           </AppText>
           <AppText>{`Returned ${booking.returnedAt ? formatDateTime(booking.returnedAt) : ''}.`}</AppText>
+          <ReturnedDamage booking={booking} />
           <Button label="Go to Today" icon="home-lightning-bolt" block testID="return-go-today" onPress={() => router.replace('/')} />
         </Card>
       </>
@@ -76,11 +79,25 @@ function ReturnBody({ booking }: { booking: Booking }) {
     <>
       {header}
       <Card title="Switch off and bleed down">
-        <BleedDownCountdown assessment={booking.assessment} safeResidualV={rules.data?.safeResidualV} />
+        <BleedDownCountdown assessment={booking.assessment} safeResidualV={rules.data?.safeResidualV} onRunning={setBleeding} />
       </Card>
       <SafetyCaution testID="return-caution" />
-      <ReturnForm booking={booking} safeResidualV={rules.data?.safeResidualV} />
+      <ReturnForm booking={booking} safeResidualV={rules.data?.safeResidualV} bleeding={bleeding} />
     </>
+  );
+}
+
+/** Gear marked damaged was tagged out by the return itself: say which, and what that means. */
+function ReturnedDamage({ booking }: { booking: Booking }) {
+  const tagged = booking.items.filter((item) => item.status === 'out-of-service');
+  if (tagged.length === 0) return null;
+  return (
+    <View style={styles.header} testID="return-done-tagged-out">
+      <HazardBadge level="warning" detail={`Tagged out of service: ${tagged.map((i) => i.tag).join(', ')}`} />
+      <AppText>
+        {`${tagged.length === 1 ? 'It stays' : 'They stay'} out of service, so nobody can book or release ${tagged.length === 1 ? 'it' : 'them'}, until a safety officer or manager has looked at the damage you described and put ${tagged.length === 1 ? 'it' : 'them'} back.`}
+      </AppText>
+    </View>
   );
 }
 

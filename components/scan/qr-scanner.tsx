@@ -27,9 +27,13 @@ export interface QrScannerProps {
   /** Stops reporting (e.g. while the screen looks a tag up); the typed field is disabled too. */
   paused?: boolean;
   testID?: string;
+  /** What the typed tag's button does where the scanner is used ("Open", "Tick off"). */
+  typedSubmitLabel?: string;
+  /** The answer to the last tag, shown right under the typed field, where the eyes and keyboard are. */
+  result?: ReactNode;
 }
 
-export function QrScanner({ onTag, paused = false, testID = 'qr-scanner' }: QrScannerProps): JSX.Element {
+export function QrScanner({ onTag, paused = false, testID = 'qr-scanner', typedSubmitLabel, result }: QrScannerProps): JSX.Element {
   const [notALabel, setNotALabel] = useState(false);
   const lastReported = useRef<{ tag: string; at: number } | null>(null);
   const onTagRef = useRef(onTag);
@@ -75,7 +79,8 @@ export function QrScanner({ onTag, paused = false, testID = 'qr-scanner' }: QrSc
           That QR code is not a Voltcrib gear label. Scan the label on the item, or type its tag.
         </AppText>
       ) : null}
-      <TypedTagForm onTag={report} disabled={paused} testID={`${testID}-typed`} />
+      <TypedTagForm onTag={report} disabled={paused} submitLabel={typedSubmitLabel} testID={`${testID}-typed`} />
+      {result}
     </View>
   );
 }

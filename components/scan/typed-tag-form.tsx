@@ -26,12 +26,14 @@ type TypedTag = z.output<typeof typedTagSchema>;
 interface TypedTagFormProps {
   onTag: (tag: string) => void;
   disabled?: boolean;
+  /** Says what the button does with the tag; "Open" (its page) unless the screen does something else. */
+  submitLabel?: string;
   /** The field gets `<testID>-input`, the button `<testID>-submit`. */
   testID: string;
 }
 
 /** The fallback that always works: a worn label, a dark room, a browser without a camera. */
-export function TypedTagForm({ onTag, disabled = false, testID }: TypedTagFormProps) {
+export function TypedTagForm({ onTag, disabled = false, submitLabel = 'Open', testID }: TypedTagFormProps) {
   const { control, handleSubmit, reset } = useForm<TypedTagInput, unknown, TypedTag>({
     resolver: zodResolver(typedTagSchema),
     defaultValues: { tag: '' },
@@ -60,7 +62,7 @@ export function TypedTagForm({ onTag, disabled = false, testID }: TypedTagFormPr
         />
       </View>
       <View style={styles.button}>
-        <Button label="Open" icon="chevron-right" variant="secondary" onPress={() => void submit()} disabled={disabled} testID={`${testID}-submit`} />
+        <Button label={submitLabel} icon={submitLabel === 'Open' ? 'chevron-right' : 'check-circle'} variant="secondary" onPress={() => void submit()} disabled={disabled} testID={`${testID}-submit`} />
       </View>
     </View>
   );

@@ -1,9 +1,14 @@
 // Voltcrib's one source of colours, sizes and type. Nothing else in the app writes a colour or a
 // size literal: screens and primitives read these by semantic name.
 //
-// Identity: "corona violet" (the glow of a corona discharge) on ink and paper, with the mark —
-// a V held in a square crib over an earth bar (see components/ui/voltcrib-mark.tsx).
-// Violet is deliberately not one of the safety colours, so brand and hazard never blur.
+// Identity: "bench tag". Ink and paper, like the printed tags on a cable or an HV enclosure:
+// controls are ink on paper (paper on ink in the dark), tonal fills are neutral greys, and the one
+// brand colour, corona violet (the glow of a corona discharge), marks only where you are: the
+// navigation rail. Violet is deliberately not one of the safety colours, so brand and hazard never
+// blur. Shapes (see `shapes`): cards are squared tags with a heavy top rule instead of a rounded
+// outline; chips are squared tags with a radio dot; the current place in the navigation is a rail
+// along the item's edge, never a pill behind the icon. The mark: a V held in a square crib over an
+// earth bar (components/ui/voltcrib-mark.tsx).
 //
 // Hazard colours follow the ANSI Z535 / ISO 3864 safety-colour meanings: red danger,
 // orange warning, yellow caution, green safe condition, blue information. Foregrounds follow the
@@ -37,6 +42,14 @@ export interface ThemeColors {
   focus: string;
   /** Inline error text on `surface` or `background` (field errors, failed loads). */
   errorText: string;
+  /** The navigation rail marking the current place: the brand colour, and nothing else uses it. */
+  rail: string;
+  /**
+   * States that matter at a glance (free / already booked, approved / awaiting, overdue). Each is
+   * a tint with an edge in the hue family of its safety meaning, and always comes with a word and
+   * an icon (Badge tones 'ok', 'held', 'late').
+   */
+  state: Record<'ok' | 'held' | 'late', { fill: string; text: string; edge: string }>;
   /** Destructive buttons; the same red as the danger hazard so "destroys something" reads alike. */
   danger: string;
   onDanger: string;
@@ -93,13 +106,19 @@ export const lightTheme: Theme = {
     surfaceMuted: ink[100],
     text: ink[900],
     textMuted: '#4A4F5C',
-    primary: violet.main,
+    primary: ink[900],
     onPrimary: ink[0],
-    primarySoft: violet.soft,
-    onPrimarySoft: violet.deep,
+    primarySoft: ink[100],
+    onPrimarySoft: ink[900],
     border: ink[200],
     borderStrong: ink[500],
-    focus: ink[900],
+    focus: violet.main,
+    rail: violet.main,
+    state: {
+      ok: { fill: '#E3F2E8', text: '#0B4D28', edge: safety.green },
+      held: { fill: '#FDEBDD', text: '#6E2A00', edge: '#9A3B00' },
+      late: { fill: '#FBE3E6', text: '#7A0A1C', edge: safety.red },
+    },
     errorText: '#B3261E',
     danger: safety.red,
     onDanger: safety.white,
@@ -122,13 +141,19 @@ export const darkTheme: Theme = {
     surfaceMuted: ink[700],
     text: '#F4F4F7',
     textMuted: ink[300],
-    primary: violet.light,
-    onPrimary: violet.onLight,
-    primarySoft: violet.night,
-    onPrimarySoft: '#E4DCFF',
+    primary: '#F4F4F7',
+    onPrimary: ink[900],
+    primarySoft: ink[700],
+    onPrimarySoft: '#F4F4F7',
     border: ink[600],
     borderStrong: ink[400],
-    focus: ink[0],
+    focus: violet.light,
+    rail: violet.light,
+    state: {
+      ok: { fill: '#12301F', text: '#B6EBC8', edge: '#3DBA6E' },
+      held: { fill: '#3A2212', text: '#FFD2B0', edge: safety.orange },
+      late: { fill: '#3D1218', text: '#FFC2C9', edge: safety.redBright },
+    },
     errorText: '#FF8A80',
     danger: safety.redBright,
     onDanger: safety.white,
@@ -192,6 +217,17 @@ export const radii = {
   md: 10,
   lg: 16,
   pill: 999,
+} as const;
+
+/** Voltcrib's own shapes, read by the primitives (Card, ChoiceChips, Badge, the navigation). */
+export const shapes = {
+  /** Cards: a squared tag with a heavy rule along the top edge, no outline. */
+  cardRadius: 4,
+  cardRule: 4,
+  /** Chips and badges: squared tags, not pills. */
+  chipRadius: 4,
+  /** The rail beside (side nav) or above (tab bar) the current place. */
+  railThickness: 4,
 } as const;
 
 export const borders = {

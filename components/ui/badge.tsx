@@ -1,12 +1,13 @@
 import { StyleSheet, View } from 'react-native';
 
-import { borders, iconSizes, radii, spacing } from '@/components/theme/tokens';
+import { borders, iconSizes, shapes, spacing } from '@/components/theme/tokens';
 import { useTheme } from '@/components/theme/use-theme';
 
 import { AppText } from './app-text';
 import { Icon, type IconName } from './icon';
 
-type Tone = 'neutral' | 'primary' | 'muted';
+/** 'ok', 'held' and 'late' carry a state by colour as well as by their word and icon. */
+type Tone = 'neutral' | 'primary' | 'muted' | 'ok' | 'held' | 'late';
 
 interface BadgeProps {
   label: string;
@@ -22,6 +23,9 @@ export function Badge({ label, tone = 'neutral', icon, testID }: BadgeProps) {
     neutral: { fill: colors.surface, text: colors.text, edge: colors.borderStrong },
     primary: { fill: colors.primarySoft, text: colors.onPrimarySoft, edge: colors.primary },
     muted: { fill: colors.surfaceMuted, text: colors.textMuted, edge: colors.border },
+    ok: colors.state.ok,
+    held: colors.state.held,
+    late: colors.state.late,
   }[tone];
   return (
     <View testID={testID} style={[styles.badge, { backgroundColor: palette.fill, borderColor: palette.edge }]}>
@@ -41,7 +45,8 @@ const styles = StyleSheet.create({
     gap: spacing.xxs,
     paddingHorizontal: spacing.sm,
     paddingVertical: spacing.xxs,
-    borderRadius: radii.pill,
+    borderRadius: shapes.chipRadius,
     borderWidth: borders.hairline,
+    borderLeftWidth: shapes.railThickness,
   },
 });

@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 
-import { borders, radii, spacing } from '@/components/theme/tokens';
+import { shapes, spacing } from '@/components/theme/tokens';
 import { useTheme } from '@/components/theme/use-theme';
 
 import { AppText } from './app-text';
@@ -19,7 +19,7 @@ export function Card({ title, testID, flush = false, children }: CardProps) {
   return (
     <View
       testID={testID}
-      style={[styles.card, flush && styles.flush, { backgroundColor: colors.surface, borderColor: colors.border }]}
+      style={[styles.card, flush && styles.flush, { backgroundColor: colors.surface, borderTopColor: colors.borderStrong }]}
     >
       {title ? (
         <View style={flush ? styles.flushTitle : undefined}>
@@ -35,8 +35,9 @@ export function Card({ title, testID, flush = false, children }: CardProps) {
 
 const styles = StyleSheet.create({
   card: {
-    borderWidth: borders.hairline,
-    borderRadius: radii.lg,
+    // A squared tag with a heavy top rule (tokens.ts `shapes`), not a rounded outline.
+    borderTopWidth: shapes.cardRule,
+    borderRadius: shapes.cardRadius,
     padding: spacing.md,
     gap: spacing.sm,
     overflow: 'hidden',

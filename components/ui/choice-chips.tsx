@@ -1,6 +1,6 @@
 import { Pressable, StyleSheet, View } from 'react-native';
 
-import { borders, iconSizes, layout, radii, spacing } from '@/components/theme/tokens';
+import { borders, iconSizes, layout, shapes, spacing } from '@/components/theme/tokens';
 import { useTheme } from '@/components/theme/use-theme';
 
 import { AppText } from './app-text';
@@ -54,11 +54,7 @@ export function ChoiceChips<T extends string>({ label, hideLabel = false, choice
                 pressed && styles.pressed,
               ]}
             >
-              {selected ? (
-                <Icon name="check-circle" size={iconSizes.sm} color={colors.onPrimary} />
-              ) : choice.icon ? (
-                <Icon name={choice.icon} size={iconSizes.sm} color={colors.textMuted} />
-              ) : null}
+              <Icon name={selected ? 'radiobox-marked' : (choice.icon ?? 'radiobox-blank')} size={iconSizes.sm} color={selected ? colors.onPrimary : colors.textMuted} />
               <AppText variant="label" color={selected ? colors.onPrimary : colors.text}>
                 {choice.label}
               </AppText>
@@ -83,7 +79,7 @@ const styles = StyleSheet.create({
     minHeight: layout.minTouchTarget,
     paddingHorizontal: spacing.md,
     borderWidth: borders.control,
-    borderRadius: radii.pill,
+    borderRadius: shapes.chipRadius,
   },
   pressed: { opacity: 0.8 },
 });

@@ -50,6 +50,9 @@ const glyphs = {
   'check-circle': 0xf05e0,
   'checkbox-blank-outline': 0xf0131,
   'checkbox-marked': 0xf0132,
+  // Choice chips: a radio dot says which is chosen (the look module's chip shape).
+  'radiobox-blank': 0xf043d,
+  'radiobox-marked': 0xf043e,
   'chevron-down': 0xf0140,
   'chevron-up': 0xf0143,
   'clock-alert': 0xf0955,

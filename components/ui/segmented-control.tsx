@@ -1,9 +1,10 @@
 import { Pressable, StyleSheet, View } from 'react-native';
 
-import { borders, layout, radii, spacing } from '@/components/theme/tokens';
+import { borders, iconSizes, layout, shapes, spacing } from '@/components/theme/tokens';
 import { useTheme } from '@/components/theme/use-theme';
 
 import { AppText } from './app-text';
+import { Icon } from './icon';
 
 export interface SegmentOption<V extends string> {
   value: V;
@@ -64,6 +65,7 @@ export function SegmentedControl<V extends string>({
                 pressed && styles.pressed,
               ]}
             >
+              {kind === 'radio' ? <Icon name={chosen ? 'radiobox-marked' : 'radiobox-blank'} size={iconSizes.sm} color={chosen ? colors.onPrimary : colors.textMuted} /> : null}
               <AppText variant={chosen ? 'label' : 'body'} color={chosen ? colors.onPrimary : colors.text}>
                 {option.label}
               </AppText>
@@ -82,8 +84,10 @@ const styles = StyleSheet.create({
     minHeight: layout.minTouchTarget,
     minWidth: layout.minTouchTarget,
     paddingHorizontal: spacing.md,
-    borderRadius: radii.pill,
+    borderRadius: shapes.chipRadius,
     borderWidth: borders.control,
+    flexDirection: 'row',
+    gap: spacing.xxs,
     alignItems: 'center',
     justifyContent: 'center',
   },

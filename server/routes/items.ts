@@ -10,6 +10,7 @@ import { validate } from '../middleware/validate';
 import { listAudit } from '../services/audit-trail';
 import { itemAvailability, itemBookingHistory } from '../services/booking-availability';
 import { listItemFiles, storeItemFile } from '../services/files';
+import { itemClearance } from '../services/item-clearance';
 import { listInspections, recordInspection } from '../services/inspections';
 import { listItems } from '../services/item-search';
 import { createItem, getItem, getItemByTag, toItem, updateItem } from '../services/items';
@@ -53,6 +54,10 @@ export function itemsRouter(db: Db, config: Config, store: ObjectStore): Router 
     const itemId = id(req);
     const input = validate(itemUpdateSchema, req.body, 'item change');
     res.json({ item: toItem(await updateItem(db, currentUser(req), itemId, input, { publicUrl: config.publicUrl }), config.publicUrl) });
+  });
+
+  router.get('/:id/clearance', requireSignedIn, async (req, res) => {
+    res.json(await itemClearance(db, await getItem(db, id(req))));
   });
 
   router.get('/:id/history', requireSignedIn, async (req, res) => {

@@ -4,6 +4,7 @@ import { ERROR_CODES } from '../../shared/errors';
 import { signInSchema, type SessionResponse, type SessionUser } from '../../shared/schemas/session';
 import { addressOf, type Throttle } from '../auth/throttle';
 import type { Db } from '../db';
+import { labTimeZone } from '../mail/lab-time';
 import { AppError } from '../errors';
 import type { Csrf } from '../middleware/csrf';
 import { recordSignIn } from '../services/people';
@@ -26,7 +27,7 @@ export function sessionRouter(db: Db, passport: PassportStatic, csrf: Csrf, thro
   const router = Router();
 
   router.get('/', (req, res) => {
-    const body: SessionResponse = { user: req.user ?? null, csrfToken: csrf.tokenFor(req, res) };
+    const body: SessionResponse = { user: req.user ?? null, csrfToken: csrf.tokenFor(req, res), labTimeZone: labTimeZone() };
     res.json(body);
   });
 

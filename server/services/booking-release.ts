@@ -7,6 +7,7 @@ import type { Booking, ReleasePreview } from '../../shared/schemas/bookings';
 import type { SessionUser } from '../../shared/schemas/session';
 import type { Db, Trx } from '../db';
 import { ConflictError, NotFoundError } from '../errors';
+import { labTimeZone } from '../mail/lab-time';
 import { appendAudit, auditedTransaction } from './audit';
 import { assertCounterAccess, canSeeBooking, lockBooking } from './booking-access';
 import { assess, basisOf, entriesFor, loadItems, rowBasisInput } from './booking-assessment';
@@ -51,6 +52,7 @@ async function releaseCheck(q: Db | Trx, row: BookingRow, items: ItemRow[], now:
     checklistEntries: entriesFor(templates, 'pre', row, items, rules),
     checklist: runs.pre,
     clashingTags: clashes,
+    timeZone: labTimeZone(),
   });
   return { failures, assessment, basis, approval, rules, opensAt: new Date(new Date(row.starts_at).getTime() - rules.earlyPickupMin * 60_000) };
 }

@@ -17,10 +17,11 @@ import type { SessionUser } from '../../shared/schemas/session';
 import { isDuplicateKey, type Db, type Trx } from '../db';
 import { ConflictError, NotFoundError } from '../errors';
 import { validate } from '../middleware/validate';
+import { passedSinceTagOut } from './item-clearance';
 import { appendAudit, auditedTransaction } from './audit';
 import { lockBookingsHolding, replanBookingsHolding } from './booking-cascades';
 import type { MailContext } from './booking-rows';
-import { addDaysIso, dateColumnToIso, isoOfMillis, timestampToIso, todayIso } from './dates';
+import { addDaysIso, dateColumnToIso, timestampToIso } from './dates';
 import { writeItemTerms } from './item-terms';
 import { lockItem, toItemSummary, type ItemRow } from './item-rows';
 
@@ -134,16 +135,8 @@ export async function updateItem(db: Db, actor: SessionUser, id: number, input: 
       changes.rated_kv = ratedKvOf({ kind: before.kind, ratings } as ItemRatings);
     }
     if (input.status === 'in-service' && before.status === 'out-of-service') {
-      // Lockout/tagout practice: a tag comes off after the item is inspected and passes. The
-      // inspection must be recorded after the tag-out and carried out on or after its day (an
-      // old inspection entered late is no evidence), and not dated in the future.
-      const since = before.status_changed_at ?? new Date(0);
-      const passed = await trx('inspections')
-        .where({ item_id: id, result: 'pass' })
-        .andWhere('created_at', '>=', since)
-        .andWhere('inspected_on', '>=', isoOfMillis(new Date(since).getTime()).slice(0, 10))
-        .andWhere('inspected_on', '<=', todayIso())
-        .first('id');
+      // Lockout/tagout: the same check the item page asks before offering the button (item-clearance.ts).
+      const passed = await passedSinceTagOut(trx, before);
       if (!passed) throw new ConflictError(`${before.tag} is tagged out: record a passing inspection carried out since the tag-out before clearing it.`, ERROR_CODES.inspectionRequired);
     }
     if (input.status !== undefined && input.status !== before.status) {

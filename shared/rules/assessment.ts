@@ -4,7 +4,8 @@
 import { approachBoundaries, classifyHazardousLive, dischargePlan, HvInputError, multiplierOutput, ratingMargin, storedEnergyJ as capacitorEnergyJ } from '../hv';
 import type { AssessedItem, Assessment, ItemCheck, QualificationState, Reason } from '../schemas/assessment';
 import type { LabRules, TestPlan } from '../schemas/bookings';
-import type { ItemKind } from '../schemas/items';
+import type { ItemKind, Polarity } from '../schemas/items';
+import { polarityProblem } from './polarity';
 
 const num = (value: unknown): number | null => (typeof value === 'number' && Number.isFinite(value) ? value : null);
 
@@ -52,6 +53,11 @@ export function assessSetup(input: { items: AssessedItem[]; plan: TestPlan; rule
   if (plan.plannedKv > rules.interlockKv && !ratedFor('interlock')) {
     missingCompanions.push({ code: 'interlock', message: `Above ${rules.interlockKv} kV the lab requires an interlocked enclosure or barrier rated for at least ${requiredKv.toFixed(1)} kV.` });
   }
+
+  const polaritySources = items
+    .filter((i) => i.kind === 'hv-supply' || i.kind === 'multiplier')
+    .map((i) => ({ tag: i.tag, polarity: typeof i.ratings.polarity === 'string' ? (i.ratings.polarity as Polarity) : null }));
+  const polarity = polarityProblem(plan.polarity, polaritySources);
 
   // Stored energy and output capacitance of the sources at the planned voltage.
   let storedEnergyJ = 0;
@@ -158,6 +164,7 @@ export function assessSetup(input: { items: AssessedItem[]; plan: TestPlan; rule
     requiredKv,
     items: itemChecks,
     missingCompanions,
+    polarity,
     storedEnergyJ,
     outputCapacitanceF,
     hazard,

@@ -6,6 +6,7 @@ import type { Assessment, Reason } from '../schemas/assessment';
 import { checklistCoverage } from './checklist-coverage';
 import { PRE_RELEASE_STATUSES, type BookingStatus, type ChecklistAnswerRecord, type ChecklistEntry } from '../schemas/bookings';
 import type { RuleFailure } from '../errors';
+import { zonedTimeWords } from '../zoned-time';
 
 export const RELEASE_RULES = {
   status: 'The booking is not in a state that can be released.',
@@ -20,6 +21,7 @@ export const RELEASE_RULES = {
   'grounding-stick': 'A grounding stick rated for the planned voltage must be in the set.',
   'isolation-stand': 'An isolation stand rated for the planned voltage must be in the set.',
   interlock: 'An interlock rated for the planned voltage must be in the set above the lab interlock voltage.',
+  polarity: 'A source in the set must produce the planned polarity.',
   checklist: 'Complete the pre-energize checklist with every reading inside its limits.',
   qualification: 'The member must be qualified for the planned voltage, or the test approved by an officer.',
 } as const;
@@ -74,7 +76,32 @@ export interface ReleaseContext {
   checklist: CompletedChecklist | null;
   /** Tags of this booking's gear that another live booking holds in an overlapping window. */
   clashingTags: readonly string[];
+  /** The lab's clock (IANA name) the window's times are worded on; UTC, so named, when not given. */
+  timeZone?: string;
 }
+
+/**
+ * The rules the gear itself fails for this plan: nothing done at the counter, by an officer or by
+ * the clock can make them hold; only other gear, another window or another plan. The booking form
+ * shows them before "Request booking" and the booking page instead of "Go to release".
+ */
+export function gearFailures(a: Assessment, clashingTags: readonly string[]): RuleFailure<ReleaseRule>[] {
+  const failures: RuleFailure<ReleaseRule>[] = [];
+  const fail = (rule: ReleaseRule, detail: string) => failures.push({ rule, message: `${RELEASE_RULES[rule]} ${detail}` });
+  if (clashingTags.length > 0) fail('clash', `Held elsewhere: ${clashingTags.join(', ')}.`);
+  const outOfService = a.items.filter((i) => !i.inService).map((i) => i.tag);
+  if (outOfService.length > 0) fail('in-service', `Out of service: ${outOfService.join(', ')}.`);
+  const notInspected = a.items.filter((i) => !i.inspectionCurrent).map((i) => i.tag);
+  if (notInspected.length > 0) fail('inspection', `Inspection not current: ${notInspected.join(', ')}.`);
+  const underRated = a.items.filter((i) => !i.ratingOk).map((i) => `${i.tag} (${i.ratedKv ?? 'no'} kV)`);
+  if (underRated.length > 0) fail('rating', `Under-rated: ${underRated.join(', ')}; required ${a.requiredKv.toFixed(1)} kV.`);
+  for (const companion of a.missingCompanions) failures.push({ rule: companion.code as ReleaseRule, message: companion.message });
+  if (a.polarity) failures.push({ rule: 'polarity', message: a.polarity.message });
+  return failures;
+}
+
+/** The rules gearFailures checks: a release-check failure on one of these means the booking must change first. */
+export const GEAR_RULES: readonly ReleaseRule[] = ['clash', 'in-service', 'inspection', 'rating', 'grounding-stick', 'isolation-stand', 'interlock', 'polarity'];
 
 export function releaseFailures(ctx: ReleaseContext): RuleFailure<ReleaseRule>[] {
   const failures: RuleFailure<ReleaseRule>[] = [];
@@ -89,19 +116,15 @@ export function releaseFailures(ctx: ReleaseContext): RuleFailure<ReleaseRule>[]
     fail('approval', `${a.approvalReasons.map((r: Reason) => r.message).join(' ')}${changed}`);
   }
   const opensAt = ctx.startsAt.getTime() - ctx.earlyPickupMin * 60_000;
-  if (ctx.now.getTime() < opensAt) fail('window', `Release opens at ${new Date(opensAt).toISOString()}.`);
-  else if (ctx.now.getTime() >= ctx.endsAt.getTime()) fail('window', `The booking ended at ${ctx.endsAt.toISOString()}.`);
-  if (ctx.clashingTags.length > 0) fail('clash', `Held elsewhere: ${ctx.clashingTags.join(', ')}.`);
-
+  const zone = ctx.timeZone ?? 'UTC';
+  if (ctx.now.getTime() < opensAt) fail('window', `Release opens at ${zonedTimeWords(new Date(opensAt), zone)}.`);
+  else if (ctx.now.getTime() >= ctx.endsAt.getTime()) fail('window', `The booking ended at ${zonedTimeWords(ctx.endsAt, zone)}.`);
   const missing = a.items.filter((i) => !ctx.scannedItemIds.includes(i.itemId)).map((i) => i.tag);
+  // In the order the counter meets them: held elsewhere, scans, then the gear's own state.
+  const gear = gearFailures(a, ctx.clashingTags);
+  failures.push(...gear.filter((f) => f.rule === 'clash'));
   if (missing.length > 0) fail('scanned', `Not scanned: ${missing.join(', ')}.`);
-  const outOfService = a.items.filter((i) => !i.inService).map((i) => i.tag);
-  if (outOfService.length > 0) fail('in-service', `Out of service: ${outOfService.join(', ')}.`);
-  const notInspected = a.items.filter((i) => !i.inspectionCurrent).map((i) => i.tag);
-  if (notInspected.length > 0) fail('inspection', `Inspection not current: ${notInspected.join(', ')}.`);
-  const underRated = a.items.filter((i) => !i.ratingOk).map((i) => `${i.tag} (${i.ratedKv ?? 'no'} kV)`);
-  if (underRated.length > 0) fail('rating', `Under-rated: ${underRated.join(', ')}; required ${a.requiredKv.toFixed(1)} kV.`);
-  for (const companion of a.missingCompanions) fail(companion.code as ReleaseRule, companion.message);
+  failures.push(...gear.filter((f) => f.rule !== 'clash'));
 
   if (!ctx.checklist || ctx.checklist.planVersion !== ctx.planVersion) fail('checklist', 'Not completed for the current plan.');
   else {

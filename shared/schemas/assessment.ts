@@ -44,6 +44,8 @@ export interface Assessment {
   requiredKv: number;
   items: ItemCheck[];
   missingCompanions: Reason[];
+  /** The sources cannot produce the plan's polarity (shared/rules/polarity.ts); absent on assessments stored before the check. */
+  polarity?: Reason | null;
   storedEnergyJ: number;
   outputCapacitanceF: number;
   hazard: { hazardous: boolean; criterion: string; explanation: string; source: string };

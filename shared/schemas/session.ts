@@ -25,4 +25,6 @@ export type SessionUser = z.infer<typeof sessionUserSchema>;
 export interface SessionResponse {
   user: SessionUser | null;
   csrfToken: string;
+  /** The lab's clock (LAB_TIME_ZONE, else the server's): the gate's times are shown on it. */
+  labTimeZone: string;
 }

@@ -98,6 +98,8 @@ it('books above the approval voltage, gets approved, releases at the counter and
       await o.getByTestId(`approval-${bookingId}-conditions`).fill('Second person from the group at the emergency stop; barrier at the marked line.');
       await shot(o, '2-approve');
       await o.getByTestId(`approval-${bookingId}-approve`).click();
+      // One more press names the decision before it binds the plan.
+      await o.getByTestId(`approval-${bookingId}-confirm-yes`).click();
       await o.getByTestId('approvals-last-decision').waitFor({ timeout: 15_000 });
       expect(await o.getByTestId(`approval-${bookingId}`).count()).toBe(0);
     } finally {

@@ -29,6 +29,8 @@ it('adds a reading line with limits and retires it again', async () => {
     expect(Number(row.max_value)).toBeCloseTo(0.1, 6);
 
     await page.getByTestId(`checklist-line-retire-${row.id}`).click();
+    // Retiring asks once more, naming the line.
+    await page.getByTestId(`checklist-line-retire-${row.id}-yes`).click();
     await page.getByTestId(`checklist-line-retire-${row.id}`).waitFor({ state: 'detached', timeout: 15_000 });
     expect((await suite.server.db('checklist_templates').where({ id: row.id }).first()).active).toBe(false);
   } finally {

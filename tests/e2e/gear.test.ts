@@ -236,10 +236,10 @@ describe('a manager on an item page', () => {
       await expect(shown(page, 'item-status-reason').textContent()).resolves.toContain('Surface tracking marks on the top plate');
       expect(await suite.server.db('items').where({ id: item.id }).first('status')).toEqual({ status: 'out-of-service' });
 
-      // Lockout/tagout: the tag stays on until an inspection passes after the tag-out.
-      await shown(page, 'item-clear').click();
-      await shown(page, 'clear-submit').click();
-      await expect(shown(page, 'clear-error').textContent({ timeout: 15_000 })).resolves.toMatch(/record a passing inspection/i);
+      // Lockout/tagout: the tag stays on until an inspection passes after the tag-out, so the page
+      // offers no "Put back in service" until then and says what to do instead.
+      await expect(shown(page, 'item-clear-needs-inspection').textContent({ timeout: 15_000 })).resolves.toMatch(/first record an inspection that passes/);
+      expect(await shown(page, 'item-clear').count()).toBe(0);
       expect(await suite.server.db('items').where({ id: item.id }).first('status')).toEqual({ status: 'out-of-service' });
       await page.goto(`${suite.server.baseUrl}/gear/${item.id}`, { waitUntil: 'load' });
       await shown(page, 'item-record-inspection').click();

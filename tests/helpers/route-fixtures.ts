@@ -397,6 +397,7 @@ export const ROUTES: Record<string, RouteFixture> = {
   'GET /api/items/:id': onItem('signed-in'),
   'PATCH /api/items/:id': onItem(MANAGER, { body: { notes: 'Checked by the security suite' } }),
   'GET /api/items/:id/history': onItem('signed-in'),
+  'GET /api/items/:id/clearance': onItem('signed-in'),
   'GET /api/items/:id/availability': onItem('signed-in', { query: { from: new Date().toISOString(), to: new Date(Date.now() + 7 * 24 * 3600_000).toISOString() } }),
   'GET /api/items/:id/bookings': onItem('signed-in'),
   'GET /api/items/:id/inspections': onItem('signed-in'),

@@ -126,7 +126,7 @@ describe('DELETE /api/session', () => {
 describe('GET /api/session', () => {
   it('returns a null user and a CSRF token when signed out', async () => {
     const res = await request(ctx.app).get('/api/session').expect(200);
-    expect(res.body).toEqual({ user: null, csrfToken: expect.any(String) });
+    expect(res.body).toEqual({ user: null, csrfToken: expect.any(String), labTimeZone: expect.any(String) });
     expect(res.headers['cache-control']).toBe('no-store');
   });
 });
