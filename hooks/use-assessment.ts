@@ -4,7 +4,8 @@
 // that stored one is the record.
 import { useEffect, useMemo, useState } from 'react';
 
-import { assessSetup, type AssessedItem, type Assessment } from '@/shared/rules/assessment';
+import { assessSetup } from '@/shared/rules/assessment';
+import type { AssessedItem, Assessment } from '@/shared/schemas/assessment';
 import { testPlanSchema, type TestPlan } from '@/shared/schemas/bookings';
 import type { Item } from '@/shared/schemas/items';
 

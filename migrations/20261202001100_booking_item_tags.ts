@@ -3,7 +3,7 @@ import type { Knex } from 'knex';
 // Each booking keeps the tags of its items, in tag order, as a JSON array. The bookings list shows
 // them on every row; gathering them per row with a subquery cost MariaDB about three quarters of
 // the list's time (26 subqueries a page). A booking's items change only through the bookings
-// service, which writes this column in the same statement group (server/services/bookings.ts
+// service, which writes this column in the same statement group (server/services/booking-rows.ts
 // `bookingItemTags`); tags themselves never change (items are retired, never renamed by tag).
 export async function up(knex: Knex): Promise<void> {
   // At most 30 items of at most 32 characters: well under TEXT's limit. Raw SQL because knex drops

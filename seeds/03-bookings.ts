@@ -5,7 +5,10 @@
 import type { Knex } from 'knex';
 import type { BookingCreateInput, ChecklistEntry } from '../shared/schemas/bookings';
 import type { SessionUser } from '../shared/schemas/session';
-import { createBooking, decideApproval, recordScan, releaseBooking, submitChecklist } from '../server/services/bookings';
+import { decideApproval } from '../server/services/booking-approvals';
+import { createBooking } from '../server/services/booking-plans';
+import { recordScan, submitChecklist } from '../server/services/booking-counter';
+import { releaseBooking } from '../server/services/booking-release';
 import { addDaysIso, todayIso } from '../server/services/dates';
 import { setQualification } from '../server/services/qualifications';
 import { loadConfig } from '../server/config';

@@ -8,7 +8,9 @@ import type { BenchRunInput } from '../shared/schemas/bench-runs';
 import type { ChecklistEntry } from '../shared/schemas/bookings';
 import type { SessionUser } from '../shared/schemas/session';
 import { recordBenchRun } from '../server/services/bench-runs';
-import { createBooking, recordScan, releaseBooking, submitChecklist } from '../server/services/bookings';
+import { createBooking } from '../server/services/booking-plans';
+import { recordScan, submitChecklist } from '../server/services/booking-counter';
+import { releaseBooking } from '../server/services/booking-release';
 
 const MAIL = { publicUrl: process.env.PUBLIC_URL ?? 'http://127.0.0.1:8080' };
 const HOUR = 3600_000;

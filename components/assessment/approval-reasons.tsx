@@ -5,7 +5,7 @@ import { useTheme } from '@/components/theme/use-theme';
 import { AppText } from '@/components/ui/app-text';
 import { Badge } from '@/components/ui/badge';
 import { Icon } from '@/components/ui/icon';
-import type { Assessment } from '@/shared/rules/assessment';
+import type { Assessment } from '@/shared/schemas/assessment';
 
 import { SourceLine } from './source-line';
 

@@ -4,7 +4,7 @@ import { StyleSheet, View } from 'react-native';
 import { spacing } from '@/components/theme/tokens';
 import { AppText } from '@/components/ui/app-text';
 import { Card } from '@/components/ui/card';
-import type { Assessment } from '@/shared/rules/assessment';
+import type { Assessment } from '@/shared/schemas/assessment';
 
 import { ApprovalReasons } from './approval-reasons';
 import { BoundariesFacts } from './boundaries-facts';

@@ -2,7 +2,7 @@ import { StyleSheet, View } from 'react-native';
 
 import { spacing } from '@/components/theme/tokens';
 import { AppText } from '@/components/ui/app-text';
-import type { Assessment } from '@/shared/rules/assessment';
+import type { Assessment } from '@/shared/schemas/assessment';
 
 import { ApprovalReasons } from './approval-reasons';
 import { barrierDistance } from './boundaries-facts';

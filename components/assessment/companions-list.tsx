@@ -4,7 +4,7 @@ import { spacing } from '@/components/theme/tokens';
 import { AppText } from '@/components/ui/app-text';
 import { Badge } from '@/components/ui/badge';
 import { HazardBadge } from '@/components/ui/hazard-badge';
-import type { Assessment } from '@/shared/rules/assessment';
+import type { Assessment } from '@/shared/schemas/assessment';
 
 /** The grounding stick, stand and (above the interlock voltage) interlock the set must carry. */
 export function CompanionsList({ assessment, testID = 'assessment-companions' }: { assessment: Assessment; testID?: string }) {

@@ -1,7 +1,7 @@
 import { StyleSheet, View } from 'react-native';
 
 import { spacing } from '@/components/theme/tokens';
-import type { Assessment } from '@/shared/rules/assessment';
+import type { Assessment } from '@/shared/schemas/assessment';
 
 import { Fact } from './fact';
 import { formatKv, formatSeconds, formatSi } from './quantities';

@@ -3,7 +3,7 @@ import { StyleSheet, View } from 'react-native';
 import { spacing } from '@/components/theme/tokens';
 import { AppText } from '@/components/ui/app-text';
 import { HazardBadge } from '@/components/ui/hazard-badge';
-import type { Assessment } from '@/shared/rules/assessment';
+import type { Assessment } from '@/shared/schemas/assessment';
 
 import { formatSi } from './quantities';
 import { SourceLine } from './source-line';

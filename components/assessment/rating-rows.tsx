@@ -5,7 +5,7 @@ import { useTheme } from '@/components/theme/use-theme';
 import { AppText } from '@/components/ui/app-text';
 import { Badge } from '@/components/ui/badge';
 import { HazardBadge } from '@/components/ui/hazard-badge';
-import type { Assessment } from '@/shared/rules/assessment';
+import type { Assessment } from '@/shared/schemas/assessment';
 import { KIND_LABELS } from '@/shared/schemas/items';
 
 import { formatKv, trimNumber } from './quantities';

@@ -61,6 +61,7 @@ function BenchLogBody({ booking, log, wide }: { booking: Booking; log: BenchRuns
     <Card title={correcting ? `Correct run ${correcting.number}` : 'Add run'} testID="bench-add-run">
       {correcting ? (
         <RunForm
+          bookingId={booking.id}
           key={`edit-${correcting.id}`}
           mode="edit"
           from={correcting}
@@ -73,7 +74,7 @@ function BenchLogBody({ booking, log, wide }: { booking: Booking; log: BenchRuns
           testID="bench-edit-form"
         />
       ) : (
-        <RunForm mode="new" from={last} planPolarity={booking.plan.polarity} onSubmit={(values) => record.mutateAsync(values as BenchRunInput)} testID="bench-run-form" />
+        <RunForm bookingId={booking.id} mode="new" from={last} planPolarity={booking.plan.polarity} onSubmit={(values) => record.mutateAsync(values as BenchRunInput)} testID="bench-run-form" />
       )}
     </Card>
   ) : (

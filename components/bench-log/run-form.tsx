@@ -3,6 +3,7 @@ import { useEffect, useState } from 'react';
 import { useForm, useWatch, type Resolver } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 
+import { BookingPhotoPicker } from '@/components/bookings/booking-photo-picker';
 import { applyServerErrors } from '@/components/bookings/server-errors';
 import { spacing } from '@/components/theme/tokens';
 import { AppText } from '@/components/ui/app-text';
@@ -47,6 +48,7 @@ const FIELDS = [
 ] as const;
 
 interface RunFormProps {
+  bookingId: number;
   /** The run a new one starts from (the last), or the run being corrected. */
   from: BenchRun | undefined;
   mode: 'new' | 'edit';
@@ -61,7 +63,7 @@ interface RunFormProps {
  * thrust, velocity) come first; the setup (gap, stages, device, ambient, geometry) is prefilled
  * from the last run and sits further down.
  */
-export function RunForm({ from, mode, planPolarity, onSubmit, onCancel, testID }: RunFormProps) {
+export function RunForm({ bookingId, from, mode, planPolarity, onSubmit, onCancel, testID }: RunFormProps) {
   const schema = mode === 'edit' ? benchRunEditSchema : benchRunInputSchema;
   const initial = valuesFromRun(from, mode === 'edit');
   const { control, handleSubmit, setError, setValue, getValues, reset, formState } = useForm<RunFormValues>({
@@ -74,6 +76,7 @@ export function RunForm({ from, mode, planPolarity, onSubmit, onCancel, testID }
   // During a sweep the setup stays put: it folds away under a one-line summary once a run exists.
   const [setupOpen, setSetupOpen] = useState(from === undefined || mode === 'edit');
   const polarity = useWatch({ control, name: 'polarity' });
+  const photoFileId = useWatch({ control, name: 'photoFileId' });
 
   // After a run is recorded the form starts again from it, ready for the next point.
   useEffect(() => {
@@ -144,6 +147,15 @@ export function RunForm({ from, mode, planPolarity, onSubmit, onCancel, testID }
       )}
       <FormNumberField control={control} name="velocityMps" label="Airflow velocity" unit="m/s" hint="Optional" testID={`${testID}-velocity`} />
       <FormTextField control={control} name="notes" label="Notes" multiline testID={`${testID}-notes`} />
+      <View style={styles.form}>
+        <AppText variant="bodyStrong">Photo of the setup (optional)</AppText>
+        <BookingPhotoPicker bookingId={bookingId} fileId={photoFileId} onChange={(id) => setValue('photoFileId', id)} subject="the bench setup for this run" testID={`${testID}-photo`} />
+        {formState.errors.photoFileId?.message ? (
+          <AppText variant="smallStrong" tone="error">
+            {formState.errors.photoFileId.message}
+          </AppText>
+        ) : null}
+      </View>
       {showSetup ? null : (
         <View style={styles.setup} testID={`${testID}-setup-summary`}>
           <AppText variant="small">{setupSummary(from)}</AppText>

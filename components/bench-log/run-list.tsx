@@ -1,8 +1,8 @@
 import { useState } from 'react';
-import { StyleSheet, View } from 'react-native';
+import { Image, StyleSheet, View } from 'react-native';
 
 import { formatDateTime } from '@/components/common/format';
-import { borders, radii, spacing } from '@/components/theme/tokens';
+import { borders, layout, radii, spacing } from '@/components/theme/tokens';
 import { useTheme } from '@/components/theme/use-theme';
 import { AppText } from '@/components/ui/app-text';
 import { Badge } from '@/components/ui/badge';
@@ -10,6 +10,7 @@ import { Button } from '@/components/ui/button';
 import { HazardBadge } from '@/components/ui/hazard-badge';
 import { TextField } from '@/components/ui/text-field';
 import { describeError } from '@/components/ui/error-state';
+import { bookingPhotoUrl } from '@/hooks/use-booking-photos';
 import { useDeleteRunMutation, useRunRevisionsQuery } from '@/hooks/use-bench-runs';
 import type { BenchRun } from '@/shared/schemas/bench-runs';
 
@@ -68,6 +69,9 @@ function RunCard({ bookingId, run, canCorrect, canRemove, onCorrect }: { booking
         {run.temperatureC !== null ? <AppText variant="small" tone="muted">{`Ambient ${sig(run.temperatureC)} °C, ${sig(run.pressureKpa, 4)} kPa, ${run.humidityPct === null ? 'humidity not given (dry air assumed)' : `${sig(run.humidityPct)} % RH`}`}</AppText> : null}
       </View>
       {run.notes ? <AppText variant="small">{`Notes: ${run.notes}`}</AppText> : null}
+      {run.photoFileId !== null ? (
+        <Image source={{ uri: bookingPhotoUrl(run.photoFileId) }} style={[styles.photo, { backgroundColor: colors.surfaceMuted }]} resizeMode="cover" accessibilityLabel={`Photo of the setup for run ${run.number}`} testID={`${testID}-photo`} />
+      ) : null}
       <View style={styles.actions}>
         {canCorrect ? <Button label="Correct" icon="pencil" variant="secondary" onPress={() => onCorrect(run)} testID={`${testID}-correct`} /> : null}
         {run.revision > 1 ? <Button label={history ? 'Hide history' : 'History'} variant="secondary" icon={history ? 'chevron-up' : 'chevron-down'} onPress={() => setHistory((h) => !h)} testID={`${testID}-history`} /> : null}
@@ -114,4 +118,5 @@ const styles = StyleSheet.create({
   flag: { gap: spacing.xxs },
   figures: { gap: spacing.xxs },
   actions: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.xs },
+  photo: { width: layout.markSizeLarge * 2, height: layout.markSizeLarge * 2, borderRadius: radii.sm },
 });

@@ -3,7 +3,7 @@
 // Everything here is generated demo data for the invented lab.
 import bcrypt from 'bcrypt';
 import type { Db } from '../../server/db';
-import { bookingItemTags } from '../../server/services/bookings';
+import { bookingItemTags } from '../../server/services/booking-rows';
 import { addDaysIso, todayIso } from '../../server/services/dates';
 import { insertSearchable, seedItems } from '../seed-scale';
 

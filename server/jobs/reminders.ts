@@ -2,32 +2,12 @@
 // same moment, the outbox holds one copy and the worker sends it once.
 import type { Db } from '../db';
 import { enqueueMail } from '../mail/outbox';
-import { messages, type BookingFacts } from '../mail/messages';
-import { addDaysIso, timestampToIso, todayIso } from '../services/dates';
+import { messages } from '../mail/messages';
+import { bookingFacts } from '../services/booking-mail';
+import { addDaysIso, todayIso } from '../services/dates';
 import { getLabRules } from '../services/lab-rules';
 import { pastDueActions } from '../services/incidents';
 import { pastDueActionLines } from '../mail/incident-messages';
-
-async function bookingFacts(db: Db, ids: number[]): Promise<Map<number, BookingFacts & { personEmail: string; endsAtDate: Date }>> {
-  if (ids.length === 0) return new Map();
-  // The tags come from the booking row's own copy (bookings.item_tags), as in the bookings list.
-  const rows = await db('bookings as b').join('people as p', 'p.id', 'b.person_id').whereIn('b.id', ids).select('b.id', 'b.ends_at', 'b.planned_kv', 'b.purpose', 'b.item_tags', 'p.name', 'p.email');
-  return new Map(
-    rows.map((r) => [
-      r.id,
-      {
-        id: r.id,
-        personName: r.name,
-        personEmail: r.email,
-        plannedKv: Number(r.planned_kv),
-        purpose: r.purpose,
-        endsAt: timestampToIso(r.ends_at)!,
-        endsAtDate: new Date(r.ends_at),
-        itemTags: JSON.parse(r.item_tags) as string[],
-      },
-    ]),
-  );
-}
 
 export async function enqueueOverdueReminders(db: Db, publicUrl: string, now = new Date()): Promise<number> {
   const rules = await getLabRules(db);

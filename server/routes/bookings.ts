@@ -17,20 +17,12 @@ import { ForbiddenError } from '../errors';
 import { receivedFile, uploadReader } from '../middleware/receive-upload';
 import { currentUser, requireRole, requireSignedIn } from '../middleware/require-role';
 import { validate } from '../middleware/validate';
-import {
-  assessPlan,
-  cancelBooking,
-  createBooking,
-  decideApproval,
-  getBooking,
-  listBookings,
-  previewRelease,
-  recordScan,
-  releaseBooking,
-  returnBooking,
-  submitChecklist,
-  updateBooking,
-} from '../services/bookings';
+import { decideApproval } from '../services/booking-approvals';
+import { assessPlan } from '../services/booking-assessment';
+import { recordScan, returnBooking, submitChecklist } from '../services/booking-counter';
+import { cancelBooking, createBooking, updateBooking } from '../services/booking-plans';
+import { previewRelease, releaseBooking } from '../services/booking-release';
+import { getBooking, listBookings } from '../services/booking-view';
 import { storeBookingPhoto } from '../services/booking-photos';
 import { listChecklistRuns } from '../services/checklist-records';
 import type { ObjectStore } from '../storage/object-store';

@@ -8,9 +8,11 @@ import { receivedFile, uploadReader } from '../middleware/receive-upload';
 import { currentUser, requireRole, requireSignedIn } from '../middleware/require-role';
 import { validate } from '../middleware/validate';
 import { listAudit } from '../services/audit-trail';
-import { itemAvailability, itemBookingHistory } from '../services/bookings';
+import { itemAvailability, itemBookingHistory } from '../services/booking-availability';
 import { listItemFiles, storeItemFile } from '../services/files';
-import { createItem, getItem, getItemByTag, listInspections, listItems, recordInspection, toItem, updateItem } from '../services/items';
+import { listInspections, recordInspection } from '../services/inspections';
+import { listItems } from '../services/item-search';
+import { createItem, getItem, getItemByTag, toItem, updateItem } from '../services/items';
 import { labelSvg, singleLabelPdf } from '../services/labels';
 import type { ObjectStore } from '../storage/object-store';
 

@@ -9,7 +9,8 @@ import { AppError, ConflictError, ForbiddenError, NotFoundError } from '../error
 import { enqueueDeferred, enqueueMail } from '../mail/enqueue';
 import { messages, type MailContent } from '../mail/messages';
 import { appendAudit, auditedTransaction } from './audit';
-import { cancelOpenBookingsOf, lockOpenBookingsOf, type MailContext } from './bookings';
+import { cancelOpenBookingsOf, lockOpenBookingsOf } from './booking-cascades';
+import type { MailContext } from './booking-rows';
 import { endSessionsOf } from './people';
 
 const INVITATION_HOURS = 7 * 24;

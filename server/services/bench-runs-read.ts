@@ -7,7 +7,7 @@ import type { SessionUser } from '../../shared/schemas/session';
 import type { Db, Trx } from '../db';
 import { NotFoundError } from '../errors';
 import { canSeeBooking } from './booking-access';
-import type { BookingRow } from './bookings';
+import type { BookingRow } from './booking-rows';
 import { timestampToIso } from './dates';
 
 /** Runs may still be typed up this long after the gear came back. */

@@ -14,7 +14,7 @@ import { enqueueMail } from '../mail/enqueue';
 import { appendAudit, auditedTransaction } from './audit';
 import { assertCounterAccess, lockBooking } from './booking-access';
 import { bookingPhotoIdsAmong } from './booking-photos';
-import { planOf, type BookingRow } from './bookings';
+import { planOf, type BookingRow } from './booking-rows';
 import { timestampToIso } from './dates';
 import { benchLogOpen, BENCH_LOG_GRACE_HOURS, runRows, type BenchRunRow } from './bench-runs-read';
 

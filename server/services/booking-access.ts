@@ -3,7 +3,7 @@
 import type { Role, SessionUser } from '../../shared/schemas/session';
 import type { Trx } from '../db';
 import { NotFoundError } from '../errors';
-import type { BookingRow } from './bookings';
+import type { BookingRow } from './booking-rows';
 
 export const STAFF: Role[] = ['officer', 'manager'];
 

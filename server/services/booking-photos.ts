@@ -8,7 +8,7 @@ import { AppError, ConflictError, NotFoundError } from '../errors';
 import type { ObjectStore } from '../storage/object-store';
 import { appendAudit } from './audit';
 import { assertCounterAccess, lockBooking } from './booking-access';
-import type { BookingRow } from './bookings';
+import type { BookingRow } from './booking-rows';
 import { checkUpload } from './file-content';
 import { describeFile, insertFileRow, storeThenRecord } from './files';
 

@@ -1,7 +1,7 @@
 // What an officer's approval covers. The approval stores this basis; any difference between it and
 // the booking as it stands now means the officer never reviewed what would be released, so the
 // approval no longer counts (the booking goes back to the officer, and release refuses).
-import type { AssessedItem, Assessment } from './assessment';
+import type { AssessedItem, Assessment } from '../schemas/assessment';
 import type { ItemKind } from '../schemas/items';
 import type { TestPlan } from '../schemas/bookings';
 import { canonical } from '../canonical-json';

@@ -2,7 +2,7 @@
 // on the rows it has locked and refuses with every failed rule; the app runs the same code to show
 // the member what still stands in the way.
 import { basisChanges, type ApprovalBasis } from './approval-basis';
-import type { Assessment, Reason } from './assessment';
+import type { Assessment, Reason } from '../schemas/assessment';
 import { checklistCoverage } from './checklist-coverage';
 import type { BookingStatus, ChecklistAnswerRecord, ChecklistEntry } from '../schemas/bookings';
 

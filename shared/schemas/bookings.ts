@@ -2,7 +2,7 @@
 import { z } from 'zod';
 // Installs the shared error map (plain words with units) wherever a schema is used.
 import '../zod-errors';
-import type { Assessment } from '../rules/assessment';
+import type { Assessment } from './assessment';
 import { BOOKING_WINDOW } from '../rules/booking-window';
 import { polaritySchema, type ItemSummary } from './items';
 

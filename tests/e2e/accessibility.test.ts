@@ -4,7 +4,7 @@
 // each one at both viewports in both schemes for review.
 import path from 'node:path';
 import type { Page } from 'playwright-core';
-import { createBooking } from '../../server/services/bookings';
+import { createBooking } from '../../server/services/booking-plans';
 import { insertKit, qualify } from '../helpers/gear';
 import { createPerson } from '../helpers/test-app';
 import { e2eSuite, expectAccessible, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, WIDE } from '../helpers/e2e';

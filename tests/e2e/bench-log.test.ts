@@ -3,8 +3,11 @@
 // word, the booking page names the run beyond the plan, the officers' e-mail is queued once, and
 // a logger's CSV goes in through the mapping and preview. Charts load with their summaries.
 import path from 'node:path';
+import { PNG } from 'pngjs';
 import type { Page } from 'playwright-core';
-import { createBooking, recordScan, releaseBooking, submitChecklist } from '../../server/services/bookings';
+import { createBooking } from '../../server/services/booking-plans';
+import { recordScan, submitChecklist } from '../../server/services/booking-counter';
+import { releaseBooking } from '../../server/services/booking-release';
 import type { ChecklistEntry } from '../../shared/schemas/bookings';
 import { insertKit, plan, qualify, windowFromNow } from '../helpers/gear';
 import { createPerson } from '../helpers/test-app';
@@ -63,15 +66,27 @@ it('records runs from the booking page, flags them in words, and imports a logge
     await expect(page.getByTestId('bench-run-form-current').inputValue()).resolves.toBe('100');
     await fill(page, 'bench-run-form-current', '200');
     await fill(page, 'bench-run-form-thrust', '60');
+    // A photo of the setup goes with this point: taken through the same chooser as a checklist photo.
+    const chooser = page.waitForEvent('filechooser');
+    await page.getByTestId('bench-run-form-photo-photo').click();
+    const photo = new PNG({ width: 40, height: 30 });
+    for (let i = 0; i < photo.data.length; i += 4) photo.data.set([40, 90, 200, 255], i);
+    await (await chooser).setFiles({ name: 'mesh-gap-30.png', mimeType: 'image/png', buffer: PNG.sync.write(photo) });
+    await page.getByTestId('bench-run-form-photo-file-name').filter({ hasText: 'mesh-gap-30.png' }).waitFor({ timeout: 15_000 });
     await page.getByTestId('bench-run-form-submit').click();
     await page.getByTestId('bench-run-2-flag-above-plan-kv').waitFor({ timeout: 15_000 });
     await expect(page.getByTestId('bench-run-2-flag-above-plan-kv').textContent()).resolves.toContain('DANGER');
     await expect(page.getByTestId('bench-run-2-flag-thrust-above-ehd-bound').textContent()).resolves.toContain('Thrust above 1-D bound');
     await expect(page.getByTestId('bench-run-2').textContent()).resolves.toContain('200 µA');
-    const stored = await suite.server.db('bench_runs').where({ booking_id: booking.id }).orderBy('number').select('current_ma', 'current_unit', 'temperature_c');
+    // The run names its photo, shown on the run; the next point starts without one.
+    await page.getByTestId('bench-run-2-photo').waitFor();
+    await expect(page.getByTestId('bench-run-form-photo-attached').count()).resolves.toBe(0);
+    const stored = await suite.server.db('bench_runs').where({ booking_id: booking.id }).orderBy('number').select('current_ma', 'current_unit', 'temperature_c', 'photo_file_id');
+    const [photoRow] = await suite.server.db('item_files').where({ booking_id: booking.id, file_name: 'mesh-gap-30.png' }).select('id');
+    expect(photoRow).toBeDefined();
     expect(stored).toEqual([
-      { current_ma: 0.1, current_unit: 'mA', temperature_c: 21 },
-      { current_ma: 0.2, current_unit: 'uA', temperature_c: 21 },
+      { current_ma: 0.1, current_unit: 'mA', temperature_c: 21, photo_file_id: null },
+      { current_ma: 0.2, current_unit: 'uA', temperature_c: 21, photo_file_id: photoRow!.id },
     ]);
     const mails = await suite.server.db('outbox').where('dedupe_key', 'like', `bench-run-beyond-plan:${booking.id}:%`);
     expect(mails.length).toBe(Number((await suite.server.db('people').where({ role: 'officer', active: true }).count<{ n: number }[]>('id as n'))[0]!.n));

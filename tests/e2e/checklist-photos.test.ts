@@ -4,7 +4,7 @@
 import path from 'node:path';
 import { PNG } from 'pngjs';
 import type { Page } from 'playwright-core';
-import { createBooking } from '../../server/services/bookings';
+import { createBooking } from '../../server/services/booking-plans';
 import { KIND_LABELS } from '../../shared/schemas/items';
 import { insertItem, insertKit, plan, qualify, windowFromNow } from '../helpers/gear';
 import { createPerson } from '../helpers/test-app';

@@ -2,7 +2,7 @@
 // the fake SMTP server must receive each overdue message exactly once.
 import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
-import { bookingItemTags } from '../../../server/services/bookings';
+import { bookingItemTags } from '../../../server/services/booking-rows';
 import { startFakeSmtp, type FakeSmtp } from '../../../server/mail/fake-smtp';
 import { MAIL_TEST_DATABASE } from '../../../scripts/lib/test-database';
 import { insertKit } from '../../helpers/gear';

@@ -1,7 +1,8 @@
 // The release and return rules (shared/rules), one case per rule, per boundary and per
 // combination that must refuse. Pure: the same functions run in the release transaction and in the app.
 import { approvalBasisOf, basisChanges, type ApprovalBasis } from '../../../shared/rules/approval-basis';
-import { assessSetup, type AssessedItem } from '../../../shared/rules/assessment';
+import { assessSetup } from '../../../shared/rules/assessment';
+import type { AssessedItem } from '../../../shared/schemas/assessment';
 import { bookingWindowErrors, BOOKING_WINDOW } from '../../../shared/rules/booking-window';
 import { checklistCoverage } from '../../../shared/rules/checklist-coverage';
 import { rulesForPerson, strictestRules } from '../../../shared/rules/lab-rules';
