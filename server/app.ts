@@ -30,6 +30,8 @@ import { requestLog } from './middleware/request-log';
 import { noStore } from './middleware/no-store';
 import { serverTiming } from './middleware/server-timing';
 import { healthRouter } from './routes/health';
+import { incidentsRouter } from './routes/incidents';
+import { calendarFeedRouter, calendarFileRouter } from './routes/calendar-feed';
 import { groupsRouter, peopleRouter, qualificationsRouter } from './routes/people';
 import { sessionRouter } from './routes/session';
 import { webRouter } from './web';
@@ -132,8 +134,11 @@ export function createApp({ db, config, logger, objectStore, mailbox, mountBefor
   // The local fake SMTP's messages: only when it is in use, and never in production.
   app.use('/api/mailbox', mailboxRouter(config.env === 'production' ? undefined : mailbox));
   app.use('/api/reports', reportsRouter(db));
+  app.use('/api/incidents', incidentsRouter(db, config, store));
+  app.use('/api/calendar-feed', calendarFeedRouter(db, config));
 
   app.use('/api', apiNotFound);
+  app.use('/cal', calendarFileRouter(db, config));
   app.use(webRouter(config.webDir));
   app.use(errorHandler(logger));
   return app;

@@ -26,6 +26,7 @@ export default function AppLayout() {
       <Tabs.Screen name="bookings" />
       <Tabs.Screen name="more" />
       <Tabs.Screen name="planner" />
+      <Tabs.Screen name="incidents" />
       {/* Role groups guard themselves (RoleGate in each group's layout), so a URL outside the
           person's role says whom the page is for instead of landing silently on Today. */}
       <Tabs.Screen name="(officer)" />

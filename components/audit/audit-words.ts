@@ -7,6 +7,7 @@ import { formatKv } from '@/components/assessment/quantities';
 import { roleLabels } from '@/components/common/roles';
 import { formatDay } from '@/components/items/format-dates';
 import type { AuditEvent } from '@/shared/schemas/audit';
+import { incidentKindWords, type IncidentKind } from '@/shared/schemas/incidents';
 import type { Role } from '@/shared/schemas/session';
 
 export interface AuditWords {
@@ -77,6 +78,7 @@ export function auditWords(event: AuditEvent): AuditWords {
   const item = subject.tag ? `${subject.tag} (${subject.name ?? 'item'})` : `item #${id}`;
   const itemLink = { href: `/gear/${id}` as Href, label: `Open ${subject.tag ?? `item #${id}`}` };
   const personName = subject.personName ?? `person #${id}`;
+  const incidentLink = { href: `/incidents/${id}` as Href, label: `Open incident #${id}` };
   const say = (sentence: string, detail: string | null, link: AuditWords['link']): AuditWords => ({ sentence, detail, link });
 
   switch (event.action) {
@@ -130,6 +132,35 @@ export function auditWords(event: AuditEvent): AuditWords {
       return say(`${who} tagged ${item} out of service.`, text(after.statusReason), itemLink);
     case 'item.tagged-out-at-return':
       return say(`${who} tagged ${item} out of service when it came back damaged.`, text(after.statusReason), itemLink);
+    case 'item.tagged-out-for-incident':
+      return say(`${who} tagged ${item} out of service with an incident report.`, text(after.statusReason), itemLink);
+    case 'incident.reported': {
+      const kind = text(after.kind);
+      const severity = text(after.severity);
+      const words = kind && kind in incidentKindWords ? incidentKindWords[kind as IncidentKind].label.toLowerCase() : 'an incident';
+      const out = Array.isArray(after.taggedOut) && after.taggedOut.length > 0 ? `; ${(after.taggedOut as string[]).join(', ')} taken out of service` : '';
+      return say(`${who} reported ${words}${severity ? ` (${severity})` : ''} as incident #${id}${out}.`, text(after.description), incidentLink);
+    }
+    case 'incident.under-review':
+      return say(`${who} started reviewing incident #${id}.`, null, incidentLink);
+    case 'incident.reopened':
+      return say(`${who} set incident #${id} back to open.`, null, incidentLink);
+    case 'incident.updated':
+      return say(`${who} updated the review of incident #${id}.`, text(after.cause) ? `Cause: ${text(after.cause)}` : null, incidentLink);
+    case 'incident.closed':
+      return say(`${who} closed incident #${id} with its cause and corrective actions.`, text(after.cause) ? `Cause: ${text(after.cause)}` : null, incidentLink);
+    case 'incident.action-done':
+      return say(`${who} marked a corrective action of incident #${id} done.`, text(after.action), incidentLink);
+    case 'incident.action-reopened':
+      return say(`${who} marked a corrective action of incident #${id} not done after all.`, text(after.action), incidentLink);
+    case 'incident.photo-added':
+      return say(`${who} added a photo to incident #${id}.`, null, incidentLink);
+    case 'calendar-feed.created':
+      return say(`${who} turned on their private calendar feed.`, null, null);
+    case 'calendar-feed.rotated':
+      return say(`${who} gave their calendar feed a new address; the old one no longer works.`, null, null);
+    case 'calendar-feed.revoked':
+      return say(`${who} turned off their calendar feed.`, null, null);
     case 'item.cleared':
       return say(`${who} put ${item} back in service.`, null, itemLink);
     case 'item.retired':

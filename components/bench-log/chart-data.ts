@@ -27,6 +27,8 @@ export interface ChartModel {
   title: string;
   xLabel: string;
   yLabel: string;
+  /** Named x positions (weeks, months, groups) in place of numeric ticks. */
+  xTicks?: { x: number; label: string }[];
   series: ChartSeries[];
   summary: string;
 }

@@ -48,11 +48,11 @@ export function ScatterChart({ model, testID }: { model: ChartModel; testID: str
       <View accessibilityElementsHidden importantForAccessibility="no-hide-descendants" aria-hidden>
         <Svg width={width} height={HEIGHT}>
           <G>
-            {x.ticks(6).map((t) => (
-              <G key={`x${t}`}>
-                <Line x1={x(t)} x2={x(t)} y1={MARGIN.top} y2={HEIGHT - MARGIN.bottom} stroke={colors.border} strokeWidth={1} />
-                <SvgText x={x(t)} y={HEIGHT - MARGIN.bottom + 16} fontSize={font} fill={colors.textMuted} textAnchor="middle">
-                  {String(t)}
+            {(model.xTicks ?? x.ticks(6).map((t) => ({ x: t, label: String(t) }))).map((t) => (
+              <G key={`x${t.x}`}>
+                <Line x1={x(t.x)} x2={x(t.x)} y1={MARGIN.top} y2={HEIGHT - MARGIN.bottom} stroke={colors.border} strokeWidth={1} />
+                <SvgText x={x(t.x)} y={HEIGHT - MARGIN.bottom + 16} fontSize={font} fill={colors.textMuted} textAnchor="middle">
+                  {t.label}
                 </SvgText>
               </G>
             ))}

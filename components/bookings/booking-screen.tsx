@@ -16,6 +16,7 @@ import { BookingFacts, BookingItems } from './booking-facts';
 import { BookingNextStep } from './booking-next-step';
 import { BookingStatusBadge } from './booking-status';
 import { ChecklistRecord } from './checklist-record';
+import { RelatedIncidentsCard } from '@/components/incidents/related-incidents-card';
 
 /** One booking: its state and next step first, then plan, approval, gear and the stored assessment. */
 export function BookingScreen({ id }: { id: number }) {
@@ -45,6 +46,7 @@ function BookingBody({ booking, wide }: { booking: Booking; wide: boolean }) {
       <BookingFacts booking={booking} />
       <BookingItems booking={booking} />
       <ChecklistRecord bookingId={booking.id} />
+      <RelatedIncidentsCard bookingId={booking.id} />
     </View>
   );
   const assessment = (

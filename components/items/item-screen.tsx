@@ -17,6 +17,8 @@ import { ERROR_CODES } from '@/shared/errors';
 import type { Item } from '@/shared/schemas/items';
 import type { Role } from '@/shared/schemas/session';
 
+import { RelatedIncidentsCard, ReportProblemButton } from '@/components/incidents/related-incidents-card';
+
 import { BackToGear } from './back-to-gear';
 import { ItemActions } from './item-actions';
 import { ItemBookingsCard } from './item-bookings-card';
@@ -80,6 +82,7 @@ function ItemBody({ item, role, isWide }: { item: Item; role: Role; isWide: bool
         </View>
       ) : null}
       <ItemActions item={item} role={role} />
+      <ReportProblemButton itemId={item.id} />
       <ItemPhoto item={item} />
       <ItemRatingsCard item={item} />
       <ItemLabelCard item={item} canPrint={isStaff} />
@@ -90,6 +93,7 @@ function ItemBody({ item, role, isWide }: { item: Item; role: Role; isWide: bool
       <ItemInspectionsCard item={item} />
       <ItemFilesCard item={item} canUpload={isManager} />
       <ItemBookingsCard itemId={item.id} canOpen={isStaff} />
+      <RelatedIncidentsCard itemId={item.id} withButton={false} />
       <ItemHistoryCard itemId={item.id} />
     </>
   );

@@ -1,5 +1,6 @@
 import { StyleSheet, View } from 'react-native';
 
+import { LazyCalendarFeedCard } from '@/components/calendar/lazy-calendar-feed-card';
 import { roleLabels } from '@/components/common/roles';
 import { roleEntries, toolEntries, type NavEntry } from '@/components/navigation/nav-model';
 import { setThemePreference, useThemePreference } from '@/components/theme/theme-preference';
@@ -42,6 +43,8 @@ export function MoreScreen() {
           </View>
         </Card>
       ) : null}
+
+      {user ? <LazyCalendarFeedCard role={user.role} /> : null}
 
       <Card title="Appearance">
         <ChoiceChips

@@ -41,6 +41,7 @@ export const tabEntries: readonly NavEntry[] = [
 /** Everything past the bottom bar: on the More screen on a phone, in the side navigation when wide. */
 const extraEntries: readonly NavEntry[] = [
   { name: 'planner', label: 'Planner', href: '/planner', icon: 'calculator-variant', area: 'everyone' },
+  { name: 'incidents', label: 'Incidents', href: '/incidents', icon: 'alert-octagon', area: 'everyone' },
   { name: 'approvals', label: 'Approvals', href: '/approvals', icon: 'clipboard-check', area: 'officer' },
   { name: 'lab-rules', label: 'Lab rules', href: '/lab-rules', icon: 'book-cog', area: 'officer' },
   { name: 'qualifications', label: 'Qualifications', href: '/qualifications', icon: 'badge-account', area: 'officer' },

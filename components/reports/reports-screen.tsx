@@ -1,8 +1,9 @@
-import { useState } from 'react';
+import { lazy, Suspense, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { spacing } from '@/components/theme/tokens';
 import { AppText } from '@/components/ui/app-text';
+import { LoadingState } from '@/components/ui/loading-state';
 import { Screen } from '@/components/ui/screen';
 import { useBreakpoints } from '@/hooks/use-breakpoints';
 
@@ -10,6 +11,9 @@ import { InspectionsSection } from './inspections-section';
 import { OverdueSection } from './overdue-section';
 import { DEFAULT_PRESET, lastDays } from './period';
 import { UsageSection } from './usage-section';
+
+// The charts bring react-native-svg and d3: a chunk of their own, after the tables.
+const ReportCharts = lazy(() => import('./report-charts').then((m) => ({ default: m.ReportCharts })));
 
 /** The lab manager's reading: how the gear was used, what is overdue, what needs inspecting. */
 export function ReportsScreen() {
@@ -25,7 +29,7 @@ export function ReportsScreen() {
 
   return (
     <Screen testID="reports-screen" title="Reports" width={isWide ? 'wide' : 'regular'}>
-      <AppText tone="muted">Use per research group, bookings overdue now and inspections coming due. Each downloads as CSV.</AppText>
+      <AppText tone="muted">Use per research group, bookings overdue now, inspections coming due, charts of use, returns and incidents, and the monthly safety summary. Each downloads as CSV.</AppText>
       {isWide ? (
         <View style={styles.columns}>
           <View style={styles.column}>
@@ -39,6 +43,9 @@ export function ReportsScreen() {
           <UsageSection period={period} onPeriodChange={setPeriod} />
         </>
       )}
+      <Suspense fallback={<LoadingState label="Loading the charts" />}>
+        <ReportCharts period={period} />
+      </Suspense>
     </Screen>
   );
 }

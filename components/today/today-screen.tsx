@@ -13,6 +13,8 @@ import { Screen } from '@/components/ui/screen';
 import { useBreakpoints } from '@/hooks/use-breakpoints';
 import { useCurrentUser } from '@/hooks/use-session';
 
+import { LazyTodayIncidents } from '@/components/incidents/lazy-today-incidents';
+
 import { DeskOverview } from './desk-overview';
 import { ApprovalsWaiting, MyGearOut, MyNextBookings } from './today-lists';
 
@@ -42,6 +44,7 @@ export function TodayScreen() {
       {user ? (
         <>
           <DeskOverview role={user.role} />
+          <LazyTodayIncidents role={user.role} />
           {user.role === 'officer' ? <ApprovalsWaiting officerId={user.id} /> : null}
           <MyGearOut />
           <MyNextBookings />

@@ -6,6 +6,8 @@ import { messages } from '../mail/messages';
 import { bookingFacts } from '../services/booking-mail';
 import { addDaysIso, todayIso } from '../services/dates';
 import { getLabRules } from '../services/lab-rules';
+import { pastDueActions } from '../services/incidents';
+import { pastDueActionLines } from '../mail/incident-messages';
 
 export async function enqueueOverdueReminders(db: Db, publicUrl: string, now = new Date()): Promise<number> {
   const rules = await getLabRules(db);
@@ -33,7 +35,8 @@ export async function enqueueInspectionDigests(db: Db, publicUrl: string, today 
     .orderBy('next_inspection_due')
     .limit(101)
     .select('id', 'tag', 'name', 'next_inspection_due');
-  if (due.length === 0) return 0;
+  const actions = await pastDueActions(db, null, today);
+  if (due.length === 0 && actions.length === 0) return 0;
   const managers = await db('people').where({ role: 'manager', active: true }).select('id', 'email');
   const toDue = (i: { tag: string; name: string; next_inspection_due: string }) => ({ tag: i.tag, name: i.name, dueOn: i.next_inspection_due });
   const content = messages.inspectionDigest(
@@ -41,6 +44,7 @@ export async function enqueueInspectionDigests(db: Db, publicUrl: string, today 
     due.filter((i) => i.next_inspection_due < today).map(toDue),
     due.filter((i) => i.next_inspection_due >= today).map(toDue),
     today,
+    pastDueActionLines(actions),
   );
   let queued = 0;
   for (const manager of managers) {

@@ -12,7 +12,7 @@ function escapeHtml(value: string): string {
   return value.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 }
 
-function compose(subject: string, lines: string[], link: { url: string; label: string }): MailContent {
+export function compose(subject: string, lines: string[], link: { url: string; label: string }): MailContent {
   const text = [...lines, '', `${link.label}: ${link.url}`, '', '— Voltcrib, the lab’s HV gear register'].join('\n');
   const html = [
     '<div style="font-family: sans-serif; font-size: 16px; line-height: 1.5">',
@@ -81,7 +81,8 @@ export const messages = {
       { url: `${baseUrl}/bookings/${b.id}`, label: 'Open the booking' },
     );
   },
-  inspectionDigest(baseUrl: string, overdue: DueItem[], soon: DueItem[], today: string): MailContent {
+  /** `actionLines`: corrective actions of incidents past their due date (incident-messages.ts). */
+  inspectionDigest(baseUrl: string, overdue: DueItem[], soon: DueItem[], today: string, actionLines: string[] = []): MailContent {
     const line = (i: DueItem) => `${i.tag} ${i.name}: due ${mailDay(i.dueOn)}`;
     return compose(
       `Inspections: ${overdue.length} overdue, ${soon.length} due within 7 days (${mailDay(today)})`,
@@ -91,6 +92,7 @@ export const messages = {
         soon.length ? 'Due within 7 days (cannot be released after the date):' : '',
         ...soon.slice(0, 50).map(line),
         overdue.length + soon.length > 100 ? 'More items are due; see the gear list.' : '',
+        ...actionLines,
       ].filter(Boolean),
       { url: `${baseUrl}/gear`, label: 'Open the gear list' },
     );

@@ -97,7 +97,7 @@ export function bookingsRouter(db: Db, config: Config, store: ObjectStore): Rout
   });
   router.post('/:id/return', async (req, res) => {
     const bookingId = id(req);
-    res.json({ booking: await returnBooking(db, currentUser(req), bookingId, validate(returnSchema, req.body ?? {}, 'return')) });
+    res.json({ booking: await returnBooking(db, currentUser(req), bookingId, validate(returnSchema, req.body ?? {}, 'return'), mail) });
   });
   return router;
 }

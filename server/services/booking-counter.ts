@@ -15,7 +15,7 @@ import { lockItems } from './booking-holds';
 import { bookingPhotoIdsAmong } from './booking-photos';
 import { getBooking } from './booking-view';
 import { activeTemplates, applicableEntries, evaluateAnswers } from './checklists';
-import { tagOutInTransaction } from './item-rows';
+import { recordIncidentInTransaction, type IncidentMail } from './incidents';
 import { labRulesFor } from './lab-rules';
 
 export async function recordScan(db: Db, actor: SessionUser, id: number, tag: string): Promise<Booking> {
@@ -73,7 +73,7 @@ export async function submitChecklist(db: Db, actor: SessionUser, id: number, in
   return getBooking(db, actor, id);
 }
 
-export async function returnBooking(db: Db, actor: SessionUser, id: number, input: { damagedItemIds: number[]; notes: string }): Promise<Booking> {
+export async function returnBooking(db: Db, actor: SessionUser, id: number, input: { damagedItemIds: number[]; notes: string }, mail: IncidentMail): Promise<Booking> {
   await auditedTransaction(db, async (trx) => {
     const row = await lockBooking(trx, id);
     assertCounterAccess(actor, row);
@@ -86,11 +86,18 @@ export async function returnBooking(db: Db, actor: SessionUser, id: number, inpu
     const failures = returnFailures({ status: row.status, planVersion: row.plan_version, checklistEntries: entriesFor(templates, 'return', row, items, rules), checklist: runs.return });
     if (failures.length > 0) throw new ConflictError('Return refused: the gear is not yet made safe.', ERROR_CODES.returnRefused, failures);
 
-    for (const itemId of input.damagedItemIds) {
-      await trx('incidents').insert({ booking_id: id, item_id: itemId, kind: 'damage', description: input.notes, reported_by: actor.id });
-      await tagOutInTransaction(trx, actor.id, itemId, `Damaged on return of booking ${id}: ${input.notes}`, 'item.tagged-out-at-return');
-    }
     const now = new Date();
+    // Damage found at return is an incident like any other (issue 17): one report naming the
+    // damaged items, tagged out in this transaction, and the officers e-mailed once.
+    if (input.damagedItemIds.length > 0) {
+      await recordIncidentInTransaction(
+        trx,
+        actor,
+        { kind: 'damage', severity: 'moderate', occurredAt: now.toISOString(), location: row.location, description: input.notes, itemIds: input.damagedItemIds, bookingId: id, tagOut: true },
+        mail,
+        { tagOutAction: 'item.tagged-out-at-return', tagOutReason: `Damaged on return of booking ${id}: ${input.notes}` },
+      );
+    }
     await trx('bookings').where({ id }).update({ status: 'returned', returned_at: now, updated_at: now });
     await trx('booking_items').where({ booking_id: id }).update({ live: false });
     await appendAudit(trx, {

@@ -13,11 +13,13 @@ import { appendAudit, auditedTransaction } from './audit';
 import { canSeeBooking } from './booking-access';
 import { timestampToIso } from './dates';
 import { checkUpload, type CheckedFile, type FileKind } from './file-content';
+import { canSeeIncident } from './incidents';
 
 export interface FileRow {
   id: number;
   item_id: number | null;
   booking_id: number | null;
+  incident_id?: number | null;
   kind: FileKind;
   file_name: string;
   content_type: string;
@@ -127,10 +129,11 @@ export async function listItemFiles(db: Db, itemId: number): Promise<ItemFile[]>
  */
 export async function readFile(db: Db, store: ObjectStore, actor: SessionUser, fileId: number): Promise<{ file: ReturnType<typeof describeFile>; body: Buffer }> {
   const row = (await db('item_files as f').leftJoin('bookings as b', 'b.id', 'f.booking_id').where('f.id', fileId).first('f.*', 'b.person_id as booking_person_id')) as
-    | (FileRow & { booking_person_id: number | null })
+    | (FileRow & { booking_person_id: number | null; incident_id: number | null })
     | undefined;
   if (!row) throw new NotFoundError(`No file with id ${fileId}.`);
   if (row.booking_id !== null && !canSeeBooking(actor, { person_id: row.booking_person_id! })) throw new NotFoundError(`No file with id ${fileId}.`);
+  if (row.incident_id !== null && !(await canSeeIncident(db, actor, row.incident_id))) throw new NotFoundError(`No file with id ${fileId}.`);
   const body = await store.get(row.storage_key).catch((error: { code?: string }) => {
     if (error.code === 'NoSuchKey') throw new NotFoundError('The file is missing from storage.');
     throw error;

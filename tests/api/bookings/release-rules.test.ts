@@ -220,8 +220,17 @@ describe('POST /api/bookings/:id/return', () => {
     const probe = await ctx.db('items').where({ id: kit.probe.id }).first();
     expect(probe.status).toBe('out-of-service');
     expect(probe.status_reason).toMatch(/arc-over/);
+    // The same incident a report makes (issue 17): kind damage, the item named, officers mailed once.
     const incidents = await ctx.db('incidents').where({ booking_id: booking.id });
     expect(incidents).toHaveLength(1);
-    expect(incidents[0]).toMatchObject({ item_id: kit.probe.id, kind: 'damage' });
+    expect(incidents[0]).toMatchObject({ kind: 'damage', status: 'open', reported_by: member.person.id, description: 'Probe tip bent after an arc-over' });
+    expect(Boolean(incidents[0].tag_out)).toBe(true);
+    expect(await ctx.db('incident_items').where({ incident_id: incidents[0].id }).pluck('item_id')).toEqual([kit.probe.id]);
+    const mail = await ctx.db('outbox').where({ kind: 'incident-reported', to_address: officer.person.email }).andWhere('dedupe_key', `incident-reported:${incidents[0].id}:${officer.person.id}`);
+    expect(mail).toHaveLength(1);
+    expect(mail[0].text_body).toContain('Taken out of service now');
+    // The officer's queue shows it.
+    const queue = await officer.agent.get('/api/incidents?status=open');
+    expect(queue.body.incidents.map((i: { id: number }) => i.id)).toContain(incidents[0].id);
   });
 });

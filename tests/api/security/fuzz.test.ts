@@ -11,9 +11,9 @@
 // tell a fuzz request's write from a neighbour's. Instead every fuzz request is aimed at
 // resources this suite created and sent by people this suite created (the World of
 // route-fixtures remembers them), and the check covers exactly the rows tied to them: in each of
-// the 16 tables (items, bookings, booking_items, approvals, booking_scans, checklist_runs,
+// the 17 tables (items, bookings, booking_items, approvals, booking_scans, checklist_runs,
 // inspections, item_files, people, qualifications, lab_rules, checklist_templates, outbox,
-// person_tokens, audit_events, incidents) the rows whose id is a fuzz id or whose owner/actor
+// person_tokens, audit_events, incidents (with the items they name), calendar_feeds) the rows whose id is a fuzz id or whose owner/actor
 // column names a fuzz person (bookings.person_id, approvals.officer_id, booking_scans.scanned_by,
 // checklist_runs.completed_by, inspections.inspector_id, item_files.uploaded_by or booking_id,
 // qualifications.recorded_by, lab_rules.updated_by, incidents.reported_by,
@@ -459,7 +459,8 @@ class Lane {
       checklist_templates: `id IN ${list(world.templates)}`,
       outbox:
         `id > ? AND to_address IN (${emails.map(() => '?').join(',')}) ` +
-        `AND kind NOT IN ('overdue-officer', 'overdue-member', 'inspection-digest') ` +
+        // Incident notices go to every officer whoever reports; a wrongly written report shows in incidents itself.
+        `AND kind NOT IN ('overdue-officer', 'overdue-member', 'inspection-digest', 'incident-reported') ` +
         `AND (kind <> 'approval-requested' OR SUBSTRING_INDEX(SUBSTRING_INDEX(dedupe_key, ':', 2), ':', -1) IN ${list(bookingIds, true)}) ` +
         // Mail to every officer about someone's bookings: only this lane's people and bookings count.
         `AND (kind <> 'bench-run-beyond-plan' OR SUBSTRING_INDEX(SUBSTRING_INDEX(dedupe_key, ':', 2), ':', -1) IN ${list(bookingIds, true)}) ` +
@@ -469,7 +470,8 @@ class Lane {
         `id > ? AND (actor_id IN ${P} OR (entity IN ('person', 'qualification') AND entity_id IN ${list(world.people, true)}) ` +
         `OR (entity = 'item' AND entity_id IN ${list(world.items, true)}) OR (entity = 'checklist-template' AND entity_id IN ${list(world.templates, true)}) ` +
         `OR (entity = 'booking' AND entity_id IN ${list(bookingIds, true)}))`,
-      incidents: `reported_by IN ${P} OR booking_id IN ${B} OR item_id IN ${I}`,
+      incidents: `reported_by IN ${P} OR booking_id IN ${B} OR id IN (SELECT incident_id FROM incident_items WHERE item_id IN ${I})`,
+      calendar_feeds: `person_id IN ${P}`,
     };
     // In statement order: the outbox floor and addresses, then the audit floor.
     this.bindings = [String(floor!.outbox), ...emails, String(floor!.audit)];
@@ -525,7 +527,8 @@ class Lane {
       outbox: ["INSERT INTO outbox (kind, to_address, subject, text_body, html_body, next_attempt_at) VALUES ('invitation', ?, 's', 't', 'h', NOW(3))", [email]],
       person_tokens: ["INSERT INTO person_tokens (person_id, purpose, token_hash, expires_at) VALUES (?, 'password-reset', ?, NOW(3))", [person, `${Date.now()}${Math.random()}`.slice(0, 64)]],
       audit_events: ["INSERT INTO audit_events (actor_id, entity, entity_id, action, prev_hash, hash) VALUES (?, 'probe', '0', 'probe', '0', '0')", [person]],
-      incidents: ["INSERT INTO incidents (booking_id, item_id, kind, description, reported_by) VALUES (?, ?, 'near-miss', 'probe', ?)", [b, item, person]],
+      incidents: ["INSERT INTO incidents (booking_id, kind, description, reported_by) VALUES (?, 'near-miss', 'probe', ?)", [b, person]],
+      calendar_feeds: ["INSERT INTO calendar_feeds (person_id, token_hash, nonce) VALUES (?, ?, ?)", [person, `${Date.now()}${Math.random()}`.replace(/\D/g, '').padEnd(64, '0').slice(0, 64), '0'.repeat(32)]],
     };
     const noticed: Record<string, boolean> = {};
     for (const [table, [sql, values]] of Object.entries(changes)) {
@@ -685,7 +688,7 @@ const weightedWrites = WRITE_ROUTES.map((key) => ({ arbitrary: fc.constant(key),
 describe('the database check', () => {
   it('notices a changed or added row in every watched table', async () => {
     const noticed = await lanes[0]!.tablesNoticed();
-    expect(Object.keys(noticed)).toHaveLength(16);
+    expect(Object.keys(noticed)).toHaveLength(17);
     expect(Object.values(noticed).every(Boolean) ? 'all noticed' : noticed).toBe('all noticed');
   });
 });

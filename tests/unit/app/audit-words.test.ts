@@ -14,18 +14,18 @@ function serverActions(): string[] {
   const found = new Set<string>();
   for (const file of fs.readdirSync(dir)) {
     const source = fs.readFileSync(path.join(dir, file), 'utf8');
-    for (const m of source.matchAll(/'((?:booking|approval|checklist|checklist-template|item|inspection|lab-rules|person|qualification)\.[a-z-]+)'/g)) found.add(m[1]!);
+    for (const m of source.matchAll(/'((?:booking|approval|checklist|checklist-template|item|inspection|lab-rules|person|qualification|incident|calendar-feed)\.[a-z-]+)'/g)) found.add(m[1]!);
   }
   // Built from a template in the source: `checklist.${phase}-completed`, `inspection.${result}`.
   for (const a of ['checklist.pre-completed', 'checklist.return-completed', 'inspection.pass', 'inspection.fail']) found.add(a);
   return [...found].sort();
 }
 
-const entityOf = (action: string) => (action.startsWith('inspection.') ? 'item' : action.startsWith('approval.') || action.startsWith('checklist.') ? 'booking' : action.split('.')[0]!);
+const entityOf = (action: string) => (action.startsWith('inspection.') ? 'item' : action.startsWith('calendar-feed.') ? 'person' : action.startsWith('approval.') || action.startsWith('checklist.') ? 'booking' : action.split('.')[0]!);
 
 describe('auditWords', () => {
   it('finds the server’s actions (the scan itself works)', () => {
-    expect(serverActions()).toEqual(expect.arrayContaining(['booking.item-scanned', 'item.tagged-out-at-return', 'qualification.set', 'person.invited']));
+    expect(serverActions()).toEqual(expect.arrayContaining(['booking.item-scanned', 'item.tagged-out-at-return', 'qualification.set', 'person.invited', 'incident.reported', 'calendar-feed.rotated']));
   });
 
   it.each(serverActions())('words %s as a sentence, never its code', (action) => {
