@@ -16,6 +16,15 @@ export interface InstanceOptions {
   password: string;
   /** Buffer pool size; small for tests, larger for the bench. */
   bufferPool?: string;
+  /** More [mariadbd] lines (a Galera node's wsrep settings, scripts/lib/galera.ts). */
+  extraConfig?: string[];
+}
+
+export interface StartOptions {
+  /** Extra mariadbd arguments for this start only (`--wsrep-new-cluster` to bootstrap). */
+  args?: string[];
+  /** How long to wait for the server to answer; a Galera joiner first copies a snapshot. */
+  timeoutMs?: number;
 }
 
 export interface Instance extends InstanceOptions {
@@ -74,6 +83,7 @@ function writeConfig(instance: Instance): void {
     'innodb_ft_enable_stopword=OFF',
     // mariadbd refuses to run as root unless told to; running as `mysql` fails on private parents.
     ...(isRoot ? ['user=root'] : []),
+    ...(instance.extraConfig ?? []),
   ];
   mkdirSync(instance.dir, { recursive: true });
   writeFileSync(instance.cnf, lines.join('\n') + '\n');
@@ -101,14 +111,14 @@ export function isRunning(instance: Instance): boolean {
   }
 }
 
-function ping(instance: Instance): boolean {
+export function ping(instance: Instance): boolean {
   const result = spawnSync(bin('mariadb-admin'), [`--defaults-file=${instance.cnf}`, '-uroot', 'ping'], {
     stdio: 'ignore',
   });
   return result.status === 0;
 }
 
-function sql(instance: Instance, statements: string): void {
+export function sql(instance: Instance, statements: string): void {
   execFileSync(bin('mariadb'), [`--defaults-file=${instance.cnf}`, '-uroot', '-e', statements], {
     stdio: ['ignore', 'ignore', 'inherit'],
   });
@@ -119,7 +129,7 @@ async function sleep(ms: number): Promise<void> {
 }
 
 /** Starts the instance if needed. Returns true when this call started it (so it may stop it). */
-export async function startInstance(options: InstanceOptions): Promise<{ instance: Instance; started: boolean }> {
+export async function startInstance(options: InstanceOptions, start: StartOptions = {}): Promise<{ instance: Instance; started: boolean }> {
   ensureDebianPackages([MARIADB]);
   const instance = describeInstance(options);
   writeConfig(instance);
@@ -137,12 +147,12 @@ export async function startInstance(options: InstanceOptions): Promise<{ instanc
 
   if (!isRunning(instance) || !ping(instance)) {
     const logSize = existsSync(instance.errorLog) ? readFileSync(instance.errorLog).length : 0;
-    const child = spawn(bin('mariadbd'), [`--defaults-file=${instance.cnf}`], {
+    const child = spawn(bin('mariadbd'), [`--defaults-file=${instance.cnf}`, ...(start.args ?? [])], {
       detached: true, // its own session: Ctrl-C on `npm start` must not stop the database
       stdio: 'ignore',
     });
     child.unref();
-    const deadline = Date.now() + 30_000;
+    const deadline = Date.now() + (start.timeoutMs ?? 30_000);
     while (!ping(instance)) {
       if (Date.now() > deadline) {
         const log = existsSync(instance.errorLog) ? readFileSync(instance.errorLog, 'utf8').slice(logSize) : '';

@@ -32,11 +32,14 @@ const TOUCH_STEP_MS = 5 * 60_000;
 export class SessionStore extends ConnectSessionKnexStore {
   private readonly cache: SessionCache;
 
-  constructor(private readonly db: Db) {
+  constructor(
+    private readonly db: Db,
+    cacheMs?: number,
+  ) {
     super({ knex: db, tableName: 'sessions', createTable: false, cleanupInterval: 0, onDbCleanupError: () => {} });
     // The base class rejects `ready` when the table check fails (database down at boot).
     (this as unknown as { ready: Promise<void> }).ready.catch(() => {});
-    this.cache = sessionCacheOf(db);
+    this.cache = sessionCacheOf(db, cacheMs);
   }
 
   /** Reads the row's expiry too, so `touch` can tell whether a write is worth it. */
