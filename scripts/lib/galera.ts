@@ -179,8 +179,7 @@ export async function startCluster(layout: ClusterLayout, log: (line: string) =>
   if (!anyRunning) {
     const first = bootstrapIndex(instances);
     log(`[cluster] bootstrapping a new cluster on node${first + 1}`);
-    await startInstance(nodeOptions(layout, first), { args: ['--wsrep-new-cluster'], timeoutMs: 120_000 });
-    await waitSynced(instances[first]!, 1);
+    await startInstance(nodeOptions(layout, first), { args: ['--wsrep-new-cluster'], timeoutMs: 120_000, untilReady: (i) => waitSynced(i, 1) });
     sql(instances[first]!, [
       `CREATE USER IF NOT EXISTS '${SST_USER}'@'localhost' IDENTIFIED BY '${SST_PASSWORD}'`,
       `GRANT RELOAD, PROCESS, LOCK TABLES, BINLOG MONITOR ON *.* TO '${SST_USER}'@'localhost'`,
@@ -191,7 +190,7 @@ export async function startCluster(layout: ClusterLayout, log: (line: string) =>
     if (isRunning(instances[i]!) && ping(instances[i]!)) continue;
     log(`[cluster] node${i + 1} joining (127.0.0.1:${layout.nodes[i]!.sql})`);
     // A joiner answers only after its state transfer (IST or a full rsync snapshot).
-    await startInstance(nodeOptions(layout, i), { timeoutMs: 300_000 });
+    await startInstance(nodeOptions(layout, i), { timeoutMs: 300_000, untilReady: (n) => waitSynced(n, 2) });
   }
   for (const instance of instances) await waitSynced(instance, instances.length);
   log(`[cluster] ${instances.length} nodes synced`);
@@ -200,7 +199,7 @@ export async function startCluster(layout: ClusterLayout, log: (line: string) =>
 
 /** Starts one node again (after a kill): it rejoins the running cluster and catches up. */
 export async function restartNode(layout: ClusterLayout, index: number): Promise<Instance> {
-  const { instance } = await startInstance(nodeOptions(layout, index), { timeoutMs: 300_000 });
+  const { instance } = await startInstance(nodeOptions(layout, index), { timeoutMs: 300_000, untilReady: (n) => waitSynced(n, 2) });
   await waitSynced(instance, layout.nodes.length);
   return instance;
 }

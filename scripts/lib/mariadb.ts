@@ -25,6 +25,8 @@ export interface StartOptions {
   args?: string[];
   /** How long to wait for the server to answer; a Galera joiner first copies a snapshot. */
   timeoutMs?: number;
+  /** Awaited once the server answers, before the database and users are set up (a joiner syncing). */
+  untilReady?: (instance: Instance) => Promise<void>;
 }
 
 export interface Instance extends InstanceOptions {
@@ -162,6 +164,7 @@ export async function startInstance(options: InstanceOptions, start: StartOption
     }
     started = true;
   }
+  await start.untilReady?.(instance);
 
   const db = instance.database;
   sql(
