@@ -11,7 +11,7 @@ import { startFakeSmtp, type FakeSmtp } from '../../server/mail/fake-smtp';
 import { startFakeS3, type FakeS3 } from '../../server/storage/fake-s3';
 import { startCluster, nodeInstances, type ClusterLayout } from './galera';
 import { startHealthServer, type HealthServer } from './galera-health';
-import { startProxy, stopStrayProxy, type Proxy } from './haproxy';
+import { startProxy, stopStrayProxy, waitUntilUp, type Proxy } from './haproxy';
 import { resetDatabase, type Instance } from './mariadb';
 import { migrateLatest, seedDemoIfEmpty } from './migrate';
 
@@ -30,6 +30,7 @@ export interface ClusterOptions {
 
 export class AppProcess {
   child: ChildProcess | null = null;
+  private restarts = 0;
   readonly logFile: string;
 
   constructor(
@@ -37,6 +38,7 @@ export class AppProcess {
     readonly port: number,
     private readonly env: Record<string, string>,
     dir: string,
+    private readonly layout?: ClusterLayout,
   ) {
     this.logFile = path.join(dir, `app${index + 1}.log`);
   }
@@ -57,7 +59,11 @@ export class AppProcess {
     const deadline = Date.now() + timeoutMs;
     while (Date.now() < deadline) {
       if (this.child?.exitCode !== null) throw new Error(`app${this.index + 1} exited at start; see ${this.logFile}`);
-      if (await healthy(this.port)) return;
+      if (await healthy(this.port)) {
+        // Started again after a kill: ready once the proxy sends it requests.
+        if (this.layout && this.restarts++ > 0) await waitUntilUp(this.layout, ROOT, [`apps/app${this.index + 1}`]);
+        return;
+      }
       await new Promise((resolve) => setTimeout(resolve, 250));
     }
     throw new Error(`app${this.index + 1} did not answer on ${this.port}; see ${this.logFile}`);
@@ -172,8 +178,9 @@ export async function runCluster(layout: ClusterLayout, options: ClusterOptions 
       ...(options.appEnv ?? {}),
     });
     const count = options.appCount ?? layout.apps.length;
-    for (let i = 0; i < count; i += 1) apps.push(new AppProcess(i, layout.apps[i]!, { ...env, PORT: String(layout.apps[i]) }, dir));
+    for (let i = 0; i < count; i += 1) apps.push(new AppProcess(i, layout.apps[i]!, { ...env, PORT: String(layout.apps[i]) }, dir, layout));
     await Promise.all(apps.map((a) => a.start()));
+    await waitUntilUp(layout, ROOT, apps.map((a) => `apps/app${a.index + 1}`));
   } catch (error) {
     await stop();
     throw error;

@@ -2,6 +2,7 @@
 // processes (health-checked on /api/health), and TCP in front of the Galera nodes for the app
 // processes' database connections (health-checked on each node's synced answer).
 import { spawn, spawnSync } from 'node:child_process';
+import { connect } from 'node:net';
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { type DebianPackage, ensureDebianPackages } from './debian-packages';
@@ -14,20 +15,24 @@ export interface Proxy {
   stop(): Promise<void>;
 }
 
-export function haproxyConfig(layout: ClusterLayout): string {
-  const apps = layout.apps.map((port, i) => `  server app${i + 1} 127.0.0.1:${port} check inter 500ms fall 2 rise 2`);
+export function haproxyConfig(layout: ClusterLayout, statsSocket: string): string {
+  const apps = layout.apps.map((port, i) => `  server app${i + 1} 127.0.0.1:${port} check inter 500ms fall 3 rise 2`);
   const nodes = layout.nodes.map(
     (n, i) => `  server node${i + 1} 127.0.0.1:${n.sql} check port ${n.health} inter 500ms fall 2 rise 3 on-marked-down shutdown-sessions`,
   );
   return [
     'global',
     '  maxconn 4000',
+    // Read by serverStates() (and by an operator: `echo "show stat" | socat - UNIX:<path>`).
+    `  stats socket ${statsSocket} mode 600 level user`,
     '',
     'defaults',
     '  timeout connect 2s',
     '  timeout client 60s',
     '  timeout server 60s',
-    '  timeout check 2s',
+    // While the cluster replaces a lost node, writes wait a second or two: an app answering
+    // slowly is still in; an app that is gone refuses the check at once.
+    '  timeout check 5s',
     '',
     '# The lab: browsers and counters on one port. A request whose connection to an app could',
     '# not be made goes to the other app; one already sent is never sent twice (it may have',
@@ -67,13 +72,13 @@ export function haproxyConfig(layout: ClusterLayout): string {
 
 export function proxyFiles(layout: ClusterLayout, root: string) {
   const dir = path.join(root, '.data', layout.name);
-  return { cfg: path.join(dir, 'haproxy.cfg'), pid: path.join(dir, 'haproxy.pid'), dir };
+  return { cfg: path.join(dir, 'haproxy.cfg'), pid: path.join(dir, 'haproxy.pid'), sock: path.join(dir, 'haproxy.sock'), dir };
 }
 
 export async function startProxy(layout: ClusterLayout, root: string): Promise<Proxy> {
   ensureDebianPackages([HAPROXY]);
   const files = proxyFiles(layout, root);
-  writeFileSync(files.cfg, haproxyConfig(layout));
+  writeFileSync(files.cfg, haproxyConfig(layout, files.sock));
   const check = spawnSync(HAPROXY.probe, ['-c', '-q', '-f', files.cfg], { encoding: 'utf8' });
   if (check.status !== 0) throw new Error(`haproxy refused its configuration:\n${check.stdout}${check.stderr}`);
   // -db: stays in the foreground as our child, so it ends with the launcher.
@@ -104,5 +109,38 @@ export function stopStrayProxy(layout: ClusterLayout, root: string): void {
     if (readFileSync(`/proc/${value}/cmdline`, 'utf8').includes('haproxy')) process.kill(value, 'SIGTERM');
   } catch {
     // not running
+  }
+}
+
+/** Each backend server's state as the proxy sees it now: { 'apps/app1': 'UP', 'galera/node2': 'DOWN', … }. */
+export function serverStates(layout: ClusterLayout, root: string): Promise<Record<string, string>> {
+  const { sock } = proxyFiles(layout, root);
+  return new Promise((resolve) => {
+    let text = '';
+    const socket = connect(sock, () => socket.write('show stat\n'));
+    socket.on('data', (chunk) => {
+      text += chunk.toString();
+    });
+    socket.on('error', () => resolve({}));
+    socket.on('end', () => {
+      const states: Record<string, string> = {};
+      for (const line of text.split('\n').slice(1)) {
+        const [proxy, server, ...rest] = line.split(',');
+        if (!proxy || !server || server === 'FRONTEND' || server === 'BACKEND') continue;
+        states[`${proxy}/${server}`] = rest[15] ?? '';
+      }
+      resolve(states);
+    });
+  });
+}
+
+/** Waits until the proxy sends traffic to every named server ('apps/app1'…). */
+export async function waitUntilUp(layout: ClusterLayout, root: string, servers: string[], timeoutMs = 30_000): Promise<void> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const states = await serverStates(layout, root);
+    if (servers.every((s) => states[s] === 'UP')) return;
+    if (Date.now() > deadline) throw new Error(`the proxy has not taken ${servers.join(', ')} in: ${JSON.stringify(states)}`);
+    await new Promise((resolve) => setTimeout(resolve, 200));
   }
 }

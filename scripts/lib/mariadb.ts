@@ -185,13 +185,19 @@ function grantsOn(instance: Instance, db: string): string[] {
   return APP_HOSTS.map((host) => `GRANT ALL PRIVILEGES ON \`${db}\`.* TO '${instance.user}'@'${host}'`);
 }
 
-export async function stopInstance(options: InstanceOptions): Promise<boolean> {
+export async function stopInstance(options: InstanceOptions, hardAfterMs?: number): Promise<boolean> {
   const instance = describeInstance(options);
   if (!existsSync(instance.cnf) || !isRunning(instance)) return false;
   const pid = Number(readFileSync(instance.pidFile, 'utf8').trim());
   process.kill(pid, 'SIGTERM');
-  const deadline = Date.now() + 30_000;
+  const deadline = Date.now() + (hardAfterMs ?? 30_000);
   while (isRunning(instance) && Date.now() < deadline) await sleep(100);
+  // A Galera node can hang in shutdown after leaving the group; its data is safe on disk and
+  // the next start recovers its position, so it is killed rather than left holding its files.
+  if (hardAfterMs !== undefined && isRunning(instance)) {
+    process.kill(pid, 'SIGKILL');
+    while (isRunning(instance)) await sleep(100);
+  }
   return true;
 }
 

@@ -64,6 +64,9 @@ export async function kitIds(ctx: ClusterContext) {
   return { ids: kit.all.map((i) => i.id), tags: kit.all.map((i) => i.tag) };
 }
 
+/** The last 5xx answer's text, for the failure messages of the load tests. */
+export let lastFailure = '';
+
 /**
  * One counter loop on a kit: 10 kV (under the approval threshold) so a qualified member goes
  * through alone. Returns each step's status; stops at the first refusal.
@@ -74,11 +77,13 @@ export async function counterLoop(who: Who, kit: { ids: number[]; tags: string[]
   const endsAt = new Date(Date.now() + 3600_000).toISOString();
   const created = await post(who as never, '/api/bookings', { itemIds: kit.ids, startsAt, endsAt, location: 'Bay 2', purpose: 'Cluster loop', plan: plan(10) });
   statuses.push(created.status);
+  if (created.status >= 500) lastFailure = `${created.status} ${created.text.slice(0, 300)}`;
   if (created.status !== 201) return { statuses, bookingId: null as number | null, released: false, returned: false };
   const booking = created.body.booking as { id: number; checklist: { pre: never[]; return: never[] } };
   const step = async (path: string, body: unknown) => {
     const res = await post(who as never, path, body);
     statuses.push(res.status);
+    if (res.status >= 500) lastFailure = `${res.status} ${path} ${res.text.slice(0, 300)}`;
     return res.status === 200;
   };
   for (const tag of kit.tags) if (!(await step(`/api/bookings/${booking.id}/scans`, { tag }))) return { statuses, bookingId: booking.id, released: false, returned: false };
@@ -113,3 +118,58 @@ export async function statusOf(db: Db, name: string): Promise<number> {
   const [rows] = (await db.raw('SHOW GLOBAL STATUS LIKE ?', [name])) as [{ Value: string }[]];
   return Number(rows[0]?.Value ?? 0);
 }
+
+export interface LoopRecord {
+  worker: number;
+  startedAt: number;
+  endedAt: number;
+  statuses: number[];
+  bookingId: number | null;
+  released: boolean;
+  returned: boolean;
+}
+
+/**
+ * Counter traffic until `stop()` is called: each worker runs whole loops on its kit, and moves to
+ * a spare kit when a loop broke off half-way (that booking keeps its items until someone cleans up).
+ */
+export function counterLoad(workers: { who: Who; kits: { ids: number[]; tags: string[] }[] }[]) {
+  const records: LoopRecord[] = [];
+  let running = true;
+  const done = Promise.all(
+    workers.map(async (w, worker) => {
+      let kit = 0;
+      while (running && kit < w.kits.length) {
+        const startedAt = Date.now();
+        const loop = await counterLoop(w.who, w.kits[kit]!).catch(() => ({ statuses: [0], bookingId: null, released: false, returned: false }));
+        records.push({ worker, startedAt, endedAt: Date.now(), ...loop });
+        // A booking left half-way keeps its kit; a refused one leaves the kit free.
+        if (loop.bookingId !== null && !loop.returned) kit += 1;
+        if (!loop.returned) await sleep(200);
+      }
+    }),
+  );
+  return {
+    records,
+    async stop() {
+      running = false;
+      await done;
+    },
+  };
+}
+
+/** Every write the load was told succeeded is there on the given node. */
+export async function expectAcknowledgedWrites(db: Db, records: LoopRecord[]): Promise<void> {
+  const ids = records.filter((r) => r.bookingId !== null).map((r) => r.bookingId!);
+  const rows = await db('bookings').whereIn('id', ids).select('id', 'status');
+  const status = new Map(rows.map((r) => [r.id as number, r.status as string]));
+  for (const r of records) {
+    if (r.bookingId === null) continue;
+    const s = status.get(r.bookingId);
+    expect({ booking: r.bookingId, exists: s !== undefined }).toEqual({ booking: r.bookingId, exists: true });
+    if (r.returned) expect({ booking: r.bookingId, status: s }).toEqual({ booking: r.bookingId, status: 'returned' });
+    else if (r.released) expect({ booking: r.bookingId, released: s === 'released' || s === 'returned' }).toEqual({ booking: r.bookingId, released: true });
+  }
+}
+
+export const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
