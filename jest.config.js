@@ -25,5 +25,8 @@ module.exports = {
     nodeProject('api', ['<rootDir>/tests/api']),
     nodeProject('e2e', ['<rootDir>/tests/e2e']),
     nodeProject('faults', ['<rootDir>/tests/faults']),
+    // `npm run test:cluster` only (scripts/test-cluster.ts sets the variable): it needs the Galera
+    // cluster, kills nodes and processes, and takes minutes; plain `npm test` never loads it.
+    ...(process.env.VOLTCRIB_CLUSTER_TESTS === '1' ? [nodeProject('cluster', ['<rootDir>/tests/cluster'])] : []),
   ],
 };

@@ -99,7 +99,7 @@ export function createApp({ db, config, logger, objectStore, mailbox, mountBefor
     session({
       name: 'voltcrib.sid',
       secret: config.session.secret,
-      store: new SessionStore(db),
+      store: new SessionStore(db, config.session.cacheMs),
       resave: false,
       // No row until there is something to keep (a sign-in): anonymous visitors' CSRF tokens
       // live in a signed cookie instead (middleware/csrf.ts).

@@ -22,6 +22,8 @@ const envSchema = z.object({
   DB_PASSWORD: z.string().default('voltcrib-local-only'),
   DB_POOL_MAX: z.coerce.number().int().min(1).max(200).default(20),
   SESSION_SECRET: z.string().min(16, 'at least 16 characters').optional(),
+  // How long a process may serve a session from its own copy; 0 with more than one process.
+  SESSION_CACHE_MS: z.coerce.number().int().min(0).max(60_000).default(5000),
   SESSION_MAX_AGE_HOURS: z.coerce.number().positive().max(24 * 30).default(12),
   COOKIE_SECURE: bool.optional(),
   TRUST_PROXY: bool.default(false),
@@ -55,7 +57,7 @@ export interface Config {
   publicUrl: string;
   /** socketPath, when set, is used instead of host and port (a database on the same machine). */
   db: { host: string; port: number; socketPath: string | null; database: string; user: string; password: string; poolMax: number };
-  session: { secret: string; maxAgeMs: number; secureCookies: boolean };
+  session: { secret: string; maxAgeMs: number; secureCookies: boolean; cacheMs: number };
   trustProxy: boolean;
   logLevel: string;
   /** Failed attempts per 15 minutes: per account and address, and per address. */
@@ -102,6 +104,7 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     session: {
       secret: e.SESSION_SECRET ?? DEV_SECRET,
       maxAgeMs: e.SESSION_MAX_AGE_HOURS * 3600_000,
+      cacheMs: e.SESSION_CACHE_MS,
       // Secure cookies whenever the public URL is HTTPS unless explicitly overridden.
       secureCookies: e.COOKIE_SECURE ?? publicUrl.startsWith('https://'),
     },

@@ -62,7 +62,13 @@ if (require.main === module) {
     console.error(JSON.stringify({ level: 'error', msg: 'unhandled rejection', reason: String(reason) }));
   });
   startServer()
-    .then(({ config, port }) => console.log(JSON.stringify({ msg: 'listening', url: `http://${config.host}:${port}`, port })))
+    .then(({ config, port, close }) => {
+      console.log(JSON.stringify({ msg: 'listening', url: `http://${config.host}:${port}`, port }));
+      // Stopped by a supervisor (`npm run cluster`, systemd): finish the requests in flight first.
+      process.once('SIGTERM', () => {
+        close().finally(() => process.exit(0));
+      });
+    })
     .catch((error: unknown) => {
       console.error(error instanceof Error ? error.message : error);
       process.exit(1);

@@ -12,6 +12,8 @@ export interface DebianPackage {
 export const MARIADB: DebianPackage = { name: 'mariadb-server', probe: '/usr/sbin/mariadbd' };
 export const CHROMIUM: DebianPackage = { name: 'chromium', probe: '/usr/bin/chromium' };
 export const POPPLER: DebianPackage = { name: 'poppler-utils', probe: '/usr/bin/pdftoppm' };
+// `npm run cluster` also needs galera-4, mariadb-backup, socat (scripts/lib/galera.ts) and
+// haproxy (scripts/lib/haproxy.ts); they are declared beside the code that uses them.
 
 export function ensureDebianPackages(packages: DebianPackage[]): void {
   const missing = packages.filter((p) => !existsSync(p.probe));

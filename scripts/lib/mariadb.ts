@@ -16,6 +16,17 @@ export interface InstanceOptions {
   password: string;
   /** Buffer pool size; small for tests, larger for the bench. */
   bufferPool?: string;
+  /** More [mariadbd] lines (a Galera node's wsrep settings, scripts/lib/galera.ts). */
+  extraConfig?: string[];
+}
+
+export interface StartOptions {
+  /** Extra mariadbd arguments for this start only (`--wsrep-new-cluster` to bootstrap). */
+  args?: string[];
+  /** How long to wait for the server to answer; a Galera joiner first copies a snapshot. */
+  timeoutMs?: number;
+  /** Awaited once the server answers, before the database and users are set up (a joiner syncing). */
+  untilReady?: (instance: Instance) => Promise<void>;
 }
 
 export interface Instance extends InstanceOptions {
@@ -74,6 +85,7 @@ function writeConfig(instance: Instance): void {
     'innodb_ft_enable_stopword=OFF',
     // mariadbd refuses to run as root unless told to; running as `mysql` fails on private parents.
     ...(isRoot ? ['user=root'] : []),
+    ...(instance.extraConfig ?? []),
   ];
   mkdirSync(instance.dir, { recursive: true });
   writeFileSync(instance.cnf, lines.join('\n') + '\n');
@@ -101,14 +113,14 @@ export function isRunning(instance: Instance): boolean {
   }
 }
 
-function ping(instance: Instance): boolean {
+export function ping(instance: Instance): boolean {
   const result = spawnSync(bin('mariadb-admin'), [`--defaults-file=${instance.cnf}`, '-uroot', 'ping'], {
     stdio: 'ignore',
   });
   return result.status === 0;
 }
 
-function sql(instance: Instance, statements: string): void {
+export function sql(instance: Instance, statements: string): void {
   execFileSync(bin('mariadb'), [`--defaults-file=${instance.cnf}`, '-uroot', '-e', statements], {
     stdio: ['ignore', 'ignore', 'inherit'],
   });
@@ -119,7 +131,7 @@ async function sleep(ms: number): Promise<void> {
 }
 
 /** Starts the instance if needed. Returns true when this call started it (so it may stop it). */
-export async function startInstance(options: InstanceOptions): Promise<{ instance: Instance; started: boolean }> {
+export async function startInstance(options: InstanceOptions, start: StartOptions = {}): Promise<{ instance: Instance; started: boolean }> {
   ensureDebianPackages([MARIADB]);
   const instance = describeInstance(options);
   writeConfig(instance);
@@ -137,12 +149,12 @@ export async function startInstance(options: InstanceOptions): Promise<{ instanc
 
   if (!isRunning(instance) || !ping(instance)) {
     const logSize = existsSync(instance.errorLog) ? readFileSync(instance.errorLog).length : 0;
-    const child = spawn(bin('mariadbd'), [`--defaults-file=${instance.cnf}`], {
+    const child = spawn(bin('mariadbd'), [`--defaults-file=${instance.cnf}`, ...(start.args ?? [])], {
       detached: true, // its own session: Ctrl-C on `npm start` must not stop the database
       stdio: 'ignore',
     });
     child.unref();
-    const deadline = Date.now() + 30_000;
+    const deadline = Date.now() + (start.timeoutMs ?? 30_000);
     while (!ping(instance)) {
       if (Date.now() > deadline) {
         const log = existsSync(instance.errorLog) ? readFileSync(instance.errorLog, 'utf8').slice(logSize) : '';
@@ -152,6 +164,7 @@ export async function startInstance(options: InstanceOptions): Promise<{ instanc
     }
     started = true;
   }
+  await start.untilReady?.(instance);
 
   const db = instance.database;
   sql(
@@ -172,13 +185,19 @@ function grantsOn(instance: Instance, db: string): string[] {
   return APP_HOSTS.map((host) => `GRANT ALL PRIVILEGES ON \`${db}\`.* TO '${instance.user}'@'${host}'`);
 }
 
-export async function stopInstance(options: InstanceOptions): Promise<boolean> {
+export async function stopInstance(options: InstanceOptions, hardAfterMs?: number): Promise<boolean> {
   const instance = describeInstance(options);
   if (!existsSync(instance.cnf) || !isRunning(instance)) return false;
   const pid = Number(readFileSync(instance.pidFile, 'utf8').trim());
   process.kill(pid, 'SIGTERM');
-  const deadline = Date.now() + 30_000;
+  const deadline = Date.now() + (hardAfterMs ?? 30_000);
   while (isRunning(instance) && Date.now() < deadline) await sleep(100);
+  // A Galera node can hang in shutdown after leaving the group; its data is safe on disk and
+  // the next start recovers its position, so it is killed rather than left holding its files.
+  if (hardAfterMs !== undefined && isRunning(instance)) {
+    process.kill(pid, 'SIGKILL');
+    while (isRunning(instance)) await sleep(100);
+  }
   return true;
 }
 

@@ -15,6 +15,7 @@ import { ConnectSessionKnexStore } from 'connect-session-knex';
 import type { SessionData } from 'express-session';
 import { isDatabaseUnavailable, type Db } from '../db';
 import { UnavailableError } from '../errors';
+import { withDeadlockRetry } from '../services/deadlock-retry';
 import { sessionCacheOf, type SessionCache } from './session-cache';
 
 /** What the store hands express-session instead of a raw database error. */
@@ -32,11 +33,14 @@ const TOUCH_STEP_MS = 5 * 60_000;
 export class SessionStore extends ConnectSessionKnexStore {
   private readonly cache: SessionCache;
 
-  constructor(private readonly db: Db) {
+  constructor(
+    private readonly db: Db,
+    cacheMs?: number,
+  ) {
     super({ knex: db, tableName: 'sessions', createTable: false, cleanupInterval: 0, onDbCleanupError: () => {} });
     // The base class rejects `ready` when the table check fails (database down at boot).
     (this as unknown as { ready: Promise<void> }).ready.catch(() => {});
-    this.cache = sessionCacheOf(db);
+    this.cache = sessionCacheOf(db, cacheMs);
   }
 
   /** Reads the row's expiry too, so `touch` can tell whether a write is worth it. */
@@ -71,12 +75,23 @@ export class SessionStore extends ConnectSessionKnexStore {
 
   override set(sid: string, session: SessionData, callback?: Callback): Promise<void> {
     this.cache.forget(sid);
-    return super.set(sid, session, (error?: unknown) => callback?.(error ? storeError(error) : undefined)).catch(() => undefined);
+    // Two requests of one session on two cluster nodes may write its row at once (1213): again.
+    return withDeadlockRetry(() => super.set(sid, session))
+      .then(() => callback?.())
+      .catch((error: unknown) => callback?.(storeError(error)));
   }
 
   override destroy(sid: string, callback?: Callback): Promise<number> {
     this.cache.forget(sid);
-    return super.destroy(sid, (error?: unknown) => callback?.(error ? storeError(error) : undefined)).catch(() => 0);
+    return withDeadlockRetry(() => super.destroy(sid))
+      .then((count) => {
+        callback?.();
+        return count;
+      })
+      .catch((error: unknown) => {
+        callback?.(storeError(error));
+        return 0;
+      });
   }
 
   override touch(sid: string, session: SessionData, callback?: Callback): Promise<void> {
@@ -88,8 +103,7 @@ export class SessionStore extends ConnectSessionKnexStore {
       return Promise.resolve();
     }
     this.cache.forget(sid);
-    return super
-      .touch(sid, session)
+    return withDeadlockRetry(() => super.touch(sid, session))
       .then(() => callback?.())
       .catch((error: unknown) => callback?.(storeError(error)));
   }

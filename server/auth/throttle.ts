@@ -17,6 +17,7 @@ import { ERROR_CODES } from '../../shared/errors';
 import type { Db } from '../db';
 import { AppError, ValidationError } from '../errors';
 import { validate } from '../middleware/validate';
+import { withDeadlockRetry } from '../services/deadlock-retry';
 
 export const THROTTLE_TABLE = 'rate_limits';
 export const THROTTLE_WINDOW_S = 15 * 60;
@@ -90,13 +91,15 @@ export class Throttle {
 
   /** A success: the account's count starts over and the attempt is given back to the address. */
   async succeeded(address: string, account: string): Promise<void> {
-    await this.account.delete(this.accountKey(address, account));
-    await this.address.reward(address);
+    await withDeadlockRetry(() => this.account.delete(this.accountKey(address, account)));
+    await withDeadlockRetry(() => this.address.reward(address));
   }
 
   private async consume(limiter: RateLimiterMySQL, key: string): Promise<void> {
     try {
-      await limiter.consume(key);
+      // The store counts in a transaction on one row per key; on a Galera cluster two processes
+      // counting the same key on different nodes conflict (1213) and the loser counts again.
+      await withDeadlockRetry(() => limiter.consume(key));
     } catch (error) {
       // The library rejects with its result when the count is used up, with the error otherwise.
       if (error instanceof RateLimiterRes) throw new TooManyAttemptsError(this.message, Math.max(1, Math.ceil(error.msBeforeNext / 1000)));

@@ -6,7 +6,7 @@ import type { AuditVerification } from '../../shared/schemas/audit';
 import { isDatabaseUnavailable, isRetryableLockError, type Db, type Trx } from '../db';
 import { AppError, UnavailableError } from '../errors';
 import { wellFormed } from '../well-formed';
-import { withDeadlockRetry } from './deadlock-retry';
+import { NotCommittedError, withDeadlockRetry } from './deadlock-retry';
 import { canonical } from '../../shared/canonical-json';
 
 export interface AuditInput {
@@ -78,11 +78,15 @@ export function auditedTransaction<T>(db: Db, body: (trx: Trx) => Promise<T>): P
 async function auditedTransactionOnce<T>(db: Db, body: (trx: Trx) => Promise<T>): Promise<T> {
   const trx = await db.transaction();
   queued.set(trx, []);
+  // Until the statement that commits is sent, a dead connection means nothing was written.
+  let commitSent = false;
   try {
     const result = await body(trx);
     const entries = queued.get(trx)!;
     queued.delete(trx);
+    if (entries.length === 0) commitSent = true;
     for (const [index, row] of entries.entries()) {
+      if (index === entries.length - 1) commitSent = true;
       await trx.raw('CALL audit_append(?, ?, ?, ?, ?, ?, ?, ?, ?)', [
         new Date(row.at),
         row.actorId,
@@ -100,6 +104,11 @@ async function auditedTransactionOnce<T>(db: Db, body: (trx: Trx) => Promise<T>)
     return result;
   } catch (error) {
     queued.delete(trx);
+    // (Before COMMIT was sent, knex completing the transaction by itself also means the connection died.)
+    if (!commitSent && !(error instanceof AppError) && (isDatabaseUnavailable(error) || trx.isCompleted())) {
+      await trx.rollback().catch(() => undefined);
+      throw new NotCommittedError(error);
+    }
     if (!trx.isCompleted()) {
       await trx.rollback().catch(() => undefined);
       throw error;

@@ -8,12 +8,17 @@ import type { Db, Trx } from '../db';
 import { ConflictError, ValidationError } from '../errors';
 import type { ItemRow } from './item-rows';
 
-/** Item rows, locked in id order for the rest of the transaction (after the booking row, if any). */
+/**
+ * Item rows, locked in id order for the rest of the transaction (after the booking row, if any),
+ * and written: `hold_version` moves on, so on a Galera cluster a transaction on another node that
+ * locked the same items conflicts with this one at commit (migration 20261203300000).
+ */
 export async function lockItems(trx: Trx, itemIds: readonly number[]): Promise<ItemRow[]> {
   const ids = [...new Set(itemIds)].sort((a, b) => a - b);
   const rows = (await trx<ItemRow>('items').whereIn('id', ids).orderBy('id').forUpdate()) as ItemRow[];
   const missing = ids.filter((id) => !rows.some((r) => r.id === id));
   if (missing.length > 0) throw new ValidationError(`No item with id ${missing.join(', ')}.`, { itemIds: [`Unknown item ${missing.join(', ')}`] });
+  await trx.raw(`UPDATE items SET hold_version = hold_version + 1 WHERE id IN (${ids.map(() => '?').join(', ')})`, ids);
   return rows;
 }
 

@@ -13,11 +13,22 @@
 // (`npm run test:model` runs 400 rounds).
 import type { Express } from 'express';
 import { MODEL_TEST_DATABASE } from '../../../scripts/lib/test-database';
+import { loadConfig } from '../../../server/config';
+import { createDb } from '../../../server/db';
 import { addDaysIso, todayIso } from '../../../server/services/dates';
 import { ratedKvOf, type ItemKind, type ItemRatings } from '../../../shared/schemas/items';
 import { post, put } from '../../helpers/booking-flow';
 import { insertItem, qualify } from '../../helpers/gear';
 import { createPerson, createTestContext, signedInAgent, type TestContext } from '../../helpers/test-app';
+
+// tests/cluster/model-across-processes.test.ts runs this same model against the app processes of
+// the cluster: requests go to MODEL_TARGET_URL, checks read the database on MODEL_TARGET_DB_SOCKET.
+const TARGET_URL = process.env.MODEL_TARGET_URL;
+function clusterTarget(): TestContext {
+  const config = loadConfig({ DB_SOCKET: process.env.MODEL_TARGET_DB_SOCKET, DB_NAME: process.env.MODEL_TARGET_DB_NAME, DB_POOL_MAX: '10' });
+  const db = createDb(config);
+  return { db, app: undefined as unknown as Express, config, close: () => db.destroy() };
+}
 
 const SEED = Number(process.env.MODEL_SEED ?? Math.floor(Math.random() * 2 ** 31));
 const ROUNDS = Number(process.env.MODEL_ROUNDS ?? 50);
@@ -84,8 +95,8 @@ const who = (a: Actor) => ({ agent: a.session.agent, csrf: a.session.csrf, perso
 const patch = (a: Actor, path: string, body: unknown) => a.session.agent.patch(path).set('x-csrf-token', a.session.csrf()).send(body as object);
 
 beforeAll(async () => {
-  ctx = createTestContext({ DB_NAME: MODEL_TEST_DATABASE, DB_POOL_MAX: '30', LOGIN_RATE_LIMIT: '1000' });
-  app = ctx.app;
+  ctx = TARGET_URL ? clusterTarget() : createTestContext({ DB_NAME: MODEL_TEST_DATABASE, DB_POOL_MAX: '30', LOGIN_RATE_LIMIT: '1000' });
+  app = TARGET_URL ? (TARGET_URL as unknown as Express) : ctx.app;
   auditFloor = Number((await ctx.db('audit_events').max('id as m').first())?.m ?? 0);
   members = [await actor('Model member Ada', 'member'), await actor('Model member Bram', 'member')];
   switched = await actor('Model member Cleo', 'member');
