@@ -23,15 +23,45 @@ const INSIDE_ZOD = /[\\/]node_modules[\\/]zod[\\/]/;
 const englishOnlyLocales = path.resolve(__dirname, 'metro/zod-locales-en.js');
 const LEFT_OUT = [
   { request: /^\.\/compile\.c?js$/, from: /[\\/]zod[\\/]v4[\\/]core[\\/]index\.c?js$/, file: path.resolve(__dirname, 'metro/zod-compile-left-out.js') },
-  { request: /^\.\/from-json-schema\.c?js$/, from: /[\\/]zod[\\/]v4[\\/]classic[\\/]external\.c?js$/, file: path.resolve(__dirname, 'metro/zod-from-json-schema-left-out.js') },
+  {
+    request: /^\.\/from-json-schema\.c?js$/,
+    from: /[\\/]zod[\\/]v4[\\/]classic[\\/]external\.c?js$/,
+    file: path.resolve(__dirname, 'metro/zod-from-json-schema-left-out.js'),
+  },
 ];
 
-const RN_WEB_LEFT_OUT = ['FlatList', 'SectionList', 'VirtualizedList', 'Modal', 'CheckBox', 'Switch', 'Picker', 'ProgressBar', 'Touchable', 'TouchableHighlight', 'TouchableWithoutFeedback', 'TouchableNativeFeedback', 'ImageBackground', 'KeyboardAvoidingView', 'RefreshControl', 'PanResponder', 'YellowBox', 'InputAccessoryView'];
+const RN_WEB_LEFT_OUT = [
+  'FlatList',
+  'SectionList',
+  'VirtualizedList',
+  'Modal',
+  'CheckBox',
+  'Switch',
+  'Picker',
+  'ProgressBar',
+  'Touchable',
+  'TouchableHighlight',
+  'TouchableWithoutFeedback',
+  'TouchableNativeFeedback',
+  'ImageBackground',
+  'KeyboardAvoidingView',
+  'RefreshControl',
+  'PanResponder',
+  'YellowBox',
+  'InputAccessoryView',
+];
 const RN_WEB_EXPORT = new RegExp(`[\\\\/]react-native-web[\\\\/]dist[\\\\/]exports[\\\\/](${RN_WEB_LEFT_OUT.join('|')})[\\\\/]index\\.js$`);
 const INSIDE_RN_WEB = /[\\/]node_modules[\\/]react-native-web[\\/]/;
 const rnWebLeftOut = path.resolve(__dirname, 'metro/rn-web-left-out.js');
 
-const ROUTER_LEFT_OUT = ['views/Sitemap', 'react-navigation/elements/Header/HeaderSearchBar', 'link/preview/HrefPreview', 'link/LinkWithPreview', 'react-navigation/core/StaticNavigation', 'react-navigation/native/createStaticNavigation'];
+const ROUTER_LEFT_OUT = [
+  'views/Sitemap',
+  'react-navigation/elements/Header/HeaderSearchBar',
+  'link/preview/HrefPreview',
+  'link/LinkWithPreview',
+  'react-navigation/core/StaticNavigation',
+  'react-navigation/native/createStaticNavigation',
+];
 const ROUTER_EXPORT = new RegExp(`[\\\\/]expo-router[\\\\/]build[\\\\/](${ROUTER_LEFT_OUT.join('|')})\\.js$`);
 const routerLeftOut = path.resolve(__dirname, 'metro/expo-router-left-out.js');
 

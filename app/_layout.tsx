@@ -48,11 +48,7 @@ function RootNavigator() {
 
   // Keep showing the last known session while a refetch runs or fails; only the first load blocks.
   if (session.data === undefined) {
-    return session.isError ? (
-      <SessionErrorScreen error={session.error} onRetry={() => void session.refetch()} retrying={session.isFetching} />
-    ) : (
-      <BootScreen />
-    );
+    return session.isError ? <SessionErrorScreen error={session.error} onRetry={() => void session.refetch()} retrying={session.isFetching} /> : <BootScreen />;
   }
 
   const signedIn = session.data.user !== null;

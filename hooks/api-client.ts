@@ -93,7 +93,10 @@ async function send<T>(path: string, options: RequestOptions & { csrfToken?: str
   let answer: Answer;
   try {
     // fetch cannot report how much of a body has gone out; XMLHttpRequest can.
-    answer = options.onUploadProgress && typeof XMLHttpRequest !== 'undefined' ? await sendWithProgress(path, request, options.onUploadProgress) : await sendWithFetch(path, request);
+    answer =
+      options.onUploadProgress && typeof XMLHttpRequest !== 'undefined'
+        ? await sendWithProgress(path, request, options.onUploadProgress)
+        : await sendWithFetch(path, request);
   } catch (error) {
     if (error instanceof Error && error.name === 'AbortError') throw error;
     throw new ApiError(0, ERROR_CODES.unavailable, UNREACHABLE_MESSAGE);

@@ -23,8 +23,7 @@ export function createQueryClient(): QueryClient {
       queries: {
         staleTime: 30_000,
         // Only a server that could not answer is worth asking again; a 4xx will not change.
-        retry: (failureCount, error) =>
-          failureCount < MAX_RETRIES && (!isApiError(error) || error.status === 0 || error.status >= 500),
+        retry: (failureCount, error) => failureCount < MAX_RETRIES && (!isApiError(error) || error.status === 0 || error.status >= 500),
       },
       // A change (release, booking, return) is sent now or fails now: never held while offline
       // and sent later, when the person may have walked away from the bench.

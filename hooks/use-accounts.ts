@@ -8,8 +8,7 @@ import { sessionKeys } from './use-session';
 
 export function useRequestPasswordResetMutation() {
   return useMutation({
-    mutationFn: (input: { email: string }) =>
-      apiRequest<{ ok: true; message: string }>('/api/password-resets', { method: 'POST', body: input }),
+    mutationFn: (input: { email: string }) => apiRequest<{ ok: true; message: string }>('/api/password-resets', { method: 'POST', body: input }),
   });
 }
 

@@ -41,10 +41,7 @@ function toAssessedItem(item: Item): AssessedItem {
 }
 
 export type LiveAssessment =
-  | { state: 'waiting'; reason: string }
-  | { state: 'loading' }
-  | { state: 'error'; error: unknown }
-  | { state: 'ready'; assessment: Assessment; stale: boolean };
+  { state: 'waiting'; reason: string } | { state: 'loading' } | { state: 'error'; error: unknown } | { state: 'ready'; assessment: Assessment; stale: boolean };
 
 const DEBOUNCE_MS = 350;
 
@@ -52,7 +49,17 @@ const DEBOUNCE_MS = 350;
  * The assessment of the plan being typed, recomputed once typing pauses. `stale` is true while
  * the inputs have changed and the pause has not yet come.
  */
-export function useLiveAssessment({ items, itemsLoading, plan, personId }: { items: Item[]; itemsLoading: boolean; plan: unknown; personId: number | undefined }): LiveAssessment {
+export function useLiveAssessment({
+  items,
+  itemsLoading,
+  plan,
+  personId,
+}: {
+  items: Item[];
+  itemsLoading: boolean;
+  plan: unknown;
+  personId: number | undefined;
+}): LiveAssessment {
   const rules = useLabRulesQuery();
   const qualification = useQualificationQuery(personId);
   const inputKey = JSON.stringify({ plan, items: items.map((i) => [i.id, i.updatedAt]) });

@@ -37,7 +37,8 @@ export function useRunRevisionsQuery(bookingId: number, runId: number | null) {
 
 function useRefresh(bookingId: number) {
   const queryClient = useQueryClient();
-  return () => Promise.all([queryClient.invalidateQueries({ queryKey: benchRunKeys.booking(bookingId) }), queryClient.invalidateQueries({ queryKey: auditKeys.all })]);
+  return () =>
+    Promise.all([queryClient.invalidateQueries({ queryKey: benchRunKeys.booking(bookingId) }), queryClient.invalidateQueries({ queryKey: auditKeys.all })]);
 }
 
 export function useRecordRunMutation(bookingId: number) {
@@ -51,7 +52,8 @@ export function useRecordRunMutation(bookingId: number) {
 export function useEditRunMutation(bookingId: number) {
   const refresh = useRefresh(bookingId);
   return useMutation({
-    mutationFn: ({ runId, edit }: { runId: number; edit: BenchRunEdit }) => apiRequest<{ run: BenchRun }>(`/api/bookings/${bookingId}/runs/${runId}`, { method: 'PUT', body: edit }).then((r) => r.run),
+    mutationFn: ({ runId, edit }: { runId: number; edit: BenchRunEdit }) =>
+      apiRequest<{ run: BenchRun }>(`/api/bookings/${bookingId}/runs/${runId}`, { method: 'PUT', body: edit }).then((r) => r.run),
     onSuccess: refresh,
   });
 }
@@ -59,7 +61,8 @@ export function useEditRunMutation(bookingId: number) {
 export function useDeleteRunMutation(bookingId: number) {
   const refresh = useRefresh(bookingId);
   return useMutation({
-    mutationFn: ({ runId, reason }: { runId: number; reason: string }) => apiRequest<void>(`/api/bookings/${bookingId}/runs/${runId}`, { method: 'DELETE', body: { reason } }),
+    mutationFn: ({ runId, reason }: { runId: number; reason: string }) =>
+      apiRequest<void>(`/api/bookings/${bookingId}/runs/${runId}`, { method: 'DELETE', body: { reason } }),
     onSuccess: refresh,
   });
 }
@@ -67,7 +70,8 @@ export function useDeleteRunMutation(bookingId: number) {
 export function useImportRunsMutation(bookingId: number) {
   const refresh = useRefresh(bookingId);
   return useMutation({
-    mutationFn: (body: BenchRunImport) => apiRequest<{ runs: BenchRun[]; imported: number }>(`/api/bookings/${bookingId}/runs/import`, { method: 'POST', body }),
+    mutationFn: (body: BenchRunImport) =>
+      apiRequest<{ runs: BenchRun[]; imported: number }>(`/api/bookings/${bookingId}/runs/import`, { method: 'POST', body }),
     onSuccess: refresh,
   });
 }

@@ -154,7 +154,8 @@ export function useApprovalDecisionMutation(id: number) {
   const written = useBookingWritten();
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (input: ApprovalDecisionInput) => apiRequest<{ booking: Booking }>(`/api/bookings/${id}/approval`, { method: 'POST', body: input }).then(bookingOf),
+    mutationFn: (input: ApprovalDecisionInput) =>
+      apiRequest<{ booking: Booking }>(`/api/bookings/${id}/approval`, { method: 'POST', body: input }).then(bookingOf),
     onSuccess: written,
     // PLAN_CHANGED: the booking moved on while the officer read it; show it as it is now.
     onError: () => queryClient.invalidateQueries({ queryKey: bookingKeys.detail(id) }),
@@ -172,7 +173,8 @@ export function useScanMutation(id: number) {
 export function useChecklistMutation(id: number) {
   const written = useBookingWritten();
   return useMutation({
-    mutationFn: (input: ChecklistSubmitInput) => apiRequest<{ booking: Booking }>(`/api/bookings/${id}/checklist`, { method: 'POST', body: input }).then(bookingOf),
+    mutationFn: (input: ChecklistSubmitInput) =>
+      apiRequest<{ booking: Booking }>(`/api/bookings/${id}/checklist`, { method: 'POST', body: input }).then(bookingOf),
     onSuccess: written,
   });
 }
@@ -208,7 +210,11 @@ export function useReleaseMutation(id: number) {
     },
     onSuccess: written,
     // A refusal may be news (an inspection lapsed, an approval was voided): show the booking as it is.
-    onError: () => Promise.all([queryClient.invalidateQueries({ queryKey: bookingKeys.detail(id) }), queryClient.invalidateQueries({ queryKey: bookingKeys.releaseCheck(id) })]),
+    onError: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: bookingKeys.detail(id) }),
+        queryClient.invalidateQueries({ queryKey: bookingKeys.releaseCheck(id) }),
+      ]),
   });
 }
 
@@ -218,7 +224,9 @@ export function useReturnMutation(id: number) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: async ({ answers, ...input }: ReturnInput & { answers: ChecklistSubmitInput['answers'] }) => {
-      const checked = bookingOf(await apiRequest<{ booking: Booking }>(`/api/bookings/${id}/checklist`, { method: 'POST', body: { phase: 'return', answers } }));
+      const checked = bookingOf(
+        await apiRequest<{ booking: Booking }>(`/api/bookings/${id}/checklist`, { method: 'POST', body: { phase: 'return', answers } }),
+      );
       // The run is on record even if the return is refused: keep the detail in step with it.
       queryClient.setQueryData(bookingKeys.detail(id), { booking: checked });
       try {

@@ -35,8 +35,7 @@ function useInvalidateTemplates() {
 export function useCreateChecklistTemplateMutation() {
   const invalidate = useInvalidateTemplates();
   return useMutation({
-    mutationFn: (input: ChecklistTemplateItemInput) =>
-      apiRequest<{ template: ChecklistTemplate }>('/api/checklist-templates', { method: 'POST', body: input }),
+    mutationFn: (input: ChecklistTemplateItemInput) => apiRequest<{ template: ChecklistTemplate }>('/api/checklist-templates', { method: 'POST', body: input }),
     onSuccess: invalidate,
   });
 }

@@ -3,7 +3,15 @@
 // tagged out and the audit.
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
-import type { CorrectiveAction, Incident, IncidentCreateInput, IncidentKind, IncidentStatus, IncidentSummary, IncidentUpdateInput } from '@/shared/schemas/incidents';
+import type {
+  CorrectiveAction,
+  Incident,
+  IncidentCreateInput,
+  IncidentKind,
+  IncidentStatus,
+  IncidentSummary,
+  IncidentUpdateInput,
+} from '@/shared/schemas/incidents';
 
 import { apiRequest, apiUpload } from './api-client';
 import { auditKeys } from './use-audit';
@@ -77,7 +85,8 @@ export function useReportIncidentMutation() {
 export function useReviewIncidentMutation(id: number) {
   const refresh = useRefresh();
   return useMutation({
-    mutationFn: (input: IncidentUpdateInput) => apiRequest<{ incident: Incident }>(`/api/incidents/${id}`, { method: 'PATCH', body: input }).then((r) => r.incident),
+    mutationFn: (input: IncidentUpdateInput) =>
+      apiRequest<{ incident: Incident }>(`/api/incidents/${id}`, { method: 'PATCH', body: input }).then((r) => r.incident),
     onSuccess: refresh,
   });
 }
@@ -85,7 +94,8 @@ export function useReviewIncidentMutation(id: number) {
 export function useActionDoneMutation() {
   const refresh = useRefresh();
   return useMutation({
-    mutationFn: ({ actionId, done }: { actionId: number; done: boolean }) => apiRequest<{ incident: Incident }>(`/api/incidents/actions/${actionId}`, { method: 'PATCH', body: { done } }).then((r) => r.incident),
+    mutationFn: ({ actionId, done }: { actionId: number; done: boolean }) =>
+      apiRequest<{ incident: Incident }>(`/api/incidents/actions/${actionId}`, { method: 'PATCH', body: { done } }).then((r) => r.incident),
     onSuccess: refresh,
   });
 }

@@ -27,10 +27,7 @@ export function useRecordInspectionMutation(itemId: number) {
       apiRequest<{ inspection: Inspection; item: Item }>(`/api/items/${itemId}/inspections`, { method: 'POST', body: input }),
     onSuccess: async ({ item }) => {
       queryClient.setQueryData(itemKeys.detail(itemId), { item });
-      await Promise.all([
-        queryClient.invalidateQueries({ queryKey: inspectionKeys.list(itemId) }),
-        queryClient.invalidateQueries({ queryKey: itemKeys.all }),
-      ]);
+      await Promise.all([queryClient.invalidateQueries({ queryKey: inspectionKeys.list(itemId) }), queryClient.invalidateQueries({ queryKey: itemKeys.all })]);
     },
   });
 }

@@ -19,5 +19,9 @@ function subscribe(onChange: () => void): () => void {
 
 /** True while online; re-renders when the connection drops or comes back. */
 export function useOnlineStatus(): boolean {
-  return useSyncExternalStore(subscribe, () => onlineManager.isOnline(), () => true);
+  return useSyncExternalStore(
+    subscribe,
+    () => onlineManager.isOnline(),
+    () => true,
+  );
 }

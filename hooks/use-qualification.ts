@@ -33,7 +33,8 @@ export function useQualificationsQuery() {
 export function useSetQualificationMutation(personId: number) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (input: QualificationInput) => apiRequest<{ qualification: Qualification }>(`/api/people/${personId}/qualification`, { method: 'PUT', body: input }),
+    mutationFn: (input: QualificationInput) =>
+      apiRequest<{ qualification: Qualification }>(`/api/people/${personId}/qualification`, { method: 'PUT', body: input }),
     // Assessments depend on it too: a new qualification can lift an approval reason.
     onSuccess: () => queryClient.invalidateQueries({ queryKey: qualificationKeys.all }),
   });

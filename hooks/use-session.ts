@@ -27,8 +27,7 @@ export function useCurrentUser(): SessionUser | null {
 export function useSignInMutation() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (input: SignInInput) =>
-      apiRequest<{ user: SessionUser }>('/api/session', { method: 'POST', body: input }),
+    mutationFn: (input: SignInInput) => apiRequest<{ user: SessionUser }>('/api/session', { method: 'POST', body: input }),
     onSuccess: async () => {
       // Signing in issues a new session and a new CSRF token: drop the old one and wait for the
       // refetch, so callers awaiting the mutation see the signed-in routes already in place.
@@ -53,7 +52,6 @@ export function useSignOutMutation() {
     },
   });
 }
-
 
 /** The lab's clock, for the gate's times; the device's own zone until the session has loaded. */
 export function useLabTimeZone(): string {

@@ -137,7 +137,17 @@ export async function up(knex: Knex): Promise<void> {
 }
 
 export async function down(knex: Knex): Promise<void> {
-  for (const table of ['incidents', 'checklist_runs', 'checklist_templates', 'booking_scans', 'approvals', 'booking_items', 'bookings', 'qualifications', 'lab_rules']) {
+  for (const table of [
+    'incidents',
+    'checklist_runs',
+    'checklist_templates',
+    'booking_scans',
+    'approvals',
+    'booking_items',
+    'bookings',
+    'qualifications',
+    'lab_rules',
+  ]) {
     await knex.schema.dropTable(table);
   }
 }

@@ -9,7 +9,14 @@ const PRE = [
   { kind: 'confirm', text: 'Barrier at or beyond the limited approach boundary shown in the assessment.' },
   { kind: 'confirm', text: 'Second person present, briefed, and knows where the emergency stop is.', applies_from_kv: 15 },
   { kind: 'confirm', text: 'Probe or divider rated for the planned voltage and connected ground lead first.', applies_with_kind: 'probe' },
-  { kind: 'reading', text: 'Bleeder resistance measured at the output (supply off).', unit: 'MΩ', min_value: 10, max_value: 2000, applies_with_kind: 'hv-supply' },
+  {
+    kind: 'reading',
+    text: 'Bleeder resistance measured at the output (supply off).',
+    unit: 'MΩ',
+    min_value: 10,
+    max_value: 2000,
+    applies_with_kind: 'hv-supply',
+  },
   { kind: 'photo', text: 'Photo of the barrier and ground connection (optional).', required: false },
 ];
 const RETURN = [

@@ -8,7 +8,7 @@ export async function up(knex: Knex): Promise<void> {
     t.enum('last_inspection_result', ['pass', 'fail']).nullable();
   });
   await knex.raw(
-    "UPDATE items i SET last_inspection_result = (SELECT result FROM inspections x WHERE x.item_id = i.id ORDER BY x.inspected_on DESC, x.id DESC LIMIT 1)",
+    'UPDATE items i SET last_inspection_result = (SELECT result FROM inspections x WHERE x.item_id = i.id ORDER BY x.inspected_on DESC, x.id DESC LIMIT 1)',
   );
 }
 

@@ -33,7 +33,7 @@ export async function up(knex: Knex): Promise<void> {
     t.index(['term', 'tag', 'rated_kv']);
   });
 
-  for (let after = 0; ; ) {
+  for (let after = 0; ;) {
     const items = (await knex('items')
       .where('id', '>', after)
       .orderBy('id')

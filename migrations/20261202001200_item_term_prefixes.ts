@@ -28,14 +28,16 @@ export async function down(knex: Knex): Promise<void> {
         items.map((i) => i.id),
       )
       .delete();
-    const rows = items.flatMap((item) => wholeWordsOf(item).map((term) => ({ term, item_id: item.id, kind: item.kind, tag: item.tag, rated_kv: item.rated_kv })));
+    const rows = items.flatMap((item) =>
+      wholeWordsOf(item).map((term) => ({ term, item_id: item.id, kind: item.kind, tag: item.tag, rated_kv: item.rated_kv })),
+    );
     for (let start = 0; start < rows.length; start += INSERT_CHUNK) await knex('item_terms').insert(rows.slice(start, start + INSERT_CHUNK));
   });
 }
 
 /** Rewrites the rows of every item, a batch of items at a time, then refreshes the statistics. */
 async function rewriteAll(knex: Knex, write: (items: TermSource[]) => Promise<void>): Promise<void> {
-  for (let after = 0; ; ) {
+  for (let after = 0; ;) {
     const items = (await knex('items')
       .where('id', '>', after)
       .orderBy('id')

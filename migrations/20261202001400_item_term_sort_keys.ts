@@ -15,10 +15,13 @@ export async function up(knex: Knex): Promise<void> {
   await knex.raw(`ALTER TABLE item_terms ADD COLUMN name VARCHAR(120) COLLATE ${nameColumn!.collation} NULL, ADD COLUMN next_inspection_due DATE NULL`);
 
   // Filled a batch of items at a time, so no statement holds locks on the whole table.
-  for (let after = 0; ; ) {
+  for (let after = 0; ;) {
     const last = (await knex('items').where('id', '>', after).orderBy('id').limit(BATCH).select('id')).at(-1)?.id as number | undefined;
     if (last === undefined) break;
-    await knex.raw('UPDATE item_terms AS t JOIN items AS i ON i.id = t.item_id SET t.name = i.name, t.next_inspection_due = i.next_inspection_due WHERE t.item_id > ? AND t.item_id <= ?', [after, last]);
+    await knex.raw(
+      'UPDATE item_terms AS t JOIN items AS i ON i.id = t.item_id SET t.name = i.name, t.next_inspection_due = i.next_inspection_due WHERE t.item_id > ? AND t.item_id <= ?',
+      [after, last],
+    );
     after = last;
   }
 

@@ -25,7 +25,9 @@ export async function up(knex: Knex): Promise<void> {
       earlyPickupMin: Number(row.early_pickup_min),
       overdueGraceMin: Number(row.overdue_grace_min),
     };
-    await knex('lab_rules').where({ id: 1 }).update({ confirmed_rules: JSON.stringify(confirmed), pending_editors: '[]' });
+    await knex('lab_rules')
+      .where({ id: 1 })
+      .update({ confirmed_rules: JSON.stringify(confirmed), pending_editors: '[]' });
   }
 }
 

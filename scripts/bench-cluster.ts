@@ -38,7 +38,11 @@ async function signIn(base: string, email: string, password: string): Promise<Au
   const first = await fetch(`${base}/api/session`);
   keep(first);
   const { csrfToken } = (await first.json()) as { csrfToken: string };
-  const res = await fetch(`${base}/api/session`, { method: 'POST', headers: { cookie: cookie(), 'x-csrf-token': csrfToken, 'content-type': 'application/json' }, body: JSON.stringify({ email, password }) });
+  const res = await fetch(`${base}/api/session`, {
+    method: 'POST',
+    headers: { cookie: cookie(), 'x-csrf-token': csrfToken, 'content-type': 'application/json' },
+    body: JSON.stringify({ email, password }),
+  });
   keep(res);
   const body = (await res.json()) as { csrfToken: string };
   if (res.status !== 200) throw new Error(`bench sign-in failed: ${res.status}`);
@@ -49,20 +53,27 @@ const pct = (list: number[], q: number) => [...list].sort((a, b) => a - b)[Math.
 
 async function sessionRoute(base: string, auth: Auth) {
   const result = await new Promise<autocannon.Result>((resolve, reject) =>
-    autocannon({ url: `${base}/api/session`, headers: { cookie: auth.cookie }, connections: 20, duration: SECONDS }, (err, r) => (err ? reject(err) : resolve(r))),
+    autocannon({ url: `${base}/api/session`, headers: { cookie: auth.cookie }, connections: 20, duration: SECONDS }, (err, r) =>
+      err ? reject(err) : resolve(r),
+    ),
   );
   return { reqPerSec: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, non2xx: (result as unknown as { non2xx: number }).non2xx };
 }
 
 async function post(base: string, auth: Auth, p: string, body: unknown) {
   const t0 = performance.now();
-  const res = await fetch(base + p, { method: 'POST', headers: { cookie: auth.cookie, 'x-csrf-token': auth.csrf, 'content-type': 'application/json' }, body: JSON.stringify(body) });
+  const res = await fetch(base + p, {
+    method: 'POST',
+    headers: { cookie: auth.cookie, 'x-csrf-token': auth.csrf, 'content-type': 'application/json' },
+    body: JSON.stringify(body),
+  });
   const text = await res.text();
   return { status: res.status, ms: performance.now() - t0, body: text ? (JSON.parse(text) as Record<string, unknown>) : {} };
 }
 
 type Line = { id: number; kind: string; min?: number; required: boolean };
-const answers = (lines: Line[]) => lines.filter((e) => e.required).map((e) => (e.kind === 'reading' ? { itemId: e.id, value: e.min ?? 0 } : { itemId: e.id, confirmed: true }));
+const answers = (lines: Line[]) =>
+  lines.filter((e) => e.required).map((e) => (e.kind === 'reading' ? { itemId: e.id, value: e.min ?? 0 } : { itemId: e.id, confirmed: true }));
 
 async function releaseLoops(base: string, counters: { auth: Auth; kit: { ids: number[]; tags: string[] } }[]) {
   const requestMs: number[] = [];
@@ -79,7 +90,14 @@ async function releaseLoops(base: string, counters: { auth: Auth; kit: { ids: nu
     counters.map(async ({ auth, kit }) => {
       while (Date.now() < until) {
         const t0 = performance.now();
-        const created = await step(auth, '/api/bookings', { itemIds: kit.ids, startsAt: new Date(Date.now() - 60_000).toISOString(), endsAt: new Date(Date.now() + 3600_000).toISOString(), location: 'Bench bay', purpose: 'Cluster bench', plan: { plannedKv: 10, polarity: 'negative', maxCurrentMa: 1, peoplePresent: 2 } });
+        const created = await step(auth, '/api/bookings', {
+          itemIds: kit.ids,
+          startsAt: new Date(Date.now() - 60_000).toISOString(),
+          endsAt: new Date(Date.now() + 3600_000).toISOString(),
+          location: 'Bench bay',
+          purpose: 'Cluster bench',
+          plan: { plannedKv: 10, polarity: 'negative', maxCurrentMa: 1, peoplePresent: 2 },
+        });
         if (created.status !== 201) continue;
         const b = created.body.booking as { id: number; checklist: { pre: Line[]; return: Line[] } };
         for (const tag of kit.tags) await step(auth, `/api/bookings/${b.id}/scans`, { tag });
@@ -91,7 +109,15 @@ async function releaseLoops(base: string, counters: { auth: Auth; kit: { ids: nu
       }
     }),
   );
-  return { requests: requestMs.length, requestP50: pct(requestMs, 0.5), requestP99: pct(requestMs, 0.99), loops: loopMs.length, loopP50: pct(loopMs, 0.5), loopP99: pct(loopMs, 0.99), statuses };
+  return {
+    requests: requestMs.length,
+    requestP50: pct(requestMs, 0.5),
+    requestP99: pct(requestMs, 0.99),
+    loops: loopMs.length,
+    loopP50: pct(loopMs, 0.5),
+    loopP99: pct(loopMs, 0.99),
+    statuses,
+  };
 }
 
 async function retryCounts(cluster: RunningCluster): Promise<{ retries: number; exhausted: number }> {
@@ -115,7 +141,14 @@ async function contention(cluster: RunningCluster, auth: Auth, kit: { ids: numbe
       while (next < 1000) {
         const i = next++;
         const start = new Date(at.getTime() + (i % 50) * 60_000);
-        const r = await post(cluster.url, auth, '/api/bookings', { itemIds: kit.ids, startsAt: start.toISOString(), endsAt: new Date(start.getTime() + 3600_000).toISOString(), location: 'Bench bay', purpose: `Contention ${i}`, plan: { plannedKv: 10, polarity: 'negative', maxCurrentMa: 1, peoplePresent: 2 } });
+        const r = await post(cluster.url, auth, '/api/bookings', {
+          itemIds: kit.ids,
+          startsAt: start.toISOString(),
+          endsAt: new Date(start.getTime() + 3600_000).toISOString(),
+          location: 'Bench bay',
+          purpose: `Contention ${i}`,
+          plan: { plannedKv: 10, polarity: 'negative', maxCurrentMa: 1, peoplePresent: 2 },
+        });
         statuses[r.status] = (statuses[r.status] ?? 0) + 1;
       }
     }),
@@ -140,7 +173,11 @@ async function main(): Promise<void> {
   const results: Record<string, unknown>[] = [];
   for (const appCount of [1, 2]) {
     console.log(`[bench:cluster] ${appCount} app process(es) behind the proxy on ${layout.proxy}…`);
-    const cluster = await runCluster(layout, { fresh: true, appCount, appEnv: { LOG_LEVEL: 'warn', LOGIN_RATE_LIMIT: '100000', LOGIN_RATE_LIMIT_PER_ADDRESS: '1000000', SCHEDULER: 'false' } });
+    const cluster = await runCluster(layout, {
+      fresh: true,
+      appCount,
+      appEnv: { LOG_LEVEL: 'warn', LOGIN_RATE_LIMIT: '100000', LOGIN_RATE_LIMIT_PER_ADDRESS: '1000000', SCHEDULER: 'false' },
+    });
     const db = cluster.connect(0);
     try {
       const counters = await people(db, COUNTERS + 1);
@@ -148,10 +185,17 @@ async function main(): Promise<void> {
       for (const c of counters) auths.push(await signIn(cluster.url, c.person.email, c.person.password));
       const session = await sessionRoute(cluster.url, auths[0]!);
       console.log(`  session route: ${session.reqPerSec.toFixed(0)} req/s, p50 ${session.p50} ms, p99 ${session.p99} ms`);
-      const loop = await releaseLoops(cluster.url, counters.slice(0, COUNTERS).map((c, i) => ({ auth: auths[i]!, kit: c.kit })));
-      console.log(`  release loop at ${COUNTERS} counters: ${loop.loops} loops, loop p50 ${loop.loopP50.toFixed(0)} ms / p99 ${loop.loopP99.toFixed(0)} ms; each request p50 ${loop.requestP50.toFixed(0)} ms / p99 ${loop.requestP99.toFixed(0)} ms; ${JSON.stringify(loop.statuses)}`);
+      const loop = await releaseLoops(
+        cluster.url,
+        counters.slice(0, COUNTERS).map((c, i) => ({ auth: auths[i]!, kit: c.kit })),
+      );
+      console.log(
+        `  release loop at ${COUNTERS} counters: ${loop.loops} loops, loop p50 ${loop.loopP50.toFixed(0)} ms / p99 ${loop.loopP99.toFixed(0)} ms; each request p50 ${loop.requestP50.toFixed(0)} ms / p99 ${loop.requestP99.toFixed(0)} ms; ${JSON.stringify(loop.statuses)}`,
+      );
       const contended = await contention(cluster, auths[COUNTERS]!, counters[COUNTERS]!.kit);
-      console.log(`  1,000 contended bookings: ${contended.retries} retries (${contended.exhausted} ran out, answered 503); ${JSON.stringify(contended.statuses)}`);
+      console.log(
+        `  1,000 contended bookings: ${contended.retries} retries (${contended.exhausted} ran out, answered 503); ${JSON.stringify(contended.statuses)}`,
+      );
       results.push({ appCount, session, loop, contended });
     } finally {
       await db.destroy();
@@ -160,10 +204,19 @@ async function main(): Promise<void> {
   }
   const machine = `${os.cpus().length} × ${os.cpus()[0]?.model ?? 'cpu'}, Node ${process.version}, three Galera nodes + HAProxy + app processes on one machine`;
   console.log(`\n${machine}`);
-  console.log('| app processes | session req/s | session p99 ms | release loop p99 ms (10 counters) | request p99 ms | retries per 1,000 contended bookings | ran out (503) |');
+  console.log(
+    '| app processes | session req/s | session p99 ms | release loop p99 ms (10 counters) | request p99 ms | retries per 1,000 contended bookings | ran out (503) |',
+  );
   console.log('| --- | --- | --- | --- | --- | --- | --- |');
-  for (const r of results as { appCount: number; session: { reqPerSec: number; p99: number }; loop: { loopP99: number; requestP99: number }; contended: { retries: number; exhausted: number } }[]) {
-    console.log(`| ${r.appCount} | ${r.session.reqPerSec.toFixed(0)} | ${r.session.p99} | ${r.loop.loopP99.toFixed(0)} | ${r.loop.requestP99.toFixed(0)} | ${r.contended.retries} | ${r.contended.exhausted} |`);
+  for (const r of results as {
+    appCount: number;
+    session: { reqPerSec: number; p99: number };
+    loop: { loopP99: number; requestP99: number };
+    contended: { retries: number; exhausted: number };
+  }[]) {
+    console.log(
+      `| ${r.appCount} | ${r.session.reqPerSec.toFixed(0)} | ${r.session.p99} | ${r.loop.loopP99.toFixed(0)} | ${r.loop.requestP99.toFixed(0)} | ${r.contended.retries} | ${r.contended.exhausted} |`,
+    );
   }
   mkdirSync(path.join(ROOT, 'bench', 'results'), { recursive: true });
   writeFileSync(path.join(ROOT, 'bench', 'results', 'cluster-latest.json'), JSON.stringify({ at: new Date().toISOString(), machine, results }, null, 2));

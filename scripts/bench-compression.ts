@@ -12,7 +12,28 @@ import { brotliCompressSync, constants, gzipSync } from 'node:zlib';
 const ROOT = path.resolve(__dirname, '..');
 
 // Varied words, so the answers compress like real ones and not like one row repeated.
-const WORDS = ['corona', 'ion', 'wind', 'sweep', 'divider', 'bleeder', 'stack', 'flyback', 'grounding', 'stand', 'probe', 'enclosure', 'teaching', 'bench', 'precipitator', 'spinneret', 'needle', 'plate', 'guard', 'ring'];
+const WORDS = [
+  'corona',
+  'ion',
+  'wind',
+  'sweep',
+  'divider',
+  'bleeder',
+  'stack',
+  'flyback',
+  'grounding',
+  'stand',
+  'probe',
+  'enclosure',
+  'teaching',
+  'bench',
+  'precipitator',
+  'spinneret',
+  'needle',
+  'plate',
+  'guard',
+  'ring',
+];
 const word = (i: number, k: number) => WORDS[(i * 7 + k * 13 + ((i * k) % 5)) % WORDS.length]!;
 
 function itemRow(i: number) {
@@ -21,7 +42,7 @@ function itemRow(i: number) {
     tag: `KH-${String(i).padStart(5, '0')}`,
     kind: ['probe', 'hv-supply', 'grounding-stick', 'isolation-stand', 'interlock', 'multiplier'][i % 6],
     name: `${word(i, 1)} ${word(i, 2)} ${word(i, 3)} ${1000 + ((i * 7919) % 9000)}`,
-    notes: `${word(i, 4)} ${word(i, 5)} checked ${(i * 37) % 28 + 1} Nov, ${word(i, 6)} ${word(i, 7)}`,
+    notes: `${word(i, 4)} ${word(i, 5)} checked ${((i * 37) % 28) + 1} Nov, ${word(i, 6)} ${word(i, 7)}`,
     status: 'available',
     location: 'Bay 2, cabinet B',
     ratedKv: 40 + (i % 5) * 10,
@@ -75,14 +96,18 @@ function cpuRound(fn: () => Buffer, minMs = 300): { us: number; bytes: number } 
 const rows = BODIES.map(({ name, body }) => {
   const buffer = Buffer.from(body);
   const gzip = cpuMicrosPerCall(() => gzipSync(buffer, { level: 6 }));
-  const br = cpuMicrosPerCall(() => brotliCompressSync(buffer, { params: { [constants.BROTLI_PARAM_QUALITY]: 4, [constants.BROTLI_PARAM_SIZE_HINT]: buffer.length } }));
+  const br = cpuMicrosPerCall(() =>
+    brotliCompressSync(buffer, { params: { [constants.BROTLI_PARAM_QUALITY]: 4, [constants.BROTLI_PARAM_SIZE_HINT]: buffer.length } }),
+  );
   return { name, rawBytes: buffer.length, gzipBytes: gzip.bytes, gzipCpuUs: gzip.us, brBytes: br.bytes, brCpuUs: br.us };
 });
 
 console.log('| answer | raw | gzip (level 6) | gzip CPU µs | brotli (q4) | brotli CPU µs |');
 console.log('| --- | ---: | ---: | ---: | ---: | ---: |');
 for (const r of rows) {
-  console.log(`| ${r.name} | ${(r.rawBytes / 1024).toFixed(1)} KB | ${(r.gzipBytes / 1024).toFixed(1)} KB | ${r.gzipCpuUs.toFixed(0)} | ${(r.brBytes / 1024).toFixed(1)} KB | ${r.brCpuUs.toFixed(0)} |`);
+  console.log(
+    `| ${r.name} | ${(r.rawBytes / 1024).toFixed(1)} KB | ${(r.gzipBytes / 1024).toFixed(1)} KB | ${r.gzipCpuUs.toFixed(0)} | ${(r.brBytes / 1024).toFixed(1)} KB | ${r.brCpuUs.toFixed(0)} |`,
+  );
 }
 const machine = `${os.cpus().length} × ${os.cpus()[0]?.model ?? 'unknown'}, Node ${process.version}`;
 console.log(`\nmachine: ${machine}`);

@@ -48,7 +48,11 @@ async function main(): Promise<void> {
   const s3 = await startFakeS3({ directory: path.join(ROOT, '.data', 'bench-s3'), port: 0, bucket: config.s3.bucket });
   const maxId = Number((await db('items').max({ m: 'id' }).first())?.m);
   const reference: RequestHandler = async (_req, res) => {
-    res.json(await db('items').where({ id: 1 + Math.floor(Math.random() * maxId) }).first('id', 'tag', 'name'));
+    res.json(
+      await db('items')
+        .where({ id: 1 + Math.floor(Math.random() * maxId) })
+        .first('id', 'tag', 'name'),
+    );
   };
   const app = createApp({
     db,

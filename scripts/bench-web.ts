@@ -23,7 +23,15 @@ const ROOT = path.resolve(__dirname, '..');
 const RUNS = Number(process.env.BENCH_WEB_RUNS ?? 3);
 const PORT = Number(process.env.BENCH_WEB_PORT ?? 8190);
 const CHROMIUM = '/usr/bin/chromium';
-const CHROME_FLAGS = ['--headless=new', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'];
+const CHROME_FLAGS = [
+  '--headless=new',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+  '--no-first-run',
+];
 const MEMBER = 'member@voltcrib.example';
 
 interface PageSpec {
@@ -131,7 +139,11 @@ function figuresOf(lhr: Lhr, loadAverage: number): RunFigures {
  * Bytes on the wire (response headers and bodies as the browser's network stack counted them)
  * for a cold visit and for a repeat visit in the same profile, each up to the first /api request.
  */
-async function visitTransfers(base: string, cookie: string | null, pagePath: string): Promise<{ firstVisitBytes: number; repeatVisitBytes: number; repeatRequests: number }> {
+async function visitTransfers(
+  base: string,
+  cookie: string | null,
+  pagePath: string,
+): Promise<{ firstVisitBytes: number; repeatVisitBytes: number; repeatRequests: number }> {
   const browser = await chromium.launch({ executablePath: CHROMIUM, headless: true, args: CHROME_FLAGS.filter((f) => f !== '--headless=new') });
   try {
     const context = await browser.newContext({ viewport: { width: 412, height: 823 } });
@@ -179,12 +191,19 @@ type LighthouseFn = (typeof import('lighthouse'))['default'];
 async function lighthouseRun(lighthouse: LighthouseFn, port: number, url: string, cookie: string | null): Promise<Lhr> {
   let lastError = 'no result';
   for (let attempt = 0; attempt < 3; attempt += 1) {
-    const result = await lighthouse(url, { port, output: 'json', logLevel: 'error', onlyCategories: ['performance'], extraHeaders: cookie ? { Cookie: cookie } : undefined });
+    const result = await lighthouse(url, {
+      port,
+      output: 'json',
+      logLevel: 'error',
+      onlyCategories: ['performance'],
+      extraHeaders: cookie ? { Cookie: cookie } : undefined,
+    });
     const lhr = result?.lhr as unknown as Lhr | undefined;
     if (lhr && !lhr.runtimeError) {
       // A run that did not see the page it was meant to (signed out by a stray cookie) is flagged.
       // The Planner calculates in the browser and asks the API for nothing but the session.
-      if (!url.endsWith('/planner') && loadedSignedInData(lhr) !== (cookie !== null)) console.warn(`[bench:web] ${url}: the run ${cookie ? 'was not signed in' : 'loaded signed-in data'}`);
+      if (!url.endsWith('/planner') && loadedSignedInData(lhr) !== (cookie !== null))
+        console.warn(`[bench:web] ${url}: the run ${cookie ? 'was not signed in' : 'loaded signed-in data'}`);
       return lhr;
     }
     lastError = lhr?.runtimeError?.message ?? 'no result';
@@ -254,18 +273,42 @@ async function main(): Promise<void> {
     console.log('\n| page | score | FCP | LCP | TBT | CLS | transferred | unused JS | CPU index | load |');
     console.log('| --- | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: |');
     for (const r of results) {
-      console.log(`| ${r.name} | ${r.score} | ${(r.fcpMs / 1000).toFixed(1)} s | ${(r.lcpMs / 1000).toFixed(1)} s | ${r.tbtMs.toFixed(0)} ms | ${r.cls.toFixed(3)} | ${kb(r.bytes)} | ${kb(r.unusedJsBytes)} | ${r.benchmarkIndex} | ${r.loadAverage.toFixed(1)} |`);
+      console.log(
+        `| ${r.name} | ${r.score} | ${(r.fcpMs / 1000).toFixed(1)} s | ${(r.lcpMs / 1000).toFixed(1)} s | ${r.tbtMs.toFixed(0)} ms | ${r.cls.toFixed(3)} | ${kb(r.bytes)} | ${kb(r.unusedJsBytes)} | ${r.benchmarkIndex} | ${r.loadAverage.toFixed(1)} |`,
+      );
     }
     console.log('\n| visit (before the first API call) | first visit | repeat visit |');
     console.log('| --- | ---: | ---: |');
-    console.log(`| Sign-in | ${kb(signInVisit.firstVisitBytes)} | ${(signInVisit.repeatVisitBytes / 1024).toFixed(1)} KB (${signInVisit.repeatRequests} requests) |`);
-    console.log(`| Today | ${kb(todayVisit.firstVisitBytes)} | ${(todayVisit.repeatVisitBytes / 1024).toFixed(1)} KB (${todayVisit.repeatRequests} requests) |`);
+    console.log(
+      `| Sign-in | ${kb(signInVisit.firstVisitBytes)} | ${(signInVisit.repeatVisitBytes / 1024).toFixed(1)} KB (${signInVisit.repeatRequests} requests) |`,
+    );
+    console.log(
+      `| Today | ${kb(todayVisit.firstVisitBytes)} | ${(todayVisit.repeatVisitBytes / 1024).toFixed(1)} KB (${todayVisit.repeatRequests} requests) |`,
+    );
     const median3 = (key: keyof RunFigures) => results.map((r) => ({ page: r.name, median: median(r.runs.map((x) => x[key])) }));
     const loadAverages = { atStart: loadAtStart, atEnd: loadNow() };
     console.log(`load average (1 min) at the start ${loadAverages.atStart}, at the end ${loadAverages.atEnd}; each row's is its median run's`);
-    const machine = { cpus: os.cpus().length, cpuModel: os.cpus()[0]?.model ?? 'unknown', memGb: Math.round(os.totalmem() / 2 ** 30), node: process.version, platform: `${os.type()} ${os.release()}` };
-    console.log(`\nmachine: ${machine.cpus} × ${machine.cpuModel}, ${machine.memGb} GB, ${machine.platform}, Node ${machine.node}; Lighthouse 12.2.3 mobile (simulated), ${RUNS} runs per page, median run`);
-    const out = { at: new Date().toISOString(), lighthouse: '12.2.3', profile: 'default mobile, simulated throttling', runsPerPage: RUNS, machine, loadAverages, pages: results, perMetricMedians: { lcpMs: median3('lcpMs'), score: median3('score') }, visits: { signIn: signInVisit, today: todayVisit } };
+    const machine = {
+      cpus: os.cpus().length,
+      cpuModel: os.cpus()[0]?.model ?? 'unknown',
+      memGb: Math.round(os.totalmem() / 2 ** 30),
+      node: process.version,
+      platform: `${os.type()} ${os.release()}`,
+    };
+    console.log(
+      `\nmachine: ${machine.cpus} × ${machine.cpuModel}, ${machine.memGb} GB, ${machine.platform}, Node ${machine.node}; Lighthouse 12.2.3 mobile (simulated), ${RUNS} runs per page, median run`,
+    );
+    const out = {
+      at: new Date().toISOString(),
+      lighthouse: '12.2.3',
+      profile: 'default mobile, simulated throttling',
+      runsPerPage: RUNS,
+      machine,
+      loadAverages,
+      pages: results,
+      perMetricMedians: { lcpMs: median3('lcpMs'), score: median3('score') },
+      visits: { signIn: signInVisit, today: todayVisit },
+    };
     const dir = path.join(ROOT, 'bench', 'results');
     mkdirSync(dir, { recursive: true });
     const json = JSON.stringify(out, null, 2);

@@ -24,7 +24,18 @@ const CONNECTIONS = 50;
 const REFERENCE_S = Math.max(3, Math.round(DURATION_S / 2));
 /** BENCH_ONLY=session,search measures just the routes whose key is listed (the reference always). */
 const ONLY = process.env.BENCH_ONLY?.split(',').filter(Boolean) ?? null;
-const LIST_URLS = ['/api/items?q=corona&kind=probe&minKv=50', '/api/items?q=c&sort=name', '/api/items?q=corona&kind=probe&sort=nextDue', '/api/items?q=corona&status=out-of-service&sort=name', '/api/items', '/api/items?kind=probe&minKv=50&sort=ratedKv', '/api/items?due=overdue&sort=nextDue', '/api/bookings?mine=1', '/api/bookings?status=overdue', '/api/audit?limit=50'];
+const LIST_URLS = [
+  '/api/items?q=corona&kind=probe&minKv=50',
+  '/api/items?q=c&sort=name',
+  '/api/items?q=corona&kind=probe&sort=nextDue',
+  '/api/items?q=corona&status=out-of-service&sort=name',
+  '/api/items',
+  '/api/items?kind=probe&minKv=50&sort=ratedKv',
+  '/api/items?due=overdue&sort=nextDue',
+  '/api/bookings?mine=1',
+  '/api/bookings?status=overdue',
+  '/api/audit?limit=50',
+];
 
 interface Row {
   route: string;
@@ -58,7 +69,11 @@ async function signIn(base: string, email: string): Promise<{ cookie: string; cs
   const first = await fetch(`${base}/api/session`);
   let cookie = (first.headers.get('set-cookie') ?? '').split(';')[0]!;
   const { csrfToken } = (await first.json()) as { csrfToken: string };
-  const res = await fetch(`${base}/api/session`, { method: 'POST', headers: { cookie, 'content-type': 'application/json', 'x-csrf-token': csrfToken }, body: JSON.stringify({ email, password: BENCH_PASSWORD }) });
+  const res = await fetch(`${base}/api/session`, {
+    method: 'POST',
+    headers: { cookie, 'content-type': 'application/json', 'x-csrf-token': csrfToken },
+    body: JSON.stringify({ email, password: BENCH_PASSWORD }),
+  });
   if (res.status !== 200) throw new Error(`bench sign-in failed: ${res.status}`);
   cookie = (res.headers.get('set-cookie') ?? '').split(';')[0]!;
   const body = (await res.json()) as { csrfToken: string };
@@ -101,7 +116,8 @@ interface LoopContext {
 }
 
 /** Every required line answered: confirmations confirmed, readings at their lower limit. */
-const answersFor = (list: ChecklistLine[]) => list.filter((e) => e.required).map((e) => (e.kind === 'reading' ? { itemId: e.id, value: e.min ?? 0 } : { itemId: e.id, confirmed: true }));
+const answersFor = (list: ChecklistLine[]) =>
+  list.filter((e) => e.required).map((e) => (e.kind === 'reading' ? { itemId: e.id, value: e.min ?? 0 } : { itemId: e.id, confirmed: true }));
 
 /**
  * The counter loop: book a kit, scan its five items, pre-energize checklist, release, make-safe
@@ -113,7 +129,10 @@ const answersFor = (list: ChecklistLine[]) => list.filter((e) => e.required).map
 async function releaseLoop(base: string, auth: { cookie: string; csrf: string }, kits: string[][], kitIds: number[][]) {
   const freeKits = kits.map((_, k) => k);
   const loopMs: number[] = [];
-  const step = (build: (ctx: LoopContext) => { path: string; body?: unknown } | null, after?: (status: number, body: string, ctx: LoopContext) => void): autocannon.SequenceRequest => ({
+  const step = (
+    build: (ctx: LoopContext) => { path: string; body?: unknown } | null,
+    after?: (status: number, body: string, ctx: LoopContext) => void,
+  ): autocannon.SequenceRequest => ({
     method: 'POST',
     setupRequest: (request, context) => {
       const built = build(context as LoopContext);
@@ -133,24 +152,57 @@ async function releaseLoop(base: string, auth: { cookie: string; csrf: string },
         ctx.startedAt = performance.now();
         const startsAt = new Date(Date.now() - 60_000).toISOString();
         const endsAt = new Date(Date.now() + 3600_000).toISOString();
-        return { path: '/api/bookings', body: { itemIds: kitIds[ctx.kit], startsAt, endsAt, location: 'Bench bay', purpose: 'Bench release loop', plan: { plannedKv: 10, polarity: 'negative', maxCurrentMa: 1, peoplePresent: 2 } } };
+        return {
+          path: '/api/bookings',
+          body: {
+            itemIds: kitIds[ctx.kit],
+            startsAt,
+            endsAt,
+            location: 'Bench bay',
+            purpose: 'Bench release loop',
+            plan: { plannedKv: 10, polarity: 'negative', maxCurrentMa: 1, peoplePresent: 2 },
+          },
+        };
       },
       (status, body, ctx) => {
         if (status === 201) ctx.booking = (JSON.parse(body) as { booking: LoopBooking }).booking;
         else if (ctx.kit !== undefined) freeKits.push(ctx.kit);
       },
     ),
-    ...[0, 1, 2, 3, 4].map((j) => step(ofBooking((b) => `/api/bookings/${b.id}/scans`, (_b, ctx) => ({ tag: kits[ctx.kit!]![j] })))),
-    step(ofBooking((b) => `/api/bookings/${b.id}/checklist`, (b) => ({ phase: 'pre', answers: answersFor(b.checklist.pre) }))),
-    step(ofBooking((b) => `/api/bookings/${b.id}/release`), (status, _body, ctx) => {
-      if (status === 200) loopMs.push(performance.now() - ctx.startedAt!);
-    }),
+    ...[0, 1, 2, 3, 4].map((j) =>
+      step(
+        ofBooking(
+          (b) => `/api/bookings/${b.id}/scans`,
+          (_b, ctx) => ({ tag: kits[ctx.kit!]![j] }),
+        ),
+      ),
+    ),
+    step(
+      ofBooking(
+        (b) => `/api/bookings/${b.id}/checklist`,
+        (b) => ({ phase: 'pre', answers: answersFor(b.checklist.pre) }),
+      ),
+    ),
+    step(
+      ofBooking((b) => `/api/bookings/${b.id}/release`),
+      (status, _body, ctx) => {
+        if (status === 200) loopMs.push(performance.now() - ctx.startedAt!);
+      },
+    ),
     // Put the kit back so the next loop can book it again.
-    step(ofBooking((b) => `/api/bookings/${b.id}/checklist`, (b) => ({ phase: 'return', answers: answersFor(b.checklist.return) }))),
-    step(ofBooking((b) => `/api/bookings/${b.id}/return`), (status, _body, ctx) => {
-      // A kit whose return failed stays booked; it is not handed out again in this run.
-      if (status === 200) freeKits.push(ctx.kit!);
-    }),
+    step(
+      ofBooking(
+        (b) => `/api/bookings/${b.id}/checklist`,
+        (b) => ({ phase: 'return', answers: answersFor(b.checklist.return) }),
+      ),
+    ),
+    step(
+      ofBooking((b) => `/api/bookings/${b.id}/return`),
+      (status, _body, ctx) => {
+        // A kit whose return failed stays booked; it is not handed out again in this run.
+        if (status === 200) freeKits.push(ctx.kit!);
+      },
+    ),
   ];
   const result = await run({ url: base, headers: { cookie: auth.cookie, 'x-csrf-token': auth.csrf, 'content-type': 'application/json' }, requests });
   const at = (list: number[], q: number) => list.sort((a, b) => a - b)[Math.floor(list.length * q)] ?? NaN;
@@ -180,7 +232,11 @@ function startBenchServer(): Promise<{ child: ChildProcess; base: string }> {
 }
 
 /** Sends the bench server a request and waits for its answer of the given type. */
-function ask<K extends BenchServerMessage['type']>(child: ChildProcess, request: Record<string, unknown>, answer: K): Promise<Extract<BenchServerMessage, { type: K }>> {
+function ask<K extends BenchServerMessage['type']>(
+  child: ChildProcess,
+  request: Record<string, unknown>,
+  answer: K,
+): Promise<Extract<BenchServerMessage, { type: K }>> {
   return new Promise((resolve) => {
     const listener = (message: BenchServerMessage) => {
       if (message.type !== answer) return;
@@ -193,7 +249,8 @@ function ask<K extends BenchServerMessage['type']>(child: ChildProcess, request:
 }
 
 const serverCpuMicros = async (child: ChildProcess) => (await ask(child, { type: 'cpu' }, 'cpu')).micros;
-const explainLists = async (child: ChildProcess, urls: string[], headers: Record<string, string>) => (await ask(child, { type: 'explain', urls, headers }, 'explains')).explains;
+const explainLists = async (child: ChildProcess, urls: string[], headers: Record<string, string>) =>
+  (await ask(child, { type: 'explain', urls, headers }, 'explains')).explains;
 
 async function main(): Promise<void> {
   const options = benchInstance();
@@ -215,7 +272,12 @@ async function main(): Promise<void> {
     kitIds.push(rows.map((r) => r.id));
   }
   // Free any kit left released by an interrupted earlier run.
-  await db('booking_items').whereIn('item_id', kitRows.map((r) => r.id)).update({ live: false });
+  await db('booking_items')
+    .whereIn(
+      'item_id',
+      kitRows.map((r) => r.id),
+    )
+    .update({ live: false });
 
   const rows: Row[] = [];
   // Each route runs between two runs of the reference, one just before and one just after, and
@@ -236,11 +298,27 @@ async function main(): Promise<void> {
       const result = await run(opts);
       return { result, cpuPerRequest: ((await serverCpuMicros(child)) - cpuBefore) / Math.max(1, (result.requests as unknown as { total: number }).total) };
     };
-    const { result: { result, cpuPerRequest }, referenceReqPerSec, referenceAround } = key === 'reference' ? { result: await timed(), referenceReqPerSec: undefined, referenceAround: undefined } : await around(timed);
-    const row: Row = { route, reqPerSec: result.requests.average, p50Ms: result.latency.p50, p99Ms: result.latency.p99, ratio: 0, statuses: statusCounts(result), serverCpuUs: cpuPerRequest, referenceReqPerSec, referenceAround };
+    const {
+      result: { result, cpuPerRequest },
+      referenceReqPerSec,
+      referenceAround,
+    } = key === 'reference' ? { result: await timed(), referenceReqPerSec: undefined, referenceAround: undefined } : await around(timed);
+    const row: Row = {
+      route,
+      reqPerSec: result.requests.average,
+      p50Ms: result.latency.p50,
+      p99Ms: result.latency.p99,
+      ratio: 0,
+      statuses: statusCounts(result),
+      serverCpuUs: cpuPerRequest,
+      referenceReqPerSec,
+      referenceAround,
+    };
     if (serverUrl) row.serverMsMedian = await serverTime(base, serverUrl, headers);
     rows.push(row);
-    console.log(`[bench] ${route}: ${row.reqPerSec.toFixed(0)} req/s, p50 ${row.p50Ms} ms, p99 ${row.p99Ms} ms, server CPU ${row.serverCpuUs?.toFixed(0)} µs/request`);
+    console.log(
+      `[bench] ${route}: ${row.reqPerSec.toFixed(0)} req/s, p50 ${row.p50Ms} ms, p99 ${row.p99Ms} ms, server CPU ${row.serverCpuUs?.toFixed(0)} µs/request`,
+    );
   };
 
   const lastKit = KITS - 1;
@@ -249,10 +327,15 @@ async function main(): Promise<void> {
   for (const url of [`${base}/api/bench/reference`, `${base}/api/session`, `${base}/api/items?q=corona&kind=probe&minKv=50`, `${base}/api/bookings?mine=1`]) {
     await run({ url, headers, duration: 3 });
   }
-  await measure('reference', 'reference: primary-key SELECT, no session (behind the app\'s headers and log)', { url: referenceUrl });
+  await measure('reference', "reference: primary-key SELECT, no session (behind the app's headers and log)", { url: referenceUrl });
   await measure('bare', 'same SELECT on a bare Express app (no headers, log or timing)', { url: `${base}/bench/bare` });
   await measure('session', 'GET /api/session (signed in)', { url: `${base}/api/session`, headers });
-  await measure('search', 'GET /api/items?q=corona&kind=probe&minKv=50', { url: `${base}/api/items?q=corona&kind=probe&minKv=50`, headers }, '/api/items?q=corona&kind=probe&minKv=50');
+  await measure(
+    'search',
+    'GET /api/items?q=corona&kind=probe&minKv=50',
+    { url: `${base}/api/items?q=corona&kind=probe&minKv=50`, headers },
+    '/api/items?q=corona&kind=probe&minKv=50',
+  );
   await measure('bookings', 'GET /api/bookings?mine=1', { url: `${base}/api/bookings?mine=1`, headers }, '/api/bookings?mine=1');
   await measure('assessments', 'POST /api/assessments', {
     url: `${base}/api/assessments`,
@@ -265,16 +348,44 @@ async function main(): Promise<void> {
     url: `${base}/api/bookings`,
     method: 'POST',
     headers: { ...headers, 'x-csrf-token': member.csrf, 'content-type': 'application/json' },
-    body: JSON.stringify({ itemIds: kitIds[lastKit - 1], startsAt: contention.toISOString(), endsAt: new Date(contention.getTime() + 3600_000).toISOString(), location: 'Bench bay', purpose: 'Contention', plan: { plannedKv: 10, polarity: 'negative', maxCurrentMa: 1, peoplePresent: 2 } }),
+    body: JSON.stringify({
+      itemIds: kitIds[lastKit - 1],
+      startsAt: contention.toISOString(),
+      endsAt: new Date(contention.getTime() + 3600_000).toISOString(),
+      location: 'Bench bay',
+      purpose: 'Contention',
+      plan: { plannedKv: 10, polarity: 'negative', maxCurrentMa: 1, peoplePresent: 2 },
+    }),
   });
   if (!ONLY || ONLY.includes('release')) {
-    const { result: { loop, serverCpuUs }, referenceReqPerSec, referenceAround } = await around(async () => {
+    const {
+      result: { loop, serverCpuUs },
+      referenceReqPerSec,
+      referenceAround,
+    } = await around(async () => {
       const cpuBefore = await serverCpuMicros(child);
       const loop = await releaseLoop(base, member, kits, kitIds);
       return { loop, serverCpuUs: ((await serverCpuMicros(child)) - cpuBefore) / Math.max(1, loop.requestsTotal) };
     });
-    rows.push({ route: 'release loop, each request (book, 5 scans, checklists, release, return)', reqPerSec: loop.requestsPerSec, p50Ms: Math.round(loop.requestP50), p99Ms: Math.round(loop.requestP99), ratio: 0, statuses: loop.statuses, serverCpuUs, referenceReqPerSec, referenceAround });
-    rows.push({ route: 'release loop, whole loop (book to release)', reqPerSec: loop.loopsPerSec, p50Ms: Math.round(loop.p50), p99Ms: Math.round(loop.p99), ratio: 0, statuses: {} });
+    rows.push({
+      route: 'release loop, each request (book, 5 scans, checklists, release, return)',
+      reqPerSec: loop.requestsPerSec,
+      p50Ms: Math.round(loop.requestP50),
+      p99Ms: Math.round(loop.requestP99),
+      ratio: 0,
+      statuses: loop.statuses,
+      serverCpuUs,
+      referenceReqPerSec,
+      referenceAround,
+    });
+    rows.push({
+      route: 'release loop, whole loop (book to release)',
+      reqPerSec: loop.loopsPerSec,
+      p50Ms: Math.round(loop.p50),
+      p99Ms: Math.round(loop.p99),
+      ratio: 0,
+      statuses: {},
+    });
   }
 
   // A whole loop is eight requests; a ratio of loops to single requests would mean nothing.
@@ -290,7 +401,15 @@ async function main(): Promise<void> {
   const table = [
     '| route | req/s | reference req/s before / after | ratio to reference (mean of the two) | p50 ms | p99 ms | server ms (median) | server CPU µs/request | statuses |',
     '| --- | --- | --- | --- | --- | --- | --- | --- | --- |',
-    ...rows.map((r) => `| ${r.route} | ${r.reqPerSec.toFixed(r.reqPerSec < 10 ? 2 : 0)} | ${r.referenceAround?.map((v) => v.toFixed(0)).join(' / ') ?? ''} | ${Number.isNaN(r.ratio) ? '' : r.ratio.toFixed(2)} | ${r.p50Ms} | ${r.p99Ms} | ${r.serverMsMedian?.toFixed(1) ?? ''} | ${r.serverCpuUs?.toFixed(0) ?? ''} | ${Object.entries(r.statuses).filter(([, v]) => v).map(([k, v]) => `${k}:${v}`).join(' ')} |`),
+    ...rows.map(
+      (r) =>
+        `| ${r.route} | ${r.reqPerSec.toFixed(r.reqPerSec < 10 ? 2 : 0)} | ${r.referenceAround?.map((v) => v.toFixed(0)).join(' / ') ?? ''} | ${Number.isNaN(r.ratio) ? '' : r.ratio.toFixed(2)} | ${r.p50Ms} | ${r.p99Ms} | ${r.serverMsMedian?.toFixed(1) ?? ''} | ${r.serverCpuUs?.toFixed(0) ?? ''} | ${Object.entries(
+          r.statuses,
+        )
+          .filter(([, v]) => v)
+          .map(([k, v]) => `${k}:${v}`)
+          .join(' ')} |`,
+    ),
   ].join('\n');
   const machine = `${os.cpus().length} × ${os.cpus()[0]?.model ?? 'cpu'}, ${(os.totalmem() / 2 ** 30).toFixed(0)} GiB, Node ${process.version}, ${DURATION_S} s per route, ${CONNECTIONS} connections`;
   console.log(`\n${machine}\n\n${table}\n`);

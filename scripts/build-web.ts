@@ -11,7 +11,24 @@ import { deferSharedChunk } from './lib/web-shared-chunk';
 import { buildServiceWorker } from './lib/web-service-worker';
 
 const ROOT = path.resolve(__dirname, '..');
-const SOURCES = ['app', 'components', 'hooks', 'shared', 'assets', 'metro', 'public', 'app.json', 'metro.config.js', 'babel.config.js', 'package-lock.json', 'scripts/build-web.ts', 'scripts/lib/web-fonts.ts', 'scripts/lib/web-precompress.ts', 'scripts/lib/web-service-worker.ts', 'scripts/lib/web-shared-chunk.ts'];
+const SOURCES = [
+  'app',
+  'components',
+  'hooks',
+  'shared',
+  'assets',
+  'metro',
+  'public',
+  'app.json',
+  'metro.config.js',
+  'babel.config.js',
+  'package-lock.json',
+  'scripts/build-web.ts',
+  'scripts/lib/web-fonts.ts',
+  'scripts/lib/web-precompress.ts',
+  'scripts/lib/web-service-worker.ts',
+  'scripts/lib/web-shared-chunk.ts',
+];
 const DIST = path.join(ROOT, 'dist');
 const STAMP = path.join(DIST, '.build-stamp');
 
@@ -46,7 +63,9 @@ async function finishWebBuild(webDir: string): Promise<void> {
   const sw = await buildServiceWorker(webDir, sharedChunk);
   console.log(`[web] service worker precaches ${sw.count} files (${(sw.size / 1024).toFixed(0)} KB)`);
   const totals = precompressWeb(webDir);
-  console.log(`[web] precompressed ${totals.files} files: ${(totals.rawBytes / 1024).toFixed(0)} KB raw, ${(totals.brBytes / 1024).toFixed(0)} KB brotli, ${(totals.gzBytes / 1024).toFixed(0)} KB gzip`);
+  console.log(
+    `[web] precompressed ${totals.files} files: ${(totals.rawBytes / 1024).toFixed(0)} KB raw, ${(totals.brBytes / 1024).toFixed(0)} KB brotli, ${(totals.gzBytes / 1024).toFixed(0)} KB gzip`,
+  );
 }
 
 export async function buildWebIfStale(force = false): Promise<boolean> {

@@ -10,7 +10,23 @@ import { benchInstance, dbEnv, devInstance } from './lib/instances';
 import { startInstance } from './lib/mariadb';
 import { migrateLatest } from './lib/migrate';
 
-const WORDS = ['Corona', 'Ionic', 'Spinning', 'Bench', 'Teaching', 'Needle', 'Drum', 'Cage', 'Plasma', 'Breakdown', 'Precipitator', 'Wire', 'Grid', 'Thruster', 'Cascade'];
+const WORDS = [
+  'Corona',
+  'Ionic',
+  'Spinning',
+  'Bench',
+  'Teaching',
+  'Needle',
+  'Drum',
+  'Cage',
+  'Plasma',
+  'Breakdown',
+  'Precipitator',
+  'Wire',
+  'Grid',
+  'Thruster',
+  'Cascade',
+];
 const MAKES = ['Orrin Works', 'Halvard Instruments', 'Brightwater HV', 'Tamsin Electric', 'Kestrel Shop (built in-house)'];
 const LOCATIONS = ['Bay 1 (interlocked cage)', 'Bay 2 (open bench, barrier posts)', 'HV store, cabinet A', 'Teaching lab, bench 3', 'Annex, bench 7'];
 
@@ -27,7 +43,15 @@ function ratingsFor(kind: ItemKind, r: () => number): Record<string, unknown> {
   const kv = Math.round(10 + r() * 90);
   switch (kind) {
     case 'multiplier':
-      return { stages: 4 + Math.floor(r() * 7), stageCapacitanceNf: 1, driveFrequencyHz: 20000, maxInputKvPeak: 8, maxOutputKv: kv, maxMa: 1, polarity: 'positive' };
+      return {
+        stages: 4 + Math.floor(r() * 7),
+        stageCapacitanceNf: 1,
+        driveFrequencyHz: 20000,
+        maxInputKvPeak: 8,
+        maxOutputKv: kv,
+        maxMa: 1,
+        polarity: 'positive',
+      };
     case 'hv-supply':
       return { maxKv: kv, maxMa: 2, polarity: 'negative', outputCapacitanceNf: 2, bleederMohm: 200, hasInterlockInput: r() > 0.5 };
     case 'probe':
@@ -63,7 +87,7 @@ export async function seedItems(db: Db, count: number): Promise<void> {
   const sequences = new Map<string, number>();
   for (const row of await db('tag_sequences').select('code', 'last_value')) sequences.set(row.code, row.last_value);
   const today = todayIso();
-  for (let done = 0; done < count; ) {
+  for (let done = 0; done < count;) {
     const batch = [];
     for (let i = 0; i < 1000 && done < count; i += 1, done += 1) {
       const kind = ITEM_KINDS[Math.floor(r() * ITEM_KINDS.length)]!;
@@ -94,7 +118,10 @@ export async function seedItems(db: Db, count: number): Promise<void> {
     await insertSearchable(db, batch);
   }
   for (const [code, last] of sequences) {
-    await db.raw('INSERT INTO tag_sequences (code, last_value) VALUES (?, ?) ON DUPLICATE KEY UPDATE last_value = GREATEST(last_value, VALUES(last_value))', [code, last]);
+    await db.raw('INSERT INTO tag_sequences (code, last_value) VALUES (?, ?) ON DUPLICATE KEY UPDATE last_value = GREATEST(last_value, VALUES(last_value))', [
+      code,
+      last,
+    ]);
   }
   console.log(`[seed] ${count} items in ${((Date.now() - start) / 1000).toFixed(1)} s`);
 }

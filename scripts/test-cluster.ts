@@ -17,11 +17,15 @@ async function main(): Promise<number> {
   await startCluster(layout);
   const resultsFile = path.join(ROOT, '.data', 'jest-cluster-results.json');
   try {
-    const jest = spawn(path.join(ROOT, 'node_modules', '.bin', 'jest'), ['--selectProjects', 'cluster', '--runInBand', '--json', `--outputFile=${resultsFile}`, ...process.argv.slice(2)], {
-      cwd: ROOT,
-      stdio: 'inherit',
-      env: { ...process.env, NODE_ENV: 'test', VOLTCRIB_CLUSTER_TESTS: '1' },
-    });
+    const jest = spawn(
+      path.join(ROOT, 'node_modules', '.bin', 'jest'),
+      ['--selectProjects', 'cluster', '--runInBand', '--json', `--outputFile=${resultsFile}`, ...process.argv.slice(2)],
+      {
+        cwd: ROOT,
+        stdio: 'inherit',
+        env: { ...process.env, NODE_ENV: 'test', VOLTCRIB_CLUSTER_TESTS: '1' },
+      },
+    );
     const status = await new Promise<number | null>((resolve) => jest.once('exit', (code) => resolve(code)));
     let line = '0 passed, 1 failed';
     if (existsSync(resultsFile)) {

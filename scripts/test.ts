@@ -34,11 +34,11 @@ async function main(): Promise<number> {
     mkdirSync(path.join(ROOT, '.data'), { recursive: true });
     const resultsFile = path.join(ROOT, '.data', 'jest-results.json');
     // Asynchronous on purpose: the S3 fake lives in this process and must keep answering.
-    const jest = spawn(
-      path.join(ROOT, 'node_modules', '.bin', 'jest'),
-      ['--json', `--outputFile=${resultsFile}`, ...process.argv.slice(2)],
-      { cwd: ROOT, stdio: 'inherit', env: { ...process.env, NODE_ENV: 'test', VOLTCRIB_TEST_DB_PORT: String(options.port), VOLTCRIB_TEST_S3_ENDPOINT: s3.endpoint } },
-    );
+    const jest = spawn(path.join(ROOT, 'node_modules', '.bin', 'jest'), ['--json', `--outputFile=${resultsFile}`, ...process.argv.slice(2)], {
+      cwd: ROOT,
+      stdio: 'inherit',
+      env: { ...process.env, NODE_ENV: 'test', VOLTCRIB_TEST_DB_PORT: String(options.port), VOLTCRIB_TEST_S3_ENDPOINT: s3.endpoint },
+    });
     const status = await new Promise<number | null>((resolve) => jest.once('exit', (code) => resolve(code)));
     let line = `0 passed, 1 failed`;
     if (existsSync(resultsFile)) {

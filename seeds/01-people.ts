@@ -22,7 +22,5 @@ export async function seed(knex: Knex): Promise<void> {
   await knex('groups').insert(DEMO_GROUPS.map((name) => ({ name })));
   const groups = await knex('groups').select('id', 'name');
   const groupId = (name: string | null) => groups.find((g) => g.name === name)?.id ?? null;
-  await knex('people').insert(
-    DEMO_PEOPLE.map((p) => ({ email: p.email, name: p.name, role: p.role, group_id: groupId(p.group), password_hash: hash })),
-  );
+  await knex('people').insert(DEMO_PEOPLE.map((p) => ({ email: p.email, name: p.name, role: p.role, group_id: groupId(p.group), password_hash: hash })));
 }

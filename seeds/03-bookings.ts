@@ -52,7 +52,12 @@ export async function seed(knex: Knex): Promise<void> {
   await setQualification(knex, manager, ansel.id, { authorisedKv: 20, expiresOn, notes: 'Teaching demonstrations only.' });
 
   const book = async (who: SessionUser, models: string[], startsAt: Date, hours: number, details: Pick<BookingCreateInput, 'location' | 'purpose' | 'plan'>) =>
-    createBooking(knex, who, { itemIds: await itemIds(knex, models), startsAt: startsAt.toISOString(), endsAt: new Date(startsAt.getTime() + hours * HOUR).toISOString(), ...details }, MAIL);
+    createBooking(
+      knex,
+      who,
+      { itemIds: await itemIds(knex, models), startsAt: startsAt.toISOString(), endsAt: new Date(startsAt.getTime() + hours * HOUR).toISOString(), ...details },
+      MAIL,
+    );
 
   // Tomorrow: Noor's ionic-wind sweep, approved by the officer.
   const sweep = await book(noor, ['HI-30R', 'OW-GS100R', 'KS-PT150', 'KS-IL1', 'OW-RD100'], hourFromNow(1, 9), 3, {
@@ -60,7 +65,14 @@ export async function seed(knex: Knex): Promise<void> {
     purpose: 'Ionic wind thrust sweep, wire-to-mesh gap 30 mm',
     plan: { plannedKv: 12, polarity: 'positive', maxCurrentMa: 0.5, peoplePresent: 2 },
   });
-  if (sweep.status === 'awaiting-approval') await decideApproval(knex, officer, sweep.id, { decision: 'approve', planVersion: sweep.planVersion, conditions: 'Barrier at the limited approach distance before energizing.' }, MAIL);
+  if (sweep.status === 'awaiting-approval')
+    await decideApproval(
+      knex,
+      officer,
+      sweep.id,
+      { decision: 'approve', planVersion: sweep.planVersion, conditions: 'Barrier at the limited approach distance before energizing.' },
+      MAIL,
+    );
 
   // The day after: Kofi's corona onset run above the approval voltage, waiting in the queue.
   await book(kofi, ['HI-60N', 'OW-GS100S', 'KS-PT150', 'KS-IL1', 'OW-RD100'], hourFromNow(2, 13), 2, {
@@ -75,7 +87,14 @@ export async function seed(knex: Knex): Promise<void> {
     purpose: 'Corona wind demonstration for first-year students',
     plan: { plannedKv: 8, polarity: 'positive', maxCurrentMa: 0.5, peoplePresent: 3 },
   });
-  if (demo.status === 'awaiting-approval') demo = await decideApproval(knex, officer, demo.id, { decision: 'approve', planVersion: demo.planVersion, conditions: 'Students stay behind the enclosure.' }, MAIL);
+  if (demo.status === 'awaiting-approval')
+    demo = await decideApproval(
+      knex,
+      officer,
+      demo.id,
+      { decision: 'approve', planVersion: demo.planVersion, conditions: 'Students stay behind the enclosure.' },
+      MAIL,
+    );
   for (const item of demo.items) demo = await recordScan(knex, ansel, demo.id, item.tag);
   // A required photo line (if an officer has added one) cannot be answered by a seed: the demo
   // booking then simply waits at the counter.

@@ -38,11 +38,26 @@ function sweep(): BenchRunInput[] {
       const boundMn = ((currentMa * 1e-3 * gapMm * 1e-3) / MOBILITY_M2_PER_VS) * 1e3;
       const thrustMn = 0.45 * boundMn * (2 - scatter);
       const velocityMps = 0.9 * Math.sqrt((thrustMn * 1e-3) / (1.19 * OUTLET_AREA_CM2 * 1e-4));
-      runs.push({ appliedKv: kv, currentUa: round(currentMa * 1000, 1), gapMm, stages: 1, thrustMn: round(thrustMn, 2), velocityMps: round(velocityMps, 2), massG: MASS_G, outletAreaCm2: OUTLET_AREA_CM2 });
+      runs.push({
+        appliedKv: kv,
+        currentUa: round(currentMa * 1000, 1),
+        gapMm,
+        stages: 1,
+        thrustMn: round(thrustMn, 2),
+        velocityMps: round(velocityMps, 2),
+        massG: MASS_G,
+        outletAreaCm2: OUTLET_AREA_CM2,
+      });
     }
   }
   // Ambient once, at the start; later runs carry it over.
-  runs[0] = { ...runs[0]!, temperatureC: 21.5, pressureKpa: 100.8, humidityPct: 42, notes: 'Wire-to-mesh, 0.2 mm tungsten emitter; ambient from the bay 2 logger.' };
+  runs[0] = {
+    ...runs[0]!,
+    temperatureC: 21.5,
+    pressureKpa: 100.8,
+    humidityPct: 42,
+    notes: 'Wire-to-mesh, 0.2 mm tungsten emitter; ambient from the bay 2 logger.',
+  };
   // The slip: a balance that drifted off zero between points reads more than physics allows.
   const slip = runs.findIndex((r) => r.gapMm === 30 && r.appliedKv === 10);
   runs[slip] = { ...runs[slip]!, thrustMn: 24.5, velocityMps: undefined, notes: 'Balance reading looked high; re-zero before the next point.' };

@@ -3,9 +3,7 @@
 import { z } from 'zod';
 import { isTimeZone } from './mail/lab-time';
 
-const bool = z
-  .enum(['true', 'false', '1', '0'])
-  .transform((value) => value === 'true' || value === '1');
+const bool = z.enum(['true', 'false', '1', '0']).transform((value) => value === 'true' || value === '1');
 
 const envSchema = z.object({
   NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
@@ -17,14 +15,21 @@ const envSchema = z.object({
   DB_HOST: z.string().min(1).default('127.0.0.1'),
   DB_PORT: z.coerce.number().int().min(1).max(65535).default(3307),
   DB_SOCKET: z.string().min(1).max(107, 'Unix socket paths are at most 107 bytes').optional(),
-  DB_NAME: z.string().regex(/^[A-Za-z0-9_]+$/, 'letters, digits and _ only').default('voltcrib_dev'),
+  DB_NAME: z
+    .string()
+    .regex(/^[A-Za-z0-9_]+$/, 'letters, digits and _ only')
+    .default('voltcrib_dev'),
   DB_USER: z.string().min(1).default('voltcrib'),
   DB_PASSWORD: z.string().default('voltcrib-local-only'),
   DB_POOL_MAX: z.coerce.number().int().min(1).max(200).default(20),
   SESSION_SECRET: z.string().min(16, 'at least 16 characters').optional(),
   // How long a process may serve a session from its own copy; 0 with more than one process.
   SESSION_CACHE_MS: z.coerce.number().int().min(0).max(60_000).default(5000),
-  SESSION_MAX_AGE_HOURS: z.coerce.number().positive().max(24 * 30).default(12),
+  SESSION_MAX_AGE_HOURS: z.coerce
+    .number()
+    .positive()
+    .max(24 * 30)
+    .default(12),
   COOKIE_SECURE: bool.optional(),
   TRUST_PROXY: bool.default(false),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
@@ -33,7 +38,10 @@ const envSchema = z.object({
   WEB_DIR: z.string().default('dist'),
   S3_ENDPOINT: z.string().url().optional(),
   S3_REGION: z.string().min(1).default('us-east-1'),
-  S3_BUCKET: z.string().regex(/^[a-z0-9.-]{3,63}$/).default('voltcrib-files'),
+  S3_BUCKET: z
+    .string()
+    .regex(/^[a-z0-9.-]{3,63}$/)
+    .default('voltcrib-files'),
   S3_ACCESS_KEY_ID: z.string().min(1).default('S3RVER'),
   S3_SECRET_ACCESS_KEY: z.string().min(1).default('S3RVER'),
   UPLOAD_MAX_MB: z.coerce.number().positive().max(100).default(10),
@@ -41,7 +49,10 @@ const envSchema = z.object({
   BOOKING_PHOTOS_MAX_MB: z.coerce.number().positive().default(60),
   PERSON_UPLOADS_PER_DAY: z.coerce.number().int().min(1).default(100),
   PERSON_UPLOAD_MB_PER_DAY: z.coerce.number().positive().default(250),
-  SMTP_URL: z.string().regex(/^smtps?:\/\//, 'smtp:// or smtps:// URL').optional(),
+  SMTP_URL: z
+    .string()
+    .regex(/^smtps?:\/\//, 'smtp:// or smtps:// URL')
+    .optional(),
   SMTP_FAKE_PORT: z.coerce.number().int().min(0).max(65535).default(0),
   MAIL_FROM: z.string().min(3).default('Voltcrib <voltcrib@localhost>'),
   MAIL_CRON: z.string().min(9).default('0 * * * * *'),
@@ -127,6 +138,14 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
       personFilesPerDay: e.PERSON_UPLOADS_PER_DAY,
       personBytesPerDay: Math.round(e.PERSON_UPLOAD_MB_PER_DAY * 1024 * 1024),
     },
-    mail: { smtpUrl: e.SMTP_URL ?? null, fakePort: e.SMTP_FAKE_PORT, from: e.MAIL_FROM, cron: e.MAIL_CRON, pollMs: e.MAIL_POLL_MS, leaseMs: e.MAIL_LEASE_MS, scheduler: e.SCHEDULER },
+    mail: {
+      smtpUrl: e.SMTP_URL ?? null,
+      fakePort: e.SMTP_FAKE_PORT,
+      from: e.MAIL_FROM,
+      cron: e.MAIL_CRON,
+      pollMs: e.MAIL_POLL_MS,
+      leaseMs: e.MAIL_LEASE_MS,
+      scheduler: e.SCHEDULER,
+    },
   };
 }

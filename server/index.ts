@@ -36,7 +36,9 @@ export async function startServer(env: Record<string, string | undefined> = proc
   const transport: Transporter = createTransport(smtpUrl);
   const worker = new OutboxWorker(db, transport, config.mail.from, logger, { leaseMs: config.mail.leaseMs });
   const app = createApp({ db, config, logger, mailbox: fakeSmtp });
-  const scheduler = config.mail.scheduler ? startScheduler({ db, worker, publicUrl: config.publicUrl, cron: config.mail.cron, pollMs: config.mail.pollMs, logger }) : undefined;
+  const scheduler = config.mail.scheduler
+    ? startScheduler({ db, worker, publicUrl: config.publicUrl, cron: config.mail.cron, pollMs: config.mail.pollMs, logger })
+    : undefined;
 
   const server = app.listen(config.port, config.host);
   await new Promise<void>((resolve, reject) => {

@@ -31,7 +31,16 @@ const formatters = new Map<string, Intl.DateTimeFormat>();
 function formatterFor(timeZone: string): Intl.DateTimeFormat {
   let formatter = formatters.get(timeZone);
   if (!formatter) {
-    formatter = new Intl.DateTimeFormat('en-US', { timeZone, hourCycle: 'h23', year: 'numeric', month: 'numeric', day: 'numeric', hour: 'numeric', minute: 'numeric', second: 'numeric' });
+    formatter = new Intl.DateTimeFormat('en-US', {
+      timeZone,
+      hourCycle: 'h23',
+      year: 'numeric',
+      month: 'numeric',
+      day: 'numeric',
+      hour: 'numeric',
+      minute: 'numeric',
+      second: 'numeric',
+    });
     formatters.set(timeZone, formatter);
   }
   return formatter;
@@ -65,7 +74,11 @@ export function resolveWallTime(wall: WallTime, timeZone: string): LocalTimeReso
   if (check.getUTCMonth() !== month - 1 || check.getUTCDate() !== day) return { kind: 'invalid' };
 
   // The offsets in force a day either side cover any single change of the clocks in between.
-  const offsets = new Set([offsetMinutesAt(new Date(wallAsUtc - DAY_MS), timeZone), offsetMinutesAt(new Date(wallAsUtc), timeZone), offsetMinutesAt(new Date(wallAsUtc + DAY_MS), timeZone)]);
+  const offsets = new Set([
+    offsetMinutesAt(new Date(wallAsUtc - DAY_MS), timeZone),
+    offsetMinutesAt(new Date(wallAsUtc), timeZone),
+    offsetMinutesAt(new Date(wallAsUtc + DAY_MS), timeZone),
+  ]);
   const candidates: Candidate[] = [];
   for (const offset of offsets) {
     const instant = new Date(wallAsUtc - offset * 60_000);

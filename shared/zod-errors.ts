@@ -52,7 +52,10 @@ const FORMAT_WORDS: Record<string, string> = {
 
 type Issue = z.core.$ZodRawIssue;
 
-function sizeWords(issue: Issue & { minimum?: number | bigint; maximum?: number | bigint; inclusive?: boolean; origin?: string }, unit: string): string | undefined {
+function sizeWords(
+  issue: Issue & { minimum?: number | bigint; maximum?: number | bigint; inclusive?: boolean; origin?: string },
+  unit: string,
+): string | undefined {
   const small = issue.code === 'too_small';
   const limit = small ? issue.minimum : issue.maximum;
   if (limit === undefined) return undefined;

@@ -34,8 +34,8 @@ export function InvitationScreen({ token }: { token: string | undefined }) {
       ) : (
         <Card>
           <AppText>
-            The lab manager has added you to the lab&apos;s Voltcrib, where the shared high-voltage gear is booked, checked out and
-            returned. Choose a password to finish.
+            The lab manager has added you to the lab&apos;s Voltcrib, where the shared high-voltage gear is booked, checked out and returned. Choose a password
+            to finish.
           </AppText>
           <SetPasswordForm
             testIdPrefix="invitation"

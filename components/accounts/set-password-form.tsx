@@ -66,7 +66,15 @@ export function SetPasswordForm({ testIdPrefix, submitLabel, submittingLabel, on
         onSubmitEditing={() => void submit()}
       />
       {errors.root?.server?.message ? <FormAlert testID={`${testIdPrefix}-error`} message={errors.root.server.message} /> : null}
-      <Button label={submitLabel} loadingLabel={submittingLabel} testID={`${testIdPrefix}-submit`} icon="login" block loading={isSubmitting} onPress={() => void submit()} />
+      <Button
+        label={submitLabel}
+        loadingLabel={submittingLabel}
+        testID={`${testIdPrefix}-submit`}
+        icon="login"
+        block
+        loading={isSubmitting}
+        onPress={() => void submit()}
+      />
     </View>
   );
 }

@@ -43,7 +43,12 @@ export function ApprovalCard({ summary, own, open, onOpen, onDecided }: Approval
       ) : (
         <AssessmentSummary assessment={detail.data.assessment} testID={`${prefix}-assessment`} />
       )}
-      <ListRow title="Open the full booking" icon="information" href={{ pathname: '/bookings/[id]', params: { id: String(summary.id) } }} testID={`${prefix}-open`} />
+      <ListRow
+        title="Open the full booking"
+        icon="information"
+        href={{ pathname: '/bookings/[id]', params: { id: String(summary.id) } }}
+        testID={`${prefix}-open`}
+      />
       {own ? (
         <View style={styles.own}>
           <Badge label="Your own booking: needs another officer" icon="account-off" testID={`${prefix}-own`} />

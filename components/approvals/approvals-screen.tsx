@@ -25,14 +25,22 @@ export function ApprovalsScreen() {
 
   return (
     <Screen testID="approvals-screen" title="Approvals">
-      <AppText tone="muted">Tests above the lab&apos;s approval voltage or energy threshold, or beyond the member&apos;s qualification. An approval covers the plan as it stands; any change voids it.</AppText>
+      <AppText tone="muted">
+        Tests above the lab&apos;s approval voltage or energy threshold, or beyond the member&apos;s qualification. An approval covers the plan as it stands;
+        any change voids it.
+      </AppText>
       {lastDecision ? <Badge label={lastDecision} icon="check-circle" tone="primary" testID="approvals-last-decision" /> : null}
       {queue.isPending ? (
         <LoadingState label="Loading the queue" />
       ) : queue.isError ? (
         <ErrorState title="The queue did not load" error={queue.error} onRetry={() => void queue.refetch()} retrying={queue.isFetching} />
       ) : rows.length === 0 ? (
-        <EmptyState testID="approvals-empty" icon="clipboard-check" title="Nothing waiting" message="No test is waiting for a decision. New requests arrive here and by e-mail." />
+        <EmptyState
+          testID="approvals-empty"
+          icon="clipboard-check"
+          title="Nothing waiting"
+          message="No test is waiting for a decision. New requests arrive here and by e-mail."
+        />
       ) : (
         rows.map((summary) => (
           <ApprovalCard

@@ -68,17 +68,18 @@ export function DecisionForm({ bookingId, planVersion, onDecided }: DecisionForm
         multiline
         testID={`${prefix}-conditions`}
       />
-      <Button label="Approve this plan" icon="check-circle" block testID={`${prefix}-approve`} onPress={() => setConfirming('approve')} disabled={isSubmitting} />
+      <Button
+        label="Approve this plan"
+        icon="check-circle"
+        block
+        testID={`${prefix}-approve`}
+        onPress={() => setConfirming('approve')}
+        disabled={isSubmitting}
+      />
       <AppText variant="small" tone="muted">
         Or refuse it, saying what would make it acceptable:
       </AppText>
-      <FormTextField
-        control={control}
-        name="reason"
-        label="Reason (if refusing)"
-        multiline
-        testID={`${prefix}-reason`}
-      />
+      <FormTextField control={control} name="reason" label="Reason (if refusing)" multiline testID={`${prefix}-reason`} />
       <Button label="Refuse" icon="close-circle" variant="danger" testID={`${prefix}-refuse`} onPress={() => setConfirming('refuse')} disabled={isSubmitting} />
       {confirming ? (
         <View style={styles.confirm} testID={`${prefix}-confirm`}>

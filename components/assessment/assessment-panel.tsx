@@ -37,10 +37,12 @@ export function AssessmentPanel({ assessment, provenance, testID, afterSummary, 
         <AppText variant="small" tone="muted" testID={`${testID}-provenance`}>
           {provenance}
         </AppText>
-        <AppText variant="bodyStrong">
-          {`Planned ${formatKv(assessment.plannedKv)}; the sources can reach ${formatKv(assessment.sourcePeakKv)}.`}
-        </AppText>
-        {gateSummary === undefined ? <GateSummary failures={gearFailures(assessment, [])} clashesChecked={false} testID={`${testID}-gate`} /> : gateSummary || null}
+        <AppText variant="bodyStrong">{`Planned ${formatKv(assessment.plannedKv)}; the sources can reach ${formatKv(assessment.sourcePeakKv)}.`}</AppText>
+        {gateSummary === undefined ? (
+          <GateSummary failures={gearFailures(assessment, [])} clashesChecked={false} testID={`${testID}-gate`} />
+        ) : (
+          gateSummary || null
+        )}
         <HazardSummary assessment={assessment} testID={`${testID}-hazard`} />
         <ApprovalReasons assessment={assessment} testID={`${testID}-approval`} />
       </Card>

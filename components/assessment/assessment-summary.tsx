@@ -18,11 +18,11 @@ export function AssessmentSummary({ assessment, testID }: { assessment: Assessme
     <View style={styles.root} testID={testID}>
       <HazardSummary assessment={assessment} testID={`${testID}-hazard`} />
       <AppText>{`Planned ${formatKv(assessment.plannedKv)} (sources up to ${formatKv(assessment.sourcePeakKv)}) · stored energy ${formatSi(assessment.storedEnergyJ, 'J')}`}</AppText>
-      <AppText>
-        {assessment.bleedDown ? `Bleed-down ${formatSeconds(assessment.bleedDown.timeS)}` : assessment.bleedDownNote}
-      </AppText>
+      <AppText>{assessment.bleedDown ? `Bleed-down ${formatSeconds(assessment.bleedDown.timeS)}` : assessment.bleedDownNote}</AppText>
       {barrier ? <AppText>{`Barrier at ${formatMetres(barrier.metres, barrier.printed)}`}</AppText> : null}
-      <AppText variant="bodyStrong">{problems === 0 ? 'Gear rated and complete for the plan.' : `${problems} gear problem${problems === 1 ? '' : 's'} the release will refuse.`}</AppText>
+      <AppText variant="bodyStrong">
+        {problems === 0 ? 'Gear rated and complete for the plan.' : `${problems} gear problem${problems === 1 ? '' : 's'} the release will refuse.`}
+      </AppText>
       <SourceLine>the assessment stored with the booking; the booking page shows each formula and standard</SourceLine>
       <ApprovalReasons assessment={assessment} testID={`${testID}-approval`} />
     </View>

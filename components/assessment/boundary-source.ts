@@ -21,7 +21,8 @@ export const CHECK_YOUR_COPY = 'check against your copy of the standard';
 
 /** "NFPA 70E-2021 Table 130.4(E)(b); check against your copy of the standard". */
 export function boundarySourceWords(b: BoundarySource): string {
-  const tableNumber = TABLE_NUMBER.exec(b.table ?? '')?.[0] ?? TABLE_NUMBER.exec(b.source)?.[0] ?? (/\bAC\b/.test(b.source) ? AC_TABLE : 'approach-boundary table');
+  const tableNumber =
+    TABLE_NUMBER.exec(b.table ?? '')?.[0] ?? TABLE_NUMBER.exec(b.source)?.[0] ?? (/\bAC\b/.test(b.source) ? AC_TABLE : 'approach-boundary table');
   const year = /NFPA 70E-(\d{4})/.exec(b.edition)?.[1] ?? /NFPA 70E-(\d{4})/.exec(b.source)?.[1];
   const standard = year ? `NFPA 70E-${year}` : 'NFPA 70E';
   const older = /older edition/i.test(b.edition) ? ' (values from an earlier edition)' : '';

@@ -10,7 +10,12 @@ import type { RuleFailure } from '@/shared/errors';
 /** The gear rules in the order a member fixes them, each summed up in a few words when it holds. */
 const LINES: { rule: string; rules: readonly string[]; name: string; holds: string }[] = [
   { rule: 'rating', rules: ['rating'], name: 'Ratings', holds: 'every item rated for the plan with the lab margin' },
-  { rule: 'companions', rules: ['grounding-stick', 'isolation-stand', 'interlock'], name: 'Companions', holds: 'grounding stick, stand and any interlock needed are in the set' },
+  {
+    rule: 'companions',
+    rules: ['grounding-stick', 'isolation-stand', 'interlock'],
+    name: 'Companions',
+    holds: 'grounding stick, stand and any interlock needed are in the set',
+  },
   { rule: 'polarity', rules: ['polarity'], name: 'Polarity', holds: 'a source in the set produces the planned polarity' },
   { rule: 'inspection', rules: ['inspection'], name: 'Inspections', holds: 'every item has a current inspection' },
   { rule: 'in-service', rules: ['in-service'], name: 'In service', holds: 'no item is tagged out or retired' },
@@ -37,7 +42,9 @@ export function GateSummary({ failures, clashesChecked, testID, actionFor }: Gat
   return (
     <View testID={testID} style={styles.root}>
       <AppText variant="bodyStrong" testID={`${testID}-verdict`}>
-        {failing === 0 ? 'The gear passes every rule it can be checked on now.' : `The release will refuse this set: ${failing} gear rule${failing === 1 ? '' : 's'} failing. Fix ${failing === 1 ? 'it' : 'them'} first.`}
+        {failing === 0
+          ? 'The gear passes every rule it can be checked on now.'
+          : `The release will refuse this set: ${failing} gear rule${failing === 1 ? '' : 's'} failing. Fix ${failing === 1 ? 'it' : 'them'} first.`}
       </AppText>
       {LINES.filter((line) => line.rule !== 'clash' || clashesChecked).map((line) => {
         const own = failures.filter((f) => line.rules.includes(f.rule));
@@ -46,7 +53,10 @@ export function GateSummary({ failures, clashesChecked, testID, actionFor }: Gat
           <View
             key={line.rule}
             testID={`${testID}-${line.rule}-${ok ? 'pass' : 'fail'}`}
-            style={[styles.line, { borderLeftColor: ok ? colors.state.ok.edge : colors.state.late.edge, backgroundColor: ok ? colors.surface : colors.state.late.fill }]}
+            style={[
+              styles.line,
+              { borderLeftColor: ok ? colors.state.ok.edge : colors.state.late.edge, backgroundColor: ok ? colors.surface : colors.state.late.fill },
+            ]}
           >
             <Icon name={ok ? 'check-circle' : 'close-circle'} size={iconSizes.md} color={ok ? colors.state.ok.edge : colors.state.late.text} />
             <View style={styles.text}>
@@ -73,6 +83,14 @@ export function GateSummary({ failures, clashesChecked, testID, actionFor }: Gat
 
 const styles = StyleSheet.create({
   root: { gap: spacing.xs },
-  line: { flexDirection: 'row', alignItems: 'flex-start', gap: spacing.sm, paddingVertical: spacing.xxs, paddingHorizontal: spacing.sm, borderLeftWidth: borders.focusRing, borderRadius: radii.sm },
+  line: {
+    flexDirection: 'row',
+    alignItems: 'flex-start',
+    gap: spacing.sm,
+    paddingVertical: spacing.xxs,
+    paddingHorizontal: spacing.sm,
+    borderLeftWidth: borders.focusRing,
+    borderRadius: radii.sm,
+  },
   text: { flex: 1, gap: spacing.xxs },
 });

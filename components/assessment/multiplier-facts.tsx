@@ -19,11 +19,15 @@ export function MultiplierFacts({ assessment, testID = 'assessment-multipliers' 
           <AppText>{`Drive needed: ${formatSi(m.drivePeakInputV, 'V')} peak`}</AppText>
           <AppText>{`No load: ${formatSi(m.noLoadV, 'V')} · under load: ${formatSi(m.loadedV, 'V')}`}</AppText>
           <AppText>{`Drop: ${formatSi(m.dropV, 'V')} · ripple: ${formatSi(m.rippleV, 'V')} peak to peak`}</AppText>
-          {m.optimumStages !== null ? <AppText variant="small">{`Most voltage at this current with about ${Math.round(m.optimumStages)} stages.`}</AppText> : null}
+          {m.optimumStages !== null ? (
+            <AppText variant="small">{`Most voltage at this current with about ${Math.round(m.optimumStages)} stages.`}</AppText>
+          ) : null}
           {m.overRating ? <HazardBadge level="warning" detail="Drive above the stack's input rating" /> : null}
         </View>
       ))}
-      <SourceLine>{"cascade multiplier formulas (Kuffel, Zaengl & Kuffel, High Voltage Engineering: Fundamentals, 2nd ed.) at the plan's maximum current"}</SourceLine>
+      <SourceLine>
+        {"cascade multiplier formulas (Kuffel, Zaengl & Kuffel, High Voltage Engineering: Fundamentals, 2nd ed.) at the plan's maximum current"}
+      </SourceLine>
     </View>
   );
 }

@@ -28,4 +28,3 @@ export function formatSeconds(seconds: number): string {
 export function formatMetres(metres: number | null, printed: string): string {
   return metres === null ? printed : `${trimNumber(metres, 2)} m (${printed})`;
 }
-

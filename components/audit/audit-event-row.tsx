@@ -24,7 +24,11 @@ export function AuditEventRow({ event, divided }: { event: AuditEvent; divided: 
   const words = auditWords(event);
   const toggleText = open ? 'Hide the stored values' : 'Show the stored values';
   return (
-    <View testID={`audit-event-${event.id}`} role="listitem" style={[styles.row, divided && { borderTopWidth: borders.hairline, borderTopColor: colors.border }]}>
+    <View
+      testID={`audit-event-${event.id}`}
+      role="listitem"
+      style={[styles.row, divided && { borderTopWidth: borders.hairline, borderTopColor: colors.border }]}
+    >
       <AppText variant="bodyStrong" testID={`audit-event-${event.id}-sentence`}>
         {words.sentence}
       </AppText>

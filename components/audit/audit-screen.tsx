@@ -39,7 +39,11 @@ export function AuditScreen() {
   const [person, setPerson] = useState('');
   const [day, setDay] = useState('');
   // Debounced as one string so a new object each render does not restart the timer.
-  const settled = JSON.parse(useDebouncedValue(JSON.stringify({ tag: tag.trim(), person: person.trim(), day: day.trim() }), 400)) as { tag: string; person: string; day: string };
+  const settled = JSON.parse(useDebouncedValue(JSON.stringify({ tag: tag.trim(), person: person.trim(), day: day.trim() }), 400)) as {
+    tag: string;
+    person: string;
+    day: string;
+  };
   const range = dayRange(settled.day);
   // A one-letter name matches half the lab: wait for a second letter.
   const personFilter = settled.person.length >= 2 ? settled.person : '';
@@ -58,10 +62,25 @@ export function AuditScreen() {
         <ChoiceChips label="About" testID="audit-entity" choices={ENTITIES} value={entity} onChange={setEntity} />
         <View style={[styles.fields, isWide && styles.fieldsWide]}>
           <View style={styles.field}>
-            <TextField label="Gear tag" hint="The whole tag or its start, e.g. GST-00" value={tag} onChangeText={setTag} autoCapitalize="characters" autoCorrect={false} testID="audit-tag" />
+            <TextField
+              label="Gear tag"
+              hint="The whole tag or its start, e.g. GST-00"
+              value={tag}
+              onChangeText={setTag}
+              autoCapitalize="characters"
+              autoCorrect={false}
+              testID="audit-tag"
+            />
           </View>
           <View style={styles.field}>
-            <TextField label="Person" hint="Part of a name or e-mail address" value={person} onChangeText={setPerson} autoCorrect={false} testID="audit-person" />
+            <TextField
+              label="Person"
+              hint="Part of a name or e-mail address"
+              value={person}
+              onChangeText={setPerson}
+              autoCorrect={false}
+              testID="audit-person"
+            />
           </View>
           <View style={styles.field}>
             <TextField
@@ -92,7 +111,13 @@ export function AuditScreen() {
           </View>
         </Card>
       )}
-      <LoadMore query={events} label="Load older entries" loadingLabel="Loading older entries" failedText="Older entries did not load. Try again." testID="audit-more" />
+      <LoadMore
+        query={events}
+        label="Load older entries"
+        loadingLabel="Loading older entries"
+        failedText="Older entries did not load. Try again."
+        testID="audit-more"
+      />
     </Screen>
   );
 }

@@ -86,7 +86,11 @@ export function auditWords(event: AuditEvent): AuditWords {
       const plan = values(after.plan);
       const kv = num(plan.plannedKv);
       const waits = after.status === 'awaiting-approval' ? '; it waits for a safety officer' : '';
-      return say(`${who} booked ${list(subject.tags)}${kv !== null ? ` for a test at ${formatKv(kv)}` : ''} (${booking})${waits}.`, text(plan.purpose), bookingLink);
+      return say(
+        `${who} booked ${list(subject.tags)}${kv !== null ? ` for a test at ${formatKv(kv)}` : ''} (${booking})${waits}.`,
+        text(plan.purpose),
+        bookingLink,
+      );
     }
     case 'booking.updated':
       return say(`${who} changed the window or gear of ${booking}.`, null, bookingLink);
@@ -101,9 +105,17 @@ export function auditWords(event: AuditEvent): AuditWords {
     case 'approval.voided':
       return say(`The approval of ${booking} no longer counts: what it covered changed.`, null, bookingLink);
     case 'approval.granted':
-      return say(`${who} approved ${booking}${subject.personName ? ` for ${subject.personName}` : ''}.`, text(after.conditions) ? `Conditions: ${text(after.conditions)}` : null, bookingLink);
+      return say(
+        `${who} approved ${booking}${subject.personName ? ` for ${subject.personName}` : ''}.`,
+        text(after.conditions) ? `Conditions: ${text(after.conditions)}` : null,
+        bookingLink,
+      );
     case 'approval.refused':
-      return say(`${who} refused ${booking}${subject.personName ? ` for ${subject.personName}` : ''}.`, text(after.reason) ? `Reason: ${text(after.reason)}` : null, bookingLink);
+      return say(
+        `${who} refused ${booking}${subject.personName ? ` for ${subject.personName}` : ''}.`,
+        text(after.reason) ? `Reason: ${text(after.reason)}` : null,
+        bookingLink,
+      );
     case 'booking.item-scanned':
       return say(`${who} scanned ${text(after.tag) ?? 'an item'} at the counter for ${booking}.`, null, bookingLink);
     case 'booking.photo-added':
@@ -148,7 +160,11 @@ export function auditWords(event: AuditEvent): AuditWords {
     case 'incident.updated':
       return say(`${who} updated the review of incident #${id}.`, text(after.cause) ? `Cause: ${text(after.cause)}` : null, incidentLink);
     case 'incident.closed':
-      return say(`${who} closed incident #${id} with its cause and corrective actions.`, text(after.cause) ? `Cause: ${text(after.cause)}` : null, incidentLink);
+      return say(
+        `${who} closed incident #${id} with its cause and corrective actions.`,
+        text(after.cause) ? `Cause: ${text(after.cause)}` : null,
+        incidentLink,
+      );
     case 'incident.action-done':
       return say(`${who} marked a corrective action of incident #${id} done.`, text(after.action), incidentLink);
     case 'incident.action-reopened':
@@ -176,7 +192,10 @@ export function auditWords(event: AuditEvent): AuditWords {
     case 'lab-rules.confirmed':
       return say(`${who} confirmed the lab rules, so they now apply to everyone.`, null, { href: '/lab-rules', label: 'Open the lab rules' });
     case 'lab-rules.updated':
-      return say(`${who} changed the lab rules.`, changedFields(event.before, event.after, LAB_RULE_WORDS), { href: '/lab-rules', label: 'Open the lab rules' });
+      return say(`${who} changed the lab rules.`, changedFields(event.before, event.after, LAB_RULE_WORDS), {
+        href: '/lab-rules',
+        label: 'Open the lab rules',
+      });
     case 'checklist-template.created':
     case 'checklist-template.updated':
     case 'checklist-template.retired': {
@@ -186,7 +205,11 @@ export function auditWords(event: AuditEvent): AuditWords {
     }
     case 'person.invited': {
       const role = text(after.role) as Role | null;
-      return say(`${who} invited ${text(after.name) ?? personName}${role && roleLabels[role] ? ` as ${roleLabels[role].toLowerCase()}` : ''}.`, text(after.email), null);
+      return say(
+        `${who} invited ${text(after.name) ?? personName}${role && roleLabels[role] ? ` as ${roleLabels[role].toLowerCase()}` : ''}.`,
+        text(after.email),
+        null,
+      );
     }
     case 'person.invitation-accepted':
       return say(`${personName} accepted the invitation and set a password.`, null, null);

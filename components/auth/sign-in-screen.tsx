@@ -95,15 +95,7 @@ export function SignInScreen({ next }: SignInScreenProps) {
           />
         </View>
         {errors.root?.server?.message ? <FormAlert testID="sign-in-error" message={errors.root.server.message} /> : null}
-        <Button
-          label="Sign in"
-          loadingLabel="Signing in"
-          testID="sign-in-submit"
-          icon="login"
-          block
-          loading={isSubmitting}
-          onPress={() => void onSubmit()}
-        />
+        <Button label="Sign in" loadingLabel="Signing in" testID="sign-in-submit" icon="login" block loading={isSubmitting} onPress={() => void onSubmit()} />
         <TextLink label="Forgot your password?" href="/forgot-password" testID="sign-in-forgot" />
       </Card>
     </Screen>

@@ -74,7 +74,14 @@ function BenchLogBody({ booking, log, wide }: { booking: Booking; log: BenchRuns
           testID="bench-edit-form"
         />
       ) : (
-        <RunForm bookingId={booking.id} mode="new" from={last} planPolarity={booking.plan.polarity} onSubmit={(values) => record.mutateAsync(values as BenchRunInput)} testID="bench-run-form" />
+        <RunForm
+          bookingId={booking.id}
+          mode="new"
+          from={last}
+          planPolarity={booking.plan.polarity}
+          onSubmit={(values) => record.mutateAsync(values as BenchRunInput)}
+          testID="bench-run-form"
+        />
       )}
     </Card>
   ) : (
@@ -97,7 +104,9 @@ function BenchLogBody({ booking, log, wide }: { booking: Booking; log: BenchRuns
       <AppText variant="small" tone="muted">
         {`Plan: ${sig(booking.plan.plannedKv)} kV ${booking.plan.polarity}, at most ${sig(booking.plan.maxCurrentMa)} mA. ${booking.purpose}`}
       </AppText>
-      {log.runs.length > 0 ? <DownloadLink label="Export runs (CSV)" url={benchRunsCsvUrl(booking.id)} fileName={`booking-${booking.id}-runs.csv`} testID="bench-export" /> : null}
+      {log.runs.length > 0 ? (
+        <DownloadLink label="Export runs (CSV)" url={benchRunsCsvUrl(booking.id)} fileName={`booking-${booking.id}-runs.csv`} testID="bench-export" />
+      ) : null}
       {log.open ? <TextLink label="Import a logger's CSV" href={`/bookings/${booking.id}/runs-import`} icon="upload" testID="bench-import-link" /> : null}
     </View>
   );

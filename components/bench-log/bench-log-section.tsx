@@ -35,11 +35,19 @@ export function BenchLogSection({ booking }: { booking: Booking }) {
     <Card title="Bench log" testID="booking-bench-log">
       {open ? <Button label="Add run" icon="plus" onPress={() => router.push(href)} block testID="booking-add-run" /> : null}
       <AppText testID="booking-bench-log-count">
-        {runs.length === 0 ? 'No runs recorded yet.' : `${runs.length} ${runs.length === 1 ? 'run' : 'runs'} recorded${flagged > 0 ? `, ${flagged} flagged` : ''}.`}
+        {runs.length === 0
+          ? 'No runs recorded yet.'
+          : `${runs.length} ${runs.length === 1 ? 'run' : 'runs'} recorded${flagged > 0 ? `, ${flagged} flagged` : ''}.`}
       </AppText>
       {beyond.map((run) => (
         <View key={run.id} style={styles.beyond} testID={`booking-run-beyond-${run.number}`}>
-          <HazardBadge level="danger" detail={run.flags.filter((f) => BEYOND_PLAN_FLAGS.includes(f.code)).map((f) => FLAG_WORDS[f.code].word).join(', ')} />
+          <HazardBadge
+            level="danger"
+            detail={run.flags
+              .filter((f) => BEYOND_PLAN_FLAGS.includes(f.code))
+              .map((f) => FLAG_WORDS[f.code].word)
+              .join(', ')}
+          />
           <AppText variant="small">{runHeadline(run)}</AppText>
         </View>
       ))}

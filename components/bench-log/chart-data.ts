@@ -64,7 +64,16 @@ export function velocityChart(runs: readonly BenchRun[]): ChartModel {
     summary:
       drawn.length === 0
         ? 'No run has an airflow velocity yet.'
-        : drawn.map((s) => `At ${s.label}: ${rangeSentence(s.points, (v) => `${sig(v)} kV`, (v) => `${sig(v)} m/s`)}.`).join(' '),
+        : drawn
+            .map(
+              (s) =>
+                `At ${s.label}: ${rangeSentence(
+                  s.points,
+                  (v) => `${sig(v)} kV`,
+                  (v) => `${sig(v)} m/s`,
+                )}.`,
+            )
+            .join(' '),
   };
 }
 
@@ -92,7 +101,11 @@ export function currentChart(runs: readonly BenchRun[], fits: readonly CoronaFit
     const fitText = fit
       ? ` Fitted I = C·V·(V − V₀): V₀ = ${sig(fit.onsetKv)} ± ${sig(fit.onsetKvStdErr, 2)} kV, C = ${sig(fit.c)} mA/kV², R² = ${fit.r2.toFixed(3)}${fit.peekOnsetKv === null ? '' : `; Peek's onset for the entered geometry ${sig(fit.peekOnsetKv)} kV`}.`
       : ' Too few runs above onset for a fit (four needed).';
-    return `At ${s.label}: ${rangeSentence(s.points, (v) => `${sig(v)} kV`, (v) => `${sig(v)} mA`)}.${fitText}`;
+    return `At ${s.label}: ${rangeSentence(
+      s.points,
+      (v) => `${sig(v)} kV`,
+      (v) => `${sig(v)} mA`,
+    )}.${fitText}`;
   });
   return {
     key: 'current',
@@ -128,7 +141,11 @@ export function thrustChart(runs: readonly BenchRun[]): ChartModel {
               const flagged = s.points.filter((p) => p.flagged).map((p) => p.run);
               const bestText = best ? `; best ${sig(best.y / best.x)} mN/W (run ${best.run})` : '';
               const flaggedText = flagged.length > 0 ? `; flagged, drawn hollow and left out of the best: run ${flagged.join(', ')}` : '';
-              return `At ${s.label}: ${rangeSentence(s.points, (v) => `${sig(v)} W`, (v) => `${sig(v)} mN`)}${bestText}${flaggedText}.`;
+              return `At ${s.label}: ${rangeSentence(
+                s.points,
+                (v) => `${sig(v)} W`,
+                (v) => `${sig(v)} mN`,
+              )}${bestText}${flaggedText}.`;
             })
             .join(' '),
   };

@@ -66,7 +66,9 @@ export function BenchImportScreen({ id }: { id: number }) {
     <Screen testID="bench-import-screen" title={`Import runs, booking ${id}`}>
       <BackLink href={`/bookings/${id}/runs`} label="Bench log" />
       <Card title="1. The file">
-        {canPickFiles ? <Button label="Choose a CSV file" icon="upload" variant="secondary" onPress={() => void chooseFile()} testID="bench-import-pick" /> : null}
+        {canPickFiles ? (
+          <Button label="Choose a CSV file" icon="upload" variant="secondary" onPress={() => void chooseFile()} testID="bench-import-pick" />
+        ) : null}
         <TextField label="Or paste the CSV text" value={csv} onChangeText={takeText} multiline numberOfLines={6} testID="bench-import-text" />
         {parsed?.problems.map((p) => (
           <AppText key={p} tone="error" variant="small">

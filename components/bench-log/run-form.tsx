@@ -16,11 +16,28 @@ import { benchRunEditSchema, benchRunInputSchema, type BenchRun, type BenchRunEd
 
 import { payloadOf, valuesFromRun, type RunFormValues } from './run-values';
 
-const SETUP_FIELDS = ['gapMm', 'stages', 'massG', 'outletAreaCm2', 'temperatureC', 'pressureKpa', 'humidityPct', 'wireRadiusMm', 'collectorRadiusMm', 'surfaceFactor'] as const;
+const SETUP_FIELDS = [
+  'gapMm',
+  'stages',
+  'massG',
+  'outletAreaCm2',
+  'temperatureC',
+  'pressureKpa',
+  'humidityPct',
+  'wireRadiusMm',
+  'collectorRadiusMm',
+  'surfaceFactor',
+] as const;
 
 function setupSummary(run: BenchRun | undefined): string {
   if (!run) return '';
-  const parts = [`Gap ${run.gapMm} mm`, run.stages === null ? null : `${run.stages} ${run.stages === 1 ? 'stage' : 'stages'}`, run.massG === null ? null : `${run.massG} g`, run.outletAreaCm2 === null ? null : `${run.outletAreaCm2} cm² outlet`, run.temperatureC === null ? null : `${run.temperatureC} °C, ${run.pressureKpa ?? '—'} kPa, ${run.humidityPct ?? '—'} % RH`];
+  const parts = [
+    `Gap ${run.gapMm} mm`,
+    run.stages === null ? null : `${run.stages} ${run.stages === 1 ? 'stage' : 'stages'}`,
+    run.massG === null ? null : `${run.massG} g`,
+    run.outletAreaCm2 === null ? null : `${run.outletAreaCm2} cm² outlet`,
+    run.temperatureC === null ? null : `${run.temperatureC} °C, ${run.pressureKpa ?? '—'} kPa, ${run.humidityPct ?? '—'} % RH`,
+  ];
   return `Same as run ${run.number}: ${parts.filter(Boolean).join(' · ')}.`;
 }
 
@@ -97,7 +114,8 @@ export function RunForm({ bookingId, from, mode, planPolarity, onSubmit, onCance
   function switchThrust(unit: 'mN' | 'gf') {
     const value = getValues(thrustUnit === 'mN' ? 'thrustMn' : 'thrustGf');
     setValue(thrustUnit === 'mN' ? 'thrustMn' : 'thrustGf', undefined);
-    if (typeof value === 'number' && Number.isFinite(value)) setValue(unit === 'mN' ? 'thrustMn' : 'thrustGf', Number((unit === 'mN' ? value * 9.80665 : value / 9.80665).toPrecision(6)));
+    if (typeof value === 'number' && Number.isFinite(value))
+      setValue(unit === 'mN' ? 'thrustMn' : 'thrustGf', Number((unit === 'mN' ? value * 9.80665 : value / 9.80665).toPrecision(6)));
     setThrustUnit(unit);
   }
   function stepKv(by: number) {
@@ -109,7 +127,8 @@ export function RunForm({ bookingId, from, mode, planPolarity, onSubmit, onCance
     setSaved(null);
     try {
       const run = (await onSubmit(payloadOf(values) as BenchRunInput)) as BenchRun | undefined;
-      if (run && mode === 'new') setSaved(`Run ${run.number} recorded${run.flags.length > 0 ? ` with ${run.flags.length} ${run.flags.length === 1 ? 'flag' : 'flags'}` : ''}.`);
+      if (run && mode === 'new')
+        setSaved(`Run ${run.number} recorded${run.flags.length > 0 ? ` with ${run.flags.length} ${run.flags.length === 1 ? 'flag' : 'flags'}` : ''}.`);
     } catch (error) {
       applyServerErrors(error, FIELDS, setError);
     }
@@ -136,23 +155,52 @@ export function RunForm({ bookingId, from, mode, planPolarity, onSubmit, onCance
           onChange={(v) => setValue('polarity', v)}
         />
       ) : null}
-      <SegmentedControl label="Current in" options={[{ value: 'mA', label: 'mA', testID: `${testID}-unit-ma` }, { value: 'µA', label: 'µA', testID: `${testID}-unit-ua` }]} value={currentUnit} onChange={switchCurrent} />
+      <SegmentedControl
+        label="Current in"
+        options={[
+          { value: 'mA', label: 'mA', testID: `${testID}-unit-ma` },
+          { value: 'µA', label: 'µA', testID: `${testID}-unit-ua` },
+        ]}
+        value={currentUnit}
+        onChange={switchCurrent}
+      />
       {currentUnit === 'mA' ? (
         <FormNumberField control={control} name="currentMa" label="Current" unit="mA" testID={`${testID}-current`} />
       ) : (
         <FormNumberField control={control} name="currentUa" label="Current" unit="µA" testID={`${testID}-current`} />
       )}
-      <SegmentedControl label="Thrust in" options={[{ value: 'mN', label: 'mN', testID: `${testID}-unit-mn` }, { value: 'gf', label: 'grams-force', testID: `${testID}-unit-gf` }]} value={thrustUnit} onChange={switchThrust} />
+      <SegmentedControl
+        label="Thrust in"
+        options={[
+          { value: 'mN', label: 'mN', testID: `${testID}-unit-mn` },
+          { value: 'gf', label: 'grams-force', testID: `${testID}-unit-gf` },
+        ]}
+        value={thrustUnit}
+        onChange={switchThrust}
+      />
       {thrustUnit === 'mN' ? (
         <FormNumberField control={control} name="thrustMn" label="Thrust" unit="mN" hint="Optional" testID={`${testID}-thrust`} />
       ) : (
-        <FormNumberField control={control} name="thrustGf" label="Thrust" unit="gf" hint="Optional; stored in mN (1 gf = 9.80665 mN)" testID={`${testID}-thrust`} />
+        <FormNumberField
+          control={control}
+          name="thrustGf"
+          label="Thrust"
+          unit="gf"
+          hint="Optional; stored in mN (1 gf = 9.80665 mN)"
+          testID={`${testID}-thrust`}
+        />
       )}
       <FormNumberField control={control} name="velocityMps" label="Airflow velocity" unit="m/s" hint="Optional" testID={`${testID}-velocity`} />
       <FormTextField control={control} name="notes" label="Notes" multiline testID={`${testID}-notes`} />
       <View style={styles.form}>
         <AppText variant="bodyStrong">Photo of the setup (optional)</AppText>
-        <BookingPhotoPicker bookingId={bookingId} fileId={photoFileId} onChange={(id) => setValue('photoFileId', id)} subject="the bench setup for this run" testID={`${testID}-photo`} />
+        <BookingPhotoPicker
+          bookingId={bookingId}
+          fileId={photoFileId}
+          onChange={(id) => setValue('photoFileId', id)}
+          subject="the bench setup for this run"
+          testID={`${testID}-photo`}
+        />
         {formState.errors.photoFileId?.message ? (
           <AppText variant="smallStrong" tone="error">
             {formState.errors.photoFileId.message}
@@ -162,7 +210,13 @@ export function RunForm({ bookingId, from, mode, planPolarity, onSubmit, onCance
       {showSetup ? null : (
         <View style={styles.setup} testID={`${testID}-setup-summary`}>
           <AppText variant="small">{setupSummary(from)}</AppText>
-          <Button label="Change gap, device or ambient" variant="secondary" icon="chevron-down" onPress={() => setSetupOpen(true)} testID={`${testID}-setup-open`} />
+          <Button
+            label="Change gap, device or ambient"
+            variant="secondary"
+            icon="chevron-down"
+            onPress={() => setSetupOpen(true)}
+            testID={`${testID}-setup-open`}
+          />
         </View>
       )}
       {showSetup ? (
@@ -171,7 +225,14 @@ export function RunForm({ bookingId, from, mode, planPolarity, onSubmit, onCance
           <FormNumberField control={control} name="stages" label="Stages or tap" unit="count" integer hint="Optional" testID={`${testID}-stages`} />
           <AppText variant="bodyStrong">Device</AppText>
           <FormNumberField control={control} name="massG" label="Device mass" unit="g" hint="Optional: for thrust-to-weight" testID={`${testID}-mass`} />
-          <FormNumberField control={control} name="outletAreaCm2" label="Outlet area" unit="cm²" hint="Optional: for the momentum check" testID={`${testID}-area`} />
+          <FormNumberField
+            control={control}
+            name="outletAreaCm2"
+            label="Outlet area"
+            unit="cm²"
+            hint="Optional: for the momentum check"
+            testID={`${testID}-area`}
+          />
           <AppText variant="bodyStrong">Ambient</AppText>
           <AppText variant="small" tone="muted">
             Left empty, each is carried over from the previous run.
@@ -185,7 +246,14 @@ export function RunForm({ bookingId, from, mode, planPolarity, onSubmit, onCance
           </AppText>
           <FormNumberField control={control} name="wireRadiusMm" label="Wire radius" unit="mm" testID={`${testID}-wire`} />
           <FormNumberField control={control} name="collectorRadiusMm" label="Collector radius" unit="mm" testID={`${testID}-collector`} />
-          <FormNumberField control={control} name="surfaceFactor" label="Surface factor m_v" unit="0–1" hint="1 smooth wire; 0.98–0.93 rough; 0.87–0.83 stranded" testID={`${testID}-surface`} />
+          <FormNumberField
+            control={control}
+            name="surfaceFactor"
+            label="Surface factor m_v"
+            unit="0–1"
+            hint="1 smooth wire; 0.98–0.93 rough; 0.87–0.83 stranded"
+            testID={`${testID}-surface`}
+          />
         </View>
       ) : null}
       {mode === 'edit' ? <FormTextField control={control} name="reason" label="Why the correction" testID={`${testID}-reason`} /> : null}
@@ -196,7 +264,15 @@ export function RunForm({ bookingId, from, mode, planPolarity, onSubmit, onCance
         </AppText>
       ) : null}
       <View style={styles.row}>
-        <Button label={mode === 'edit' ? 'Save correction' : 'Record run'} icon={mode === 'edit' ? 'pencil' : 'plus'} onPress={() => void submit()} loading={formState.isSubmitting} loadingLabel="Saving the run" block testID={`${testID}-submit`} />
+        <Button
+          label={mode === 'edit' ? 'Save correction' : 'Record run'}
+          icon={mode === 'edit' ? 'pencil' : 'plus'}
+          onPress={() => void submit()}
+          loading={formState.isSubmitting}
+          loadingLabel="Saving the run"
+          block
+          testID={`${testID}-submit`}
+        />
         {onCancel ? <Button label="Cancel" variant="secondary" onPress={onCancel} testID={`${testID}-cancel`} /> : null}
       </View>
     </View>

@@ -66,15 +66,34 @@ function RunCard({ bookingId, run, canCorrect, canRemove, onCorrect }: { booking
             <AppText variant="smallStrong">{line.value}</AppText>
           </AppText>
         ))}
-        {run.temperatureC !== null ? <AppText variant="small" tone="muted">{`Ambient ${sig(run.temperatureC)} °C, ${sig(run.pressureKpa, 4)} kPa, ${run.humidityPct === null ? 'humidity not given (dry air assumed)' : `${sig(run.humidityPct)} % RH`}`}</AppText> : null}
+        {run.temperatureC !== null ? (
+          <AppText
+            variant="small"
+            tone="muted"
+          >{`Ambient ${sig(run.temperatureC)} °C, ${sig(run.pressureKpa, 4)} kPa, ${run.humidityPct === null ? 'humidity not given (dry air assumed)' : `${sig(run.humidityPct)} % RH`}`}</AppText>
+        ) : null}
       </View>
       {run.notes ? <AppText variant="small">{`Notes: ${run.notes}`}</AppText> : null}
       {run.photoFileId !== null ? (
-        <Image source={{ uri: bookingPhotoUrl(run.photoFileId) }} style={[styles.photo, { backgroundColor: colors.surfaceMuted }]} resizeMode="cover" accessibilityLabel={`Photo of the setup for run ${run.number}`} testID={`${testID}-photo`} />
+        <Image
+          source={{ uri: bookingPhotoUrl(run.photoFileId) }}
+          style={[styles.photo, { backgroundColor: colors.surfaceMuted }]}
+          resizeMode="cover"
+          accessibilityLabel={`Photo of the setup for run ${run.number}`}
+          testID={`${testID}-photo`}
+        />
       ) : null}
       <View style={styles.actions}>
         {canCorrect ? <Button label="Correct" icon="pencil" variant="secondary" onPress={() => onCorrect(run)} testID={`${testID}-correct`} /> : null}
-        {run.revision > 1 ? <Button label={history ? 'Hide history' : 'History'} variant="secondary" icon={history ? 'chevron-up' : 'chevron-down'} onPress={() => setHistory((h) => !h)} testID={`${testID}-history`} /> : null}
+        {run.revision > 1 ? (
+          <Button
+            label={history ? 'Hide history' : 'History'}
+            variant="secondary"
+            icon={history ? 'chevron-up' : 'chevron-down'}
+            onPress={() => setHistory((h) => !h)}
+            testID={`${testID}-history`}
+          />
+        ) : null}
         {canRemove ? <Button label="Remove" variant="danger" onPress={() => setRemoving(true)} testID={`${testID}-remove`} /> : null}
       </View>
       {history ? <RunHistory bookingId={bookingId} runId={run.id} /> : null}
@@ -86,7 +105,12 @@ function RunCard({ bookingId, run, canCorrect, canRemove, onCorrect }: { booking
 function RunHistory({ bookingId, runId }: { bookingId: number; runId: number }) {
   const revisions = useRunRevisionsQuery(bookingId, runId);
   if (revisions.isPending) return <AppText variant="small">Loading the history…</AppText>;
-  if (revisions.isError) return <AppText variant="small" tone="error">{describeError(revisions.error)}</AppText>;
+  if (revisions.isError)
+    return (
+      <AppText variant="small" tone="error">
+        {describeError(revisions.error)}
+      </AppText>
+    );
   return (
     <View style={styles.figures}>
       {revisions.data.map((r) => (
@@ -103,9 +127,21 @@ function RemoveRun({ bookingId, run, onDone }: { bookingId: number; run: BenchRu
   const [reason, setReason] = useState('');
   return (
     <View style={styles.figures}>
-      <TextField label={`Why remove run ${run.number}`} value={reason} onChangeText={setReason} error={remove.isError ? describeError(remove.error) : undefined} testID={`bench-run-${run.number}-remove-reason`} />
+      <TextField
+        label={`Why remove run ${run.number}`}
+        value={reason}
+        onChangeText={setReason}
+        error={remove.isError ? describeError(remove.error) : undefined}
+        testID={`bench-run-${run.number}-remove-reason`}
+      />
       <View style={styles.actions}>
-        <Button label={`Remove run ${run.number}`} variant="danger" loading={remove.isPending} onPress={() => remove.mutate({ runId: run.id, reason }, { onSuccess: onDone })} testID={`bench-run-${run.number}-remove-confirm`} />
+        <Button
+          label={`Remove run ${run.number}`}
+          variant="danger"
+          loading={remove.isPending}
+          onPress={() => remove.mutate({ runId: run.id, reason }, { onSuccess: onDone })}
+          testID={`bench-run-${run.number}-remove-confirm`}
+        />
         <Button label="Keep it" variant="secondary" onPress={onDone} />
       </View>
     </View>

@@ -31,5 +31,7 @@ export function valuesFromRun(run: BenchRun | undefined, withNotes = false): Run
 
 /** Drops the empty fields a form leaves behind, so the payload names only what was entered. */
 export function payloadOf(values: RunFormValues): RunFormValues {
-  return Object.fromEntries(Object.entries(values).filter(([, v]) => v !== undefined && v !== null && v !== '' && !(typeof v === 'number' && Number.isNaN(v)))) as RunFormValues;
+  return Object.fromEntries(
+    Object.entries(values).filter(([, v]) => v !== undefined && v !== null && v !== '' && !(typeof v === 'number' && Number.isNaN(v))),
+  ) as RunFormValues;
 }

@@ -34,8 +34,14 @@ export function ScatterChart({ model, testID }: { model: ChartModel; testID: str
   const xs = model.series.flatMap((s) => [...s.points.map((p) => p.x), ...(s.curve ?? []).map((p) => p.x), ...(s.markX ? [s.markX.x] : [])]);
   const ys = model.series.flatMap((s) => [...s.points.map((p) => p.y), ...(s.curve ?? []).map((p) => p.y)]);
   if (xs.length === 0) return null;
-  const x = scaleLinear().domain([Math.min(0, ...xs), Math.max(...xs)]).nice().range([MARGIN.left, width - MARGIN.right]);
-  const y = scaleLinear().domain([0, Math.max(...ys, 1e-9)]).nice().range([HEIGHT - MARGIN.bottom, MARGIN.top]);
+  const x = scaleLinear()
+    .domain([Math.min(0, ...xs), Math.max(...xs)])
+    .nice()
+    .range([MARGIN.left, width - MARGIN.right]);
+  const y = scaleLinear()
+    .domain([0, Math.max(...ys, 1e-9)])
+    .nice()
+    .range([HEIGHT - MARGIN.bottom, MARGIN.top]);
   const path = line<{ x: number; y: number }>()
     .x((p) => x(p.x))
     .y((p) => y(p.y));
@@ -67,7 +73,14 @@ export function ScatterChart({ model, testID }: { model: ChartModel; testID: str
             <SvgText x={(MARGIN.left + width - MARGIN.right) / 2} y={HEIGHT - 6} fontSize={font} fill={colors.text} textAnchor="middle">
               {model.xLabel}
             </SvgText>
-            <SvgText x={14} y={(MARGIN.top + HEIGHT - MARGIN.bottom) / 2} fontSize={font} fill={colors.text} textAnchor="middle" transform={`rotate(-90 14 ${(MARGIN.top + HEIGHT - MARGIN.bottom) / 2})`}>
+            <SvgText
+              x={14}
+              y={(MARGIN.top + HEIGHT - MARGIN.bottom) / 2}
+              fontSize={font}
+              fill={colors.text}
+              textAnchor="middle"
+              transform={`rotate(-90 14 ${(MARGIN.top + HEIGHT - MARGIN.bottom) / 2})`}
+            >
               {model.yLabel}
             </SvgText>
           </G>
@@ -79,7 +92,15 @@ export function ScatterChart({ model, testID }: { model: ChartModel; testID: str
                 {s.curve ? <Path d={path(s.curve) ?? ''} stroke={color} strokeWidth={2} fill="none" /> : null}
                 {s.markX ? (
                   <G>
-                    <Line x1={x(s.markX.x)} x2={x(s.markX.x)} y1={MARGIN.top} y2={HEIGHT - MARGIN.bottom} stroke={color} strokeWidth={1.5} strokeDasharray="5 4" />
+                    <Line
+                      x1={x(s.markX.x)}
+                      x2={x(s.markX.x)}
+                      y1={MARGIN.top}
+                      y2={HEIGHT - MARGIN.bottom}
+                      stroke={color}
+                      strokeWidth={1.5}
+                      strokeDasharray="5 4"
+                    />
                     <SvgText x={x(s.markX.x) + 3} y={MARGIN.top + 12 + i * 14} fontSize={font} fill={color}>
                       {s.markX.label}
                     </SvgText>

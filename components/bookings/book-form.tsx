@@ -56,14 +56,15 @@ export function BookForm({ booking, copyOf, itemIds: startItems }: BookFormProps
   const itemIds = (values.itemIds ?? []).filter((id): id is number => typeof id === 'number');
   const gear = useGearItems(itemIds);
   const live = useLiveAssessment({ items: gear.items, itemsLoading: gear.loading, plan: values.plan, personId: user?.id });
-  const window =
-    values.startsAt && values.endsAt && new Date(values.endsAt) > new Date(values.startsAt) ? { from: values.startsAt, to: values.endsAt } : null;
+  const window = values.startsAt && values.endsAt && new Date(values.endsAt) > new Date(values.startsAt) ? { from: values.startsAt, to: values.endsAt } : null;
 
   // The same gear rules the release enforces (shared/rules/release.ts), with the window's clashes,
   // so a set that can never be released says why before it is requested.
   const availability = useGearAvailability(itemIds, window);
   const clashingTags = window
-    ? itemIds.filter((id) => (availability[id]?.busy ?? []).some((slot) => slot.bookingId !== booking?.id)).map((id) => gear.items.find((i) => i.id === id)?.tag ?? `item ${id}`)
+    ? itemIds
+        .filter((id) => (availability[id]?.busy ?? []).some((slot) => slot.bookingId !== booking?.id))
+        .map((id) => gear.items.find((i) => i.id === id)?.tag ?? `item ${id}`)
     : [];
   const blockers = live.state === 'ready' ? gearFailures(live.assessment, clashingTags) : [];
 

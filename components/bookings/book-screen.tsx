@@ -25,7 +25,10 @@ export function BookScreen({ itemId, fromBookingId }: { itemId?: number; fromBoo
           <ErrorState title="The booking to copy did not load" error={from.error} onRetry={() => void from.refetch()} retrying={from.isFetching} />
         ) : (
           <>
-            <AppText variant="bodyStrong" testID="book-again-note">{`Copied from booking ${from.data.id}: the same gear, place, purpose and plan. Choose the new window.`}</AppText>
+            <AppText
+              variant="bodyStrong"
+              testID="book-again-note"
+            >{`Copied from booking ${from.data.id}: the same gear, place, purpose and plan. Choose the new window.`}</AppText>
             <BookForm copyOf={from.data} />
           </>
         )

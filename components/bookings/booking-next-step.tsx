@@ -27,7 +27,12 @@ interface Step {
   action?: { label: string; icon: 'lock-open-variant' | 'keyboard-return' | 'pencil' | 'clipboard-check' | 'calendar-plus'; href: Href; testID: string };
 }
 
-const bookAgain = (id: string): Step['action'] => ({ label: 'Book again', icon: 'calendar-plus', href: { pathname: '/bookings/new', params: { from: id } }, testID: 'booking-book-again' });
+const bookAgain = (id: string): Step['action'] => ({
+  label: 'Book again',
+  icon: 'calendar-plus',
+  href: { pathname: '/bookings/new', params: { from: id } },
+  testID: 'booking-book-again',
+});
 
 function nextStep(booking: Booking, viewer: { id: number; role: string } | null): Step {
   const own = viewer?.id === booking.personId;
@@ -40,7 +45,12 @@ function nextStep(booking: Booking, viewer: { id: number; role: string } | null)
           booking.status === 'approved'
             ? 'Approved. At the counter: scan each item, complete the pre-energize checklist, release.'
             : 'At the counter: scan each item, complete the pre-energize checklist, release.',
-        action: { label: 'Go to release', icon: 'lock-open-variant', href: { pathname: '/bookings/[id]/release', params: { id } }, testID: 'booking-go-release' },
+        action: {
+          label: 'Go to release',
+          icon: 'lock-open-variant',
+          href: { pathname: '/bookings/[id]/release', params: { id } },
+          testID: 'booking-go-release',
+        },
       };
     case 'awaiting-approval':
       if (viewer?.role === 'officer' && !own) {
@@ -59,13 +69,26 @@ function nextStep(booking: Booking, viewer: { id: number; role: string } | null)
         : { say: 'Refused. The person who booked can change the plan and ask again.' };
     case 'released':
       return {
-        say: booking.overdue ? 'Overdue: the window has ended. Make the setup safe and return the gear now.' : 'Released. When the test is done, make the setup safe and return the gear.',
-        action: { label: 'Return and make safe', icon: 'keyboard-return', href: { pathname: '/bookings/[id]/return', params: { id } }, testID: 'booking-go-return' },
+        say: booking.overdue
+          ? 'Overdue: the window has ended. Make the setup safe and return the gear now.'
+          : 'Released. When the test is done, make the setup safe and return the gear.',
+        action: {
+          label: 'Return and make safe',
+          icon: 'keyboard-return',
+          href: { pathname: '/bookings/[id]/return', params: { id } },
+          testID: 'booking-go-return',
+        },
       };
     case 'returned':
-      return { say: `Returned${booking.returnedAt ? ` ${formatDateTime(booking.returnedAt)}` : ''}. Nothing more to do.`, action: own ? bookAgain(id) : undefined };
+      return {
+        say: `Returned${booking.returnedAt ? ` ${formatDateTime(booking.returnedAt)}` : ''}. Nothing more to do.`,
+        action: own ? bookAgain(id) : undefined,
+      };
     case 'cancelled':
-      return { say: `Cancelled${booking.cancelledAt ? ` ${formatDateTime(booking.cancelledAt)}` : ''}. The gear is free for others.`, action: own ? bookAgain(id) : undefined };
+      return {
+        say: `Cancelled${booking.cancelledAt ? ` ${formatDateTime(booking.cancelledAt)}` : ''}. The gear is free for others.`,
+        action: own ? bookAgain(id) : undefined,
+      };
   }
 }
 
@@ -84,7 +107,11 @@ export function BookingNextStep({ booking }: { booking: Booking }) {
   // Never "Go to release" for a booking the gate will refuse whatever is done at the counter.
   const step: Step =
     PRE_RELEASE_STATUSES.includes(booking.status) && standing.length > 0
-      ? { say: own(booking, user) ? 'This booking cannot be released as it stands. Change the gear, window or plan as listed below.' : 'This booking cannot be released as it stands; the person who booked must change it.' }
+      ? {
+          say: own(booking, user)
+            ? 'This booking cannot be released as it stands. Change the gear, window or plan as listed below.'
+            : 'This booking cannot be released as it stands; the person who booked must change it.',
+        }
       : opensAt && counter.action?.testID === 'booking-go-release'
         ? { ...counter, say: `${counter.say} The counter opens it at ${zonedTimeWords(opensAt, zone)}.` }
         : counter;
@@ -100,7 +127,11 @@ export function BookingNextStep({ booking }: { booking: Booking }) {
         {step.say}
       </AppText>
       {standing.length > 0 && PRE_RELEASE_STATUSES.includes(booking.status) ? (
-        <ReleaseFailures testID="booking-blocked" title={`The release will refuse it: ${standing.length} rule${standing.length === 1 ? '' : 's'} the gear fails.`} failures={standing} />
+        <ReleaseFailures
+          testID="booking-blocked"
+          title={`The release will refuse it: ${standing.length} rule${standing.length === 1 ? '' : 's'} the gear fails.`}
+          failures={standing}
+        />
       ) : null}
       {step.action ? (
         <Button label={step.action.label} icon={step.action.icon} block testID={step.action.testID} onPress={() => router.push(step.action!.href)} />

@@ -57,7 +57,12 @@ export function BookingPhotoPicker({ bookingId, fileId, onChange, subject, testI
     <View style={styles.picker}>
       {fileId !== undefined ? (
         <View style={[styles.attached, { borderColor: colors.border }]} testID={`${testID}-attached`}>
-          <Image source={{ uri: bookingPhotoUrl(fileId) }} style={[styles.thumbnail, { backgroundColor: colors.surfaceMuted }]} resizeMode="cover" accessibilityLabel={`Attached photo: ${subject}`} />
+          <Image
+            source={{ uri: bookingPhotoUrl(fileId) }}
+            style={[styles.thumbnail, { backgroundColor: colors.surfaceMuted }]}
+            resizeMode="cover"
+            accessibilityLabel={`Attached photo: ${subject}`}
+          />
           <View style={styles.attachedText}>
             <AppText variant="smallStrong">Photo attached</AppText>
             {fileName ? (

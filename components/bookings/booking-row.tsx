@@ -18,11 +18,7 @@ export function BookingRow({ booking, showPerson = false, divided = false }: Boo
   const tags = booking.itemTags.length > 4 ? `${booking.itemTags.slice(0, 4).join(', ')} +${booking.itemTags.length - 4}` : booking.itemTags.join(', ');
   const who = showPerson ? `${booking.personName} · ` : '';
   return (
-    <LinkRow
-      href={{ pathname: '/bookings/[id]', params: { id: String(booking.id) } }}
-      testID={`booking-row-${booking.id}`}
-      divided={divided}
-    >
+    <LinkRow href={{ pathname: '/bookings/[id]', params: { id: String(booking.id) } }} testID={`booking-row-${booking.id}`} divided={divided}>
       <BookingStatusBadge status={booking.status} overdue={booking.overdue} testID={`booking-row-${booking.id}-status`} />
       <AppText variant="bodyStrong">{`${formatWindow(booking.startsAt, booking.endsAt)} · ${formatKv(booking.plannedKv)}`}</AppText>
       <AppText variant="small" tone="muted">{`${who}#${booking.id} · ${booking.location} · ${tags}`}</AppText>

@@ -27,7 +27,8 @@ const PHASE_TITLES = { pre: 'Pre-energize checklist', return: 'Make-safe checkli
 export function ChecklistRecord({ bookingId }: { bookingId: number }) {
   const runs = useChecklistRunsQuery(bookingId);
   const [showEarlier, setShowEarlier] = useState(false);
-  if (runs.isError) return <ErrorState title="The completed checklists did not load" error={runs.error} onRetry={() => void runs.refetch()} retrying={runs.isFetching} />;
+  if (runs.isError)
+    return <ErrorState title="The completed checklists did not load" error={runs.error} onRetry={() => void runs.refetch()} retrying={runs.isFetching} />;
   // Most bookings have none until the counter: no section, and no spinner for one.
   if (runs.isPending || runs.data.length === 0) return null;
 
@@ -81,15 +82,28 @@ function AnswerLine({ answer, testID }: { answer: ChecklistAnswerRecord; testID:
   const answered = answer.confirmed === true || answer.value !== undefined || answer.fileId !== undefined;
   return (
     <View style={styles.line} testID={testID}>
-      <Icon name={!answered ? 'checkbox-blank-outline' : answer.withinLimits ? 'check-circle' : 'alert-circle'} size={iconSizes.sm} color={answer.withinLimits ? colors.textMuted : colors.errorText} />
+      <Icon
+        name={!answered ? 'checkbox-blank-outline' : answer.withinLimits ? 'check-circle' : 'alert-circle'}
+        size={iconSizes.sm}
+        color={answer.withinLimits ? colors.textMuted : colors.errorText}
+      />
       <View style={styles.lineText}>
         <AppText variant="small">{answer.text}</AppText>
         <AppText variant="smallStrong" tone={answer.withinLimits ? 'default' : 'error'} testID={`${testID}-answer`}>
           {describeAnswer(answer)}
         </AppText>
         {answer.fileId !== undefined ? (
-          <Pressable accessibilityRole="link" accessibilityLabel={`Open the photo: ${answer.text}`} {...webLinkProps(bookingPhotoUrl(answer.fileId), { newTab: true })} testID={`${testID}-photo`}>
-            <Image source={{ uri: bookingPhotoUrl(answer.fileId) }} style={[styles.photo, { backgroundColor: colors.surfaceMuted, borderColor: colors.border }]} resizeMode="cover" />
+          <Pressable
+            accessibilityRole="link"
+            accessibilityLabel={`Open the photo: ${answer.text}`}
+            {...webLinkProps(bookingPhotoUrl(answer.fileId), { newTab: true })}
+            testID={`${testID}-photo`}
+          >
+            <Image
+              source={{ uri: bookingPhotoUrl(answer.fileId) }}
+              style={[styles.photo, { backgroundColor: colors.surfaceMuted, borderColor: colors.border }]}
+              resizeMode="cover"
+            />
           </Pressable>
         ) : null}
       </View>

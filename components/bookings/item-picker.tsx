@@ -34,7 +34,13 @@ interface ItemPickerProps {
 function summaryLine(item: ItemSummary): string {
   const rating = item.ratedKv === null ? 'no voltage rating' : `rated ${item.ratedKv} kV`;
   const state =
-    item.status !== 'in-service' ? (item.status === 'retired' ? 'retired' : 'out of service') : item.inspectionState === 'overdue' || item.inspectionState === 'never' ? 'inspection not current' : null;
+    item.status !== 'in-service'
+      ? item.status === 'retired'
+        ? 'retired'
+        : 'out of service'
+      : item.inspectionState === 'overdue' || item.inspectionState === 'never'
+        ? 'inspection not current'
+        : null;
   return [KIND_LABELS[item.kind], rating, state].filter(Boolean).join(' · ');
 }
 
@@ -45,7 +51,10 @@ export function ItemPicker({ value, onChange, picked, window, ownBookingId, erro
   const [kind, setKind] = useState<ItemKind | 'any'>('any');
   const [minKvText, setMinKvText] = useState('');
   const minKv = Number(minKvText.replace(',', '.'));
-  const search = useGearSearchQuery(useDebouncedValue(query, 250), { kind: kind === 'any' ? undefined : kind, minKv: minKvText.trim() === '' || !Number.isFinite(minKv) ? undefined : minKv });
+  const search = useGearSearchQuery(useDebouncedValue(query, 250), {
+    kind: kind === 'any' ? undefined : kind,
+    minKv: minKvText.trim() === '' || !Number.isFinite(minKv) ? undefined : minKv,
+  });
   const availability = useGearAvailability(value, window);
 
   return (
@@ -69,7 +78,11 @@ export function ItemPicker({ value, onChange, picked, window, ownBookingId, erro
                   ) : null}
                   <AvailabilityLine id={id} state={availability[id]} window={window} ownBookingId={ownBookingId} />
                 </View>
-                <RemoveButton label={`Remove ${item?.tag ?? `item ${id}`}`} testID={`remove-item-${id}`} onPress={() => onChange(value.filter((v) => v !== id))} />
+                <RemoveButton
+                  label={`Remove ${item?.tag ?? `item ${id}`}`}
+                  testID={`remove-item-${id}`}
+                  onPress={() => onChange(value.filter((v) => v !== id))}
+                />
               </View>
             );
           })
@@ -118,7 +131,9 @@ export function ItemPicker({ value, onChange, picked, window, ownBookingId, erro
           </AppText>
         ) : search.data.length === 0 ? (
           <AppText tone="muted" style={styles.pad}>
-            {kind !== 'any' || minKvText.trim() !== '' ? 'No gear matches these filters. Try another kind or a lower rating.' : 'No gear matches. Try a tag such as SUP-0001, or a word of the name.'}
+            {kind !== 'any' || minKvText.trim() !== ''
+              ? 'No gear matches these filters. Try another kind or a lower rating.'
+              : 'No gear matches. Try a tag such as SUP-0001, or a word of the name.'}
           </AppText>
         ) : (
           search.data.map((item, index) => {
@@ -150,15 +165,34 @@ function RemoveButton({ label, onPress, testID }: { label: string; onPress: () =
       accessibilityLabel={label}
       onPress={onPress}
       testID={testID}
-      style={({ pressed }) => [styles.remove, { borderColor: colors.borderStrong, backgroundColor: colors.surface }, pressed && { backgroundColor: colors.surfaceMuted }]}
+      style={({ pressed }) => [
+        styles.remove,
+        { borderColor: colors.borderStrong, backgroundColor: colors.surface },
+        pressed && { backgroundColor: colors.surfaceMuted },
+      ]}
     >
       <Icon name="close" color={colors.text} />
     </Pressable>
   );
 }
 
-function AvailabilityLine({ id, state, window, ownBookingId }: { id: number; state: Availability | undefined; window: ItemPickerProps['window']; ownBookingId?: number }) {
-  if (!window) return <AppText variant="small" tone="muted">Set a valid window to see whether it is free.</AppText>;
+function AvailabilityLine({
+  id,
+  state,
+  window,
+  ownBookingId,
+}: {
+  id: number;
+  state: Availability | undefined;
+  window: ItemPickerProps['window'];
+  ownBookingId?: number;
+}) {
+  if (!window)
+    return (
+      <AppText variant="small" tone="muted">
+        Set a valid window to see whether it is free.
+      </AppText>
+    );
   if (!state || (state.busy === undefined && state.loading)) {
     return (
       <AppText variant="small" tone="muted" testID={`availability-${id}`}>

@@ -37,7 +37,10 @@ export function LiveAssessmentView({ live, afterSummary }: { live: LiveAssessmen
         {live.state === 'loading' ? (
           <LoadingState label="Working out the assessment" />
         ) : live.state === 'error' ? (
-          <AppText tone="error" testID="live-assessment-error">{`The assessment could not be worked out: ${live.error instanceof Error && !isApiError(live.error) ? live.error.message : describeError(live.error)}`}</AppText>
+          <AppText
+            tone="error"
+            testID="live-assessment-error"
+          >{`The assessment could not be worked out: ${live.error instanceof Error && !isApiError(live.error) ? live.error.message : describeError(live.error)}`}</AppText>
         ) : (
           <AppText tone="muted" testID="live-assessment-waiting">
             {live.reason}

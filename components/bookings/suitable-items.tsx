@@ -37,7 +37,13 @@ function SuitableList({ kind, minKv, picked, onAdd, testID }: SuitableItemsProps
   if (search.isPending) return <LoadingState label={`Finding a ${KIND_LABELS[kind].toLowerCase()}`} />;
   if (search.isError) return <AppText tone="error">{`The search failed: ${describeError(search.error)}`}</AppText>;
   const usable = search.data
-    .filter((i) => i.status === 'in-service' && (i.inspectionState === 'current' || i.inspectionState === 'due-soon') && (i.ratedKv ?? 0) >= minKv && !picked.includes(i.id))
+    .filter(
+      (i) =>
+        i.status === 'in-service' &&
+        (i.inspectionState === 'current' || i.inspectionState === 'due-soon') &&
+        (i.ratedKv ?? 0) >= minKv &&
+        !picked.includes(i.id),
+    )
     .slice(0, 4);
   if (usable.length === 0) {
     return (
@@ -49,7 +55,14 @@ function SuitableList({ kind, minKv, picked, onAdd, testID }: SuitableItemsProps
   return (
     <View style={styles.list} testID={`${testID}-list`}>
       {usable.map((item) => (
-        <Button key={item.id} label={`Add ${item.tag} (${item.ratedKv} kV)`} icon="plus" variant="secondary" testID={`${testID}-add-${item.id}`} onPress={() => onAdd(item.id)} />
+        <Button
+          key={item.id}
+          label={`Add ${item.tag} (${item.ratedKv} kV)`}
+          icon="plus"
+          variant="secondary"
+          testID={`${testID}-add-${item.id}`}
+          onPress={() => onAdd(item.id)}
+        />
       ))}
     </View>
   );

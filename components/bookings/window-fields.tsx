@@ -61,7 +61,8 @@ function TimeField({ label, value, onChange, onBlur, error, testID }: TimeFieldP
     setText(next);
     onChange(instantOf(resolveLocalText(next, zone)));
   };
-  const chosen = resolution.kind === 'ambiguous' ? (['earlier', 'later'] as const).find((which) => resolution[which].instant.toISOString() === value) : undefined;
+  const chosen =
+    resolution.kind === 'ambiguous' ? (['earlier', 'later'] as const).find((which) => resolution[which].instant.toISOString() === value) : undefined;
   return (
     <View style={styles.field}>
       <TextField

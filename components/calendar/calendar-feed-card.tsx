@@ -30,13 +30,18 @@ export function CalendarFeedCard({ role }: { role: Role }) {
   const toggle = (key: keyof CalendarFeedScopes) => (checked: boolean) => setScopes({ ...current, [key]: checked });
   const copy = async () => {
     if (url && typeof navigator !== 'undefined' && navigator.clipboard) {
-      await navigator.clipboard.writeText(url).then(() => setCopied(true), () => setCopied(false));
+      await navigator.clipboard.writeText(url).then(
+        () => setCopied(true),
+        () => setCopied(false),
+      );
     }
   };
 
   return (
     <Card title="Calendar feed" testID="calendar-feed">
-      <AppText tone="muted">Subscribe to your bookings from the calendar you already use. The address is private: anyone who has it sees what the feed holds.</AppText>
+      <AppText tone="muted">
+        Subscribe to your bookings from the calendar you already use. The address is private: anyone who has it sees what the feed holds.
+      </AppText>
       {feed.isPending ? (
         <LoadingState label="Loading your feed" />
       ) : feed.isError ? (
@@ -49,7 +54,9 @@ export function CalendarFeedCard({ role }: { role: Role }) {
               <Checkbox label="Add every lab booking" checked={current.labBookings} onChange={toggle('labBookings')} testID="feed-lab-bookings" />
             </>
           ) : null}
-          {role === 'manager' ? <Checkbox label="Add inspections coming due (12 weeks)" checked={current.inspections} onChange={toggle('inspections')} testID="feed-inspections" /> : null}
+          {role === 'manager' ? (
+            <Checkbox label="Add inspections coming due (12 weeks)" checked={current.inspections} onChange={toggle('inspections')} testID="feed-inspections" />
+          ) : null}
           {url ? (
             <View style={styles.url}>
               <AppText variant="label">Your feed address</AppText>
@@ -57,14 +64,45 @@ export function CalendarFeedCard({ role }: { role: Role }) {
                 {url}
               </AppText>
               <View style={styles.row}>
-                <Button label={copied ? 'Copied' : 'Copy the address'} icon="check-circle" variant="secondary" onPress={() => void copy()} testID="calendar-feed-copy" />
-                <Button label="New address" icon="refresh" variant="secondary" loading={create.isPending} loadingLabel="Making a new address" onPress={() => create.mutate(current)} testID="calendar-feed-rotate" />
-                <Button label="Turn off" icon="close" variant="secondary" loading={revoke.isPending} loadingLabel="Turning the feed off" onPress={() => revoke.mutate()} testID="calendar-feed-revoke" />
+                <Button
+                  label={copied ? 'Copied' : 'Copy the address'}
+                  icon="check-circle"
+                  variant="secondary"
+                  onPress={() => void copy()}
+                  testID="calendar-feed-copy"
+                />
+                <Button
+                  label="New address"
+                  icon="refresh"
+                  variant="secondary"
+                  loading={create.isPending}
+                  loadingLabel="Making a new address"
+                  onPress={() => create.mutate(current)}
+                  testID="calendar-feed-rotate"
+                />
+                <Button
+                  label="Turn off"
+                  icon="close"
+                  variant="secondary"
+                  loading={revoke.isPending}
+                  loadingLabel="Turning the feed off"
+                  onPress={() => revoke.mutate()}
+                  testID="calendar-feed-revoke"
+                />
               </View>
-              <AppText variant="small" tone="muted">A new address stops the old one at once; use it if the address was shared by mistake. Changes to the choices above apply with a new address.</AppText>
+              <AppText variant="small" tone="muted">
+                A new address stops the old one at once; use it if the address was shared by mistake. Changes to the choices above apply with a new address.
+              </AppText>
             </View>
           ) : (
-            <Button label="Turn on my calendar feed" icon="calendar-clock" loading={create.isPending} loadingLabel="Turning the feed on" onPress={() => create.mutate(current)} testID="calendar-feed-create" />
+            <Button
+              label="Turn on my calendar feed"
+              icon="calendar-clock"
+              loading={create.isPending}
+              loadingLabel="Turning the feed on"
+              onPress={() => create.mutate(current)}
+              testID="calendar-feed-create"
+            />
           )}
         </>
       )}

@@ -28,9 +28,7 @@ export function NotFoundScreen({ closedArea }: { closedArea?: Area }) {
             ? `You are signed in as a ${roleLabels[user!.role].toLowerCase()}, so it is not open to you. Ask the lab manager if your work needs it.`
             : 'This address is not a page in Voltcrib. Check the link, or go on from Today.'
         }
-        action={
-          <Button label={user ? 'Go to Today' : 'Go to sign in'} icon="home-lightning-bolt" onPress={() => router.replace('/')} />
-        }
+        action={<Button label={user ? 'Go to Today' : 'Go to sign in'} icon="home-lightning-bolt" onPress={() => router.replace('/')} />}
       />
     </Screen>
   );

@@ -22,7 +22,10 @@ export interface GearFilterValues {
 
 export const EMPTY_FILTERS: GearFilterValues = { q: '', kind: 'any', status: 'active', minKv: undefined, due: 'any', sort: 'tag' };
 
-const kindChoices: Choice<ItemKind | 'any'>[] = [{ value: 'any', label: 'All kinds' }, ...ITEM_KINDS.map((kind) => ({ value: kind, label: KIND_LABELS[kind] }))];
+const kindChoices: Choice<ItemKind | 'any'>[] = [
+  { value: 'any', label: 'All kinds' },
+  ...ITEM_KINDS.map((kind) => ({ value: kind, label: KIND_LABELS[kind] })),
+];
 const statusChoices: Choice<GearFilterValues['status']>[] = [
   { value: 'active', label: 'Not retired' },
   { value: 'in-service', label: 'In service' },
@@ -43,13 +46,7 @@ const sortChoices: Choice<GearFilterValues['sort']>[] = [
 
 /** How many filters differ from the defaults (the search box is counted on its own). */
 export function activeFilterCount(values: GearFilterValues): number {
-  return [
-    values.kind !== 'any',
-    values.status !== 'active',
-    values.minKv !== undefined,
-    values.due !== 'any',
-    values.sort !== 'tag',
-  ].filter(Boolean).length;
+  return [values.kind !== 'any', values.status !== 'active', values.minKv !== undefined, values.due !== 'any', values.sort !== 'tag'].filter(Boolean).length;
 }
 
 interface GearFiltersProps {
@@ -89,7 +86,13 @@ export function GearFilters({ values, onChange, alwaysOpen = false }: GearFilter
           />
         )}
         {count > 0 ? (
-          <Button label="Clear filters" icon="close" variant="secondary" onPress={() => onChange({ ...EMPTY_FILTERS, q: values.q })} testID="gear-filters-clear" />
+          <Button
+            label="Clear filters"
+            icon="close"
+            variant="secondary"
+            onPress={() => onChange({ ...EMPTY_FILTERS, q: values.q })}
+            testID="gear-filters-clear"
+          />
         ) : null}
       </View>
       {open ? (

@@ -41,10 +41,7 @@ export function GearScreen() {
   const [values, setValues] = useState<GearFilterValues>(EMPTY_FILTERS);
   const settled = useDebouncedValue(values, SEARCH_DEBOUNCE_MS);
   // Chips apply at once; only typing (search, kV) waits for a pause.
-  const filters = useMemo(
-    () => toQuery({ ...values, q: settled.q, minKv: settled.minKv }),
-    [values, settled.q, settled.minKv],
-  );
+  const filters = useMemo(() => toQuery({ ...values, q: settled.q, minKv: settled.minKv }), [values, settled.q, settled.minKv]);
   const items = useItemsInfiniteQuery(filters);
   const rows = useMemo(() => items.data?.pages.flatMap((page) => page.items) ?? [], [items.data]);
   const filtered = activeFilterCount(values) > 0 || values.q.trim() !== '';
@@ -52,9 +49,7 @@ export function GearScreen() {
   return (
     <Screen testID="gear-screen" title="Gear" width={isWide ? 'wide' : 'regular'}>
       <AppText tone="muted">Every piece of the lab&apos;s shared HV gear, with its ratings and inspection state.</AppText>
-      {isManager ? (
-        <Button label="Register gear" icon="plus" onPress={() => router.push('/gear/new')} testID="gear-register" block={!isWide} />
-      ) : null}
+      {isManager ? <Button label="Register gear" icon="plus" onPress={() => router.push('/gear/new')} testID="gear-register" block={!isWide} /> : null}
       {isWide ? (
         <View style={styles.columns}>
           <View style={styles.filterColumn}>
@@ -88,7 +83,13 @@ function GearResults({ items, rows, filtered, isWide, isManager, onClear }: Gear
   if (items.isPending) return <LoadingState label="Loading gear" testID="gear-loading" />;
   if (items.isError && rows.length === 0) {
     return (
-      <ErrorState testID="gear-error" title="The gear list did not load" error={items.error} onRetry={() => void items.refetch()} retrying={items.isRefetching} />
+      <ErrorState
+        testID="gear-error"
+        title="The gear list did not load"
+        error={items.error}
+        onRetry={() => void items.refetch()}
+        retrying={items.isRefetching}
+      />
     );
   }
   if (rows.length === 0) {

@@ -25,8 +25,14 @@ export function IncidentRow({ incident, divided }: { incident: IncidentSummary; 
       />
       <View style={styles.badges}>
         <HazardBadge level={severityHazard[incident.severity]} detail={severityLabel(incident.severity)} />
-        <Badge label={statusLabel(incident.status)} tone={incident.status === 'closed' ? 'muted' : 'primary'} icon={incident.status === 'closed' ? 'check-circle' : 'clock-outline'} />
-        {incident.openActions > 0 ? <AppText variant="small" tone="muted">{`${incident.openActions} action${incident.openActions === 1 ? '' : 's'} open`}</AppText> : null}
+        <Badge
+          label={statusLabel(incident.status)}
+          tone={incident.status === 'closed' ? 'muted' : 'primary'}
+          icon={incident.status === 'closed' ? 'check-circle' : 'clock-outline'}
+        />
+        {incident.openActions > 0 ? (
+          <AppText variant="small" tone="muted">{`${incident.openActions} action${incident.openActions === 1 ? '' : 's'} open`}</AppText>
+        ) : null}
       </View>
     </View>
   );

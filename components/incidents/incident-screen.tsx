@@ -33,7 +33,12 @@ export function IncidentScreen({ id, sent }: { id: number; sent: boolean }) {
     <Screen testID="incident-screen" title={incident.data ? `Incident #${incident.data.id}` : 'Incident'} width={isWide ? 'wide' : 'regular'}>
       <TextLink href="/incidents" label="All incidents" testID="incident-back" />
       {missing ? (
-        <EmptyState testID="incident-not-found" icon="map-marker-question" title="No such incident" message="There is no report here that you may see. Reports are seen by their reporter, people who booked the gear, and safety staff." />
+        <EmptyState
+          testID="incident-not-found"
+          icon="map-marker-question"
+          title="No such incident"
+          message="There is no report here that you may see. Reports are seen by their reporter, people who booked the gear, and safety staff."
+        />
       ) : incident.isPending ? (
         <LoadingState label="Loading the report" />
       ) : incident.isError ? (
@@ -56,15 +61,24 @@ function IncidentBody({ incident, sent, isWide }: { incident: Incident; sent: bo
           <AppText variant="bodyStrong" accessibilityLiveRegion="polite">
             Thank you. Your report is with the safety officers.
           </AppText>
-          {taggedOut.length > 0 ? <AppText testID="incident-sent-tagged-out">{`Taken out of service now: ${taggedOut.map((i) => i.tag).join(', ')}. Nobody can book or release them until they are inspected and put back.`}</AppText> : null}
+          {taggedOut.length > 0 ? (
+            <AppText testID="incident-sent-tagged-out">{`Taken out of service now: ${taggedOut.map((i) => i.tag).join(', ')}. Nobody can book or release them until they are inspected and put back.`}</AppText>
+          ) : null}
         </Card>
       ) : null}
       <Card title={incidentHeadline(incident)}>
         <View style={styles.badges}>
           <HazardBadge level={severityHazard[incident.severity]} detail={severityLabel(incident.severity)} testID="incident-severity-badge" />
-          <Badge label={statusLabel(incident.status)} tone={incident.status === 'closed' ? 'muted' : 'primary'} icon={incident.status === 'closed' ? 'check-circle' : 'clock-outline'} testID="incident-status" />
+          <Badge
+            label={statusLabel(incident.status)}
+            tone={incident.status === 'closed' ? 'muted' : 'primary'}
+            icon={incident.status === 'closed' ? 'check-circle' : 'clock-outline'}
+            testID="incident-status"
+          />
         </View>
-        <AppText variant="small" tone="muted">{incidentSeverityWords[incident.severity].definition}</AppText>
+        <AppText variant="small" tone="muted">
+          {incidentSeverityWords[incident.severity].definition}
+        </AppText>
         <AppText testID="incident-description">{incident.description}</AppText>
         <AppText tone="muted">{`${formatDateTime(incident.occurredAt)} · ${incident.location}`}</AppText>
         <AppText tone="muted">{`Reported by ${incident.reportedBy.name}, ${formatDateTime(incident.createdAt)}`}</AppText>
@@ -87,7 +101,12 @@ function IncidentBody({ incident, sent, isWide }: { incident: Incident; sent: bo
           ))
         )}
         {incident.bookingId ? (
-          <ListRow title={`Booking #${incident.bookingId}`} icon="calendar-check" href={{ pathname: '/bookings/[id]', params: { id: String(incident.bookingId) } }} divided />
+          <ListRow
+            title={`Booking #${incident.bookingId}`}
+            icon="calendar-check"
+            href={{ pathname: '/bookings/[id]', params: { id: String(incident.bookingId) } }}
+            divided
+          />
         ) : null}
       </Card>
       {incident.photos.length > 0 ? (

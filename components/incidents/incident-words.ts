@@ -1,7 +1,14 @@
 // How incidents read on screen: kind, severity and status as words, and the hazard level that
 // colours a severity (always shown with its word and icon, never colour alone).
 import type { HazardLevel } from '@/components/theme/tokens';
-import { incidentKindWords, incidentSeverityWords, incidentStatusWords, type IncidentKind, type IncidentSeverity, type IncidentStatus } from '@/shared/schemas/incidents';
+import {
+  incidentKindWords,
+  incidentSeverityWords,
+  incidentStatusWords,
+  type IncidentKind,
+  type IncidentSeverity,
+  type IncidentStatus,
+} from '@/shared/schemas/incidents';
 
 export const kindLabel = (kind: IncidentKind) => incidentKindWords[kind].label;
 export const severityLabel = (severity: IncidentSeverity) => incidentSeverityWords[severity].label;

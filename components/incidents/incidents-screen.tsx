@@ -52,7 +52,12 @@ export function IncidentsScreen() {
       ) : list.isError ? (
         <ErrorState title="The incidents did not load" error={list.error} onRetry={() => void list.refetch()} retrying={list.isFetching} />
       ) : rows.length === 0 ? (
-        <EmptyState testID="incidents-empty" icon="shield-check" title="Nothing here" message={filter === 'open' ? 'No report is waiting for review.' : 'No incident has been reported here.'} />
+        <EmptyState
+          testID="incidents-empty"
+          icon="shield-check"
+          title="Nothing here"
+          message={filter === 'open' ? 'No report is waiting for review.' : 'No incident has been reported here.'}
+        />
       ) : (
         <Card flush testID="incidents-list">
           {rows.map((incident, index) => (

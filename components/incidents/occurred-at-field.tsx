@@ -41,14 +41,31 @@ export function OccurredAtField({ value, onChange, error }: OccurredAtFieldProps
     setText(typed);
     const resolution = resolveLocalText(typed, zone);
     // A time the clocks repeat takes the earlier of the two: a report is about the first moment.
-    onChange(resolution.kind === 'exact' ? resolution.candidate.instant.toISOString() : resolution.kind === 'ambiguous' ? resolution.earlier.instant.toISOString() : '');
+    onChange(
+      resolution.kind === 'exact'
+        ? resolution.candidate.instant.toISOString()
+        : resolution.kind === 'ambiguous'
+          ? resolution.earlier.instant.toISOString()
+          : '',
+    );
   };
-  const message = error ? (/date and time|ISO/i.test(error) && choice === 'other' ? 'Write it as YYYY-MM-DD HH:MM, for example 2026-12-03 14:15' : error) : undefined;
+  const message = error
+    ? /date and time|ISO/i.test(error) && choice === 'other'
+      ? 'Write it as YYYY-MM-DD HH:MM, for example 2026-12-03 14:15'
+      : error
+    : undefined;
   return (
     <View style={styles.root}>
       <ChoiceChips label="When" testID="incident-when" choices={AGO} value={choice} onChange={pick} error={choice === 'other' ? undefined : message} />
       {choice === 'other' ? (
-        <TextField label="Date and time" hint={`Local time (${zone}), written YYYY-MM-DD HH:MM`} value={text} onChangeText={type} error={message} testID="incident-occurred-at" />
+        <TextField
+          label="Date and time"
+          hint={`Local time (${zone}), written YYYY-MM-DD HH:MM`}
+          value={text}
+          onChangeText={type}
+          error={message}
+          testID="incident-occurred-at"
+        />
       ) : null}
     </View>
   );

@@ -19,7 +19,15 @@ type Subject = ({ itemId: number; bookingId?: never } | { bookingId: number; ite
 /** "Report a problem": the report form with this item or booking already filled in. */
 export function ReportProblemButton({ itemId, bookingId }: { itemId?: number; bookingId?: number }) {
   const params = itemId ? { itemId: String(itemId) } : { bookingId: String(bookingId) };
-  return <Button label="Report a problem" icon="alert-octagon" variant="secondary" onPress={() => router.push({ pathname: '/incidents/new', params })} testID="report-problem" />;
+  return (
+    <Button
+      label="Report a problem"
+      icon="alert-octagon"
+      variant="secondary"
+      onPress={() => router.push({ pathname: '/incidents/new', params })}
+      testID="report-problem"
+    />
+  );
 }
 
 /**

@@ -69,7 +69,14 @@ export function ReportIncidentScreen({ itemId, bookingId }: ReportIncidentScreen
   } = useForm<Values, unknown, IncidentCreateInput>({
     // Kind and severity start unchosen (no default answer to a safety question); the schema requires both.
     resolver: zodResolver(incidentCreateSchema) as unknown as Resolver<Values, unknown, IncidentCreateInput>,
-    defaultValues: { occurredAt: new Date().toISOString(), location: '', description: '', itemIds: itemId ? [itemId] : [], bookingId: bookingId ?? null, tagOut: false },
+    defaultValues: {
+      occurredAt: new Date().toISOString(),
+      location: '',
+      description: '',
+      itemIds: itemId ? [itemId] : [],
+      bookingId: bookingId ?? null,
+      tagOut: false,
+    },
   });
   const values = useWatch({ control });
   const itemIds = (values.itemIds ?? []).filter((id): id is number => typeof id === 'number');
@@ -114,15 +121,33 @@ export function ReportIncidentScreen({ itemId, bookingId }: ReportIncidentScreen
           control={control}
           name="kind"
           render={({ field }) => (
-            <ChoiceChips label="Kind" testID="incident-kind" choices={KIND_CHOICES} value={field.value} onChange={field.onChange} error={errors.kind?.message} />
+            <ChoiceChips
+              label="Kind"
+              testID="incident-kind"
+              choices={KIND_CHOICES}
+              value={field.value}
+              onChange={field.onChange}
+              error={errors.kind?.message}
+            />
           )}
         />
-        {values.kind ? <AppText variant="small" tone="muted">{incidentKindWords[values.kind].hint}</AppText> : null}
+        {values.kind ? (
+          <AppText variant="small" tone="muted">
+            {incidentKindWords[values.kind].hint}
+          </AppText>
+        ) : null}
         <Controller
           control={control}
           name="severity"
           render={({ field }) => (
-            <ChoiceChips label="Severity" testID="incident-severity" choices={SEVERITY_CHOICES} value={field.value} onChange={field.onChange} error={errors.severity?.message} />
+            <ChoiceChips
+              label="Severity"
+              testID="incident-severity"
+              choices={SEVERITY_CHOICES}
+              value={field.value}
+              onChange={field.onChange}
+              error={errors.severity?.message}
+            />
           )}
         />
         {values.severity ? (
@@ -131,7 +156,15 @@ export function ReportIncidentScreen({ itemId, bookingId }: ReportIncidentScreen
           </AppText>
         ) : null}
         <SeverityToggle />
-        <FormTextField control={control} name="description" label="What happened" hint="In a few words: what you were doing, what you saw, anyone hurt." multiline numberOfLines={4} testID="incident-description" />
+        <FormTextField
+          control={control}
+          name="description"
+          label="What happened"
+          hint="In a few words: what you were doing, what you saw, anyone hurt."
+          multiline
+          numberOfLines={4}
+          testID="incident-description"
+        />
       </Card>
 
       <Card title="When and where">
@@ -147,7 +180,9 @@ export function ReportIncidentScreen({ itemId, bookingId }: ReportIncidentScreen
         <Controller
           control={control}
           name="itemIds"
-          render={({ field }) => <ItemPicker value={field.value ?? []} onChange={field.onChange} picked={gear.items} window={null} error={errors.itemIds?.message} />}
+          render={({ field }) => (
+            <ItemPicker value={field.value ?? []} onChange={field.onChange} picked={gear.items} window={null} error={errors.itemIds?.message} />
+          )}
         />
         {liveBookings.length > 0 || bookingId ? (
           <Controller
@@ -157,7 +192,11 @@ export function ReportIncidentScreen({ itemId, bookingId }: ReportIncidentScreen
               <ChoiceChips
                 label="Booking (optional)"
                 testID="incident-booking"
-                choices={bookingId && !liveBookings.some((b) => b.id === bookingId) ? [...bookingChoices, { value: String(bookingId), label: `#${bookingId}` }] : bookingChoices}
+                choices={
+                  bookingId && !liveBookings.some((b) => b.id === bookingId)
+                    ? [...bookingChoices, { value: String(bookingId), label: `#${bookingId}` }]
+                    : bookingChoices
+                }
                 value={field.value ? String(field.value) : 'none'}
                 onChange={(v) => field.onChange(v === 'none' ? null : Number(v))}
                 error={errors.bookingId?.message}
@@ -171,7 +210,11 @@ export function ReportIncidentScreen({ itemId, bookingId }: ReportIncidentScreen
           render={({ field }) => (
             <Checkbox
               label="Take these items out of service now"
-              detail={itemIds.length === 0 ? 'Name the gear above for this to apply.' : 'They cannot be booked or released until a manager puts them back after an inspection.'}
+              detail={
+                itemIds.length === 0
+                  ? 'Name the gear above for this to apply.'
+                  : 'They cannot be booked or released until a manager puts them back after an inspection.'
+              }
               checked={field.value === true}
               onChange={(checked) => {
                 tagOutTouched.current = true;
@@ -205,7 +248,15 @@ export function ReportIncidentScreen({ itemId, bookingId }: ReportIncidentScreen
       ) : null}
 
       {errors.root?.server?.message ? <FormAlert message={errors.root.server.message} testID="incident-form-error" /> : null}
-      <Button label="Send report" icon="alert-octagon" block loading={isSubmitting} loadingLabel="Sending the report" onPress={onSubmit} testID="incident-submit" />
+      <Button
+        label="Send report"
+        icon="alert-octagon"
+        block
+        loading={isSubmitting}
+        loadingLabel="Sending the report"
+        onPress={onSubmit}
+        testID="incident-submit"
+      />
     </Screen>
   );
 }

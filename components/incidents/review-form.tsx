@@ -52,7 +52,11 @@ export function ReviewForm({ incident }: { incident: Incident }) {
 
   const save = async () => {
     setSaved(null);
-    const body = { status, cause: cause.trim(), correctiveActions: actions.map((a) => ({ action: a.action.trim(), ownerId: a.ownerId ?? 0, dueOn: a.dueOn.trim() })) };
+    const body = {
+      status,
+      cause: cause.trim(),
+      correctiveActions: actions.map((a) => ({ action: a.action.trim(), ownerId: a.ownerId ?? 0, dueOn: a.dueOn.trim() })),
+    };
     const local: Record<string, string> = {};
     const parsed = incidentUpdateSchema.safeParse(body);
     if (!parsed.success) for (const issue of parsed.error.issues) local[issue.path.join('.')] ??= issue.message;
@@ -79,12 +83,31 @@ export function ReviewForm({ incident }: { incident: Incident }) {
   return (
     <Card title="Your review" testID="incident-review-form">
       <ChoiceChips label="Status" testID="review-status" choices={STATUS_CHOICES} value={status} onChange={setStatus} />
-      <TextField label="Cause" hint="What made it happen, as far as you have found." value={cause} onChangeText={setCause} multiline numberOfLines={3} error={problem.cause} testID="review-cause" />
+      <TextField
+        label="Cause"
+        hint="What made it happen, as far as you have found."
+        value={cause}
+        onChangeText={setCause}
+        multiline
+        numberOfLines={3}
+        error={problem.cause}
+        testID="review-cause"
+      />
       <AppText variant="label">Corrective actions</AppText>
-      {problem.correctiveActions ? <AppText tone="error" testID="review-actions-error">{problem.correctiveActions}</AppText> : null}
+      {problem.correctiveActions ? (
+        <AppText tone="error" testID="review-actions-error">
+          {problem.correctiveActions}
+        </AppText>
+      ) : null}
       {actions.map((a, index) => (
         <View key={index} style={styles.action}>
-          <TextField label={`Action ${index + 1}: what will be done`} value={a.action} onChangeText={(text) => change(index, { action: text })} error={problem[`correctiveActions.${index}.action`]} testID={`review-action-${index}`} />
+          <TextField
+            label={`Action ${index + 1}: what will be done`}
+            value={a.action}
+            onChangeText={(text) => change(index, { action: text })}
+            error={problem[`correctiveActions.${index}.action`]}
+            testID={`review-action-${index}`}
+          />
           {owners.length > 0 ? (
             <ChoiceChips
               label={`Action ${index + 1}: who`}
@@ -97,8 +120,20 @@ export function ReviewForm({ incident }: { incident: Incident }) {
           ) : (
             <AppText tone="muted">{people.isPending ? 'Loading the people…' : 'The list of people did not load.'}</AppText>
           )}
-          <TextField label={`Action ${index + 1}: due by`} hint="A date, written YYYY-MM-DD" value={a.dueOn} onChangeText={(text) => change(index, { dueOn: text })} error={problem[`correctiveActions.${index}.dueOn`]} testID={`review-action-due-${index}`} />
-          <Button label={`Remove action ${index + 1}`} variant="secondary" icon="close" onPress={() => setActions((list) => list.filter((_, i) => i !== index))} />
+          <TextField
+            label={`Action ${index + 1}: due by`}
+            hint="A date, written YYYY-MM-DD"
+            value={a.dueOn}
+            onChangeText={(text) => change(index, { dueOn: text })}
+            error={problem[`correctiveActions.${index}.dueOn`]}
+            testID={`review-action-due-${index}`}
+          />
+          <Button
+            label={`Remove action ${index + 1}`}
+            variant="secondary"
+            icon="close"
+            onPress={() => setActions((list) => list.filter((_, i) => i !== index))}
+          />
         </View>
       ))}
       <Button
@@ -114,7 +149,15 @@ export function ReviewForm({ incident }: { incident: Incident }) {
           {saved}
         </AppText>
       ) : null}
-      <Button label={status === 'closed' ? 'Close the incident' : 'Save the review'} icon="check-circle" block loading={review.isPending} loadingLabel="Saving" onPress={() => void save()} testID="review-save" />
+      <Button
+        label={status === 'closed' ? 'Close the incident' : 'Save the review'}
+        icon="check-circle"
+        block
+        loading={review.isPending}
+        loadingLabel="Saving"
+        onPress={() => void save()}
+        testID="review-save"
+      />
     </Card>
   );
 }

@@ -139,7 +139,13 @@ export function InspectionForm({ item, onDone, onCancel }: InspectionFormProps) 
               )}
             />
             <ReadingValue control={control} index={index} />
-            <Button label="Remove this reading" icon="close" variant="secondary" onPress={() => readings.remove(index)} testID={`inspection-reading-${index}-remove`} />
+            <Button
+              label="Remove this reading"
+              icon="close"
+              variant="secondary"
+              onPress={() => readings.remove(index)}
+              testID={`inspection-reading-${index}-remove`}
+            />
           </View>
         ))}
         {readings.fields.length < MAX_READINGS ? (

@@ -45,7 +45,13 @@ export function ItemByTagScreen({ tag }: ItemByTagScreenProps) {
             action={<Button label="Scan another label" icon="qrcode-scan" onPress={() => router.replace('/scan')} />}
           />
         ) : (
-          <ErrorState testID="item-by-tag-error" title="The label could not be looked up" error={lookup.error} onRetry={() => void lookup.refetch()} retrying={lookup.isRefetching} />
+          <ErrorState
+            testID="item-by-tag-error"
+            title="The label could not be looked up"
+            error={lookup.error}
+            onRetry={() => void lookup.refetch()}
+            retrying={lookup.isRefetching}
+          />
         )
       ) : (
         <LoadingState label={`Opening ${tag}`} testID="item-by-tag-loading" />

@@ -104,7 +104,9 @@ export function ItemFilesCard({ item, canUpload }: ItemFilesCardProps) {
           ))}
         </View>
       )}
-      {upload.isPending ? <ProgressBar label={`Uploading ${upload.variables?.file.name ?? 'the file'}`} fraction={upload.progress ?? 0} testID="item-upload-progress" /> : null}
+      {upload.isPending ? (
+        <ProgressBar label={`Uploading ${upload.variables?.file.name ?? 'the file'}`} fraction={upload.progress ?? 0} testID="item-upload-progress" />
+      ) : null}
       {upload.isError ? <FormAlert message={describeError(upload.error)} testID="item-upload-error" /> : null}
       {added ? (
         <AppText variant="smallStrong" accessibilityLiveRegion="polite" testID="item-upload-done">

@@ -55,7 +55,18 @@ function emptyRatings(kind: ItemKind): Record<string, RatingValue> {
 
 function valuesFor(item: Item | undefined): ItemFormValues {
   if (!item) {
-    return { kind: 'multiplier', tag: '', name: '', make: '', model: '', serial: '', location: '', notes: '', inspectionIntervalDays: undefined, ratings: emptyRatings('multiplier') };
+    return {
+      kind: 'multiplier',
+      tag: '',
+      name: '',
+      make: '',
+      model: '',
+      serial: '',
+      location: '',
+      notes: '',
+      inspectionIntervalDays: undefined,
+      ratings: emptyRatings('multiplier'),
+    };
   }
   return {
     kind: item.kind,
@@ -126,7 +137,8 @@ export function ItemForm({ item }: ItemFormProps) {
 
   const submit = handleSubmit((body) => {
     setFormError(null);
-    const open = (id: number, registered = false) => router.replace({ pathname: '/gear/[id]', params: registered ? { id: String(id), registered: '1' } : { id: String(id) } });
+    const open = (id: number, registered = false) =>
+      router.replace({ pathname: '/gear/[id]', params: registered ? { id: String(id), registered: '1' } : { id: String(id) } });
     if (editing) {
       const { name, make, model, serial, location, notes, inspectionIntervalDays, ratings } = body;
       update.mutate(

@@ -23,13 +23,21 @@ export function ItemInspectionsCard({ item }: { item: Item }) {
     <Card title="Inspections" testID="item-inspections">
       {failed ? (
         // A failed inspection is no inspection to count on: the item waits for one that passes.
-        <HazardBadge level="warning" detail={`Failed its last inspection${item.lastInspectedOn ? ` on ${formatDay(item.lastInspectedOn)}` : ''}`} testID="item-inspection-failed" />
+        <HazardBadge
+          level="warning"
+          detail={`Failed its last inspection${item.lastInspectedOn ? ` on ${formatDay(item.lastInspectedOn)}` : ''}`}
+          testID="item-inspection-failed"
+        />
       ) : (
         <InspectionBadge state={item.inspectionState} />
       )}
       <View style={styles.facts}>
         <AppText testID="item-next-due">
-          {failed ? 'Needs an inspection that passes before it can be used again.' : item.nextInspectionDue ? `Next due ${formatDay(item.nextInspectionDue)}` : 'No inspection on record: due now'}
+          {failed
+            ? 'Needs an inspection that passes before it can be used again.'
+            : item.nextInspectionDue
+              ? `Next due ${formatDay(item.nextInspectionDue)}`
+              : 'No inspection on record: due now'}
         </AppText>
         <AppText variant="small" tone="muted" testID="item-next-due-source">
           {item.lastInspectedOn
@@ -40,7 +48,12 @@ export function ItemInspectionsCard({ item }: { item: Item }) {
       {inspections.isPending ? (
         <LoadingState label="Loading inspections" />
       ) : inspections.isError ? (
-        <ErrorState title="The inspections did not load" error={inspections.error} onRetry={() => void inspections.refetch()} retrying={inspections.isRefetching} />
+        <ErrorState
+          title="The inspections did not load"
+          error={inspections.error}
+          onRetry={() => void inspections.refetch()}
+          retrying={inspections.isRefetching}
+        />
       ) : inspections.data.length === 0 ? (
         <AppText tone="muted" testID="item-inspections-empty">
           None recorded yet.
@@ -75,7 +88,9 @@ function InspectionRow({ inspection }: { inspection: Inspection }) {
         </AppText>
       </View>
       <AppText variant="small" tone="muted">
-        {passed ? `By ${inspection.inspectorName} · next due ${formatDay(inspection.nextDue)}` : `By ${inspection.inspectorName} · tagged out until an inspection passes`}
+        {passed
+          ? `By ${inspection.inspectorName} · next due ${formatDay(inspection.nextDue)}`
+          : `By ${inspection.inspectorName} · tagged out until an inspection passes`}
       </AppText>
       {inspection.readings.map((reading, index) => (
         <AppText key={index} variant="small">

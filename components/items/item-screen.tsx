@@ -44,7 +44,12 @@ export function ItemScreen({ id, justRegistered = false }: { id: number; justReg
         {item.data?.name ?? 'Gear item'}
       </AppText>
       {missing ? (
-        <EmptyState testID="item-not-found" icon="map-marker-question" title="No such item" message="This item is not in the registry. It may have been entered with a wrong address." />
+        <EmptyState
+          testID="item-not-found"
+          icon="map-marker-question"
+          title="No such item"
+          message="This item is not in the registry. It may have been entered with a wrong address."
+        />
       ) : item.isPending ? (
         <LoadingState label="Loading the item" testID="item-loading" />
       ) : item.isError ? (

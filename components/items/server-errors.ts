@@ -4,10 +4,7 @@
 import { describeError } from '@/components/ui/error-state';
 import { isApiError } from '@/hooks/api-client';
 
-export function applyServerErrors(
-  error: unknown,
-  setFieldError: (path: string, message: string) => boolean,
-): string | null {
+export function applyServerErrors(error: unknown, setFieldError: (path: string, message: string) => boolean): string | null {
   if (!isApiError(error)) return describeError(error);
   const leftovers: string[] = [];
   for (const [path, messages] of Object.entries(error.fieldErrors ?? {})) {

@@ -52,7 +52,13 @@ export function ChecklistLines() {
                   <AppText variant="small" tone="muted">
                     {conditions(line)}
                   </AppText>
-                  <Button label="Retire this line" variant="secondary" icon="close" onPress={() => setConfirming(line.id)} testID={`checklist-line-retire-${line.id}`} />
+                  <Button
+                    label="Retire this line"
+                    variant="secondary"
+                    icon="close"
+                    onPress={() => setConfirming(line.id)}
+                    testID={`checklist-line-retire-${line.id}`}
+                  />
                   {confirming === line.id ? (
                     <View style={styles.confirm} testID={`checklist-line-retire-${line.id}-confirm`}>
                       <AppText variant="bodyStrong">{`Retire “${line.text}”? Checklists answered from now on no longer ask it.`}</AppText>

@@ -36,7 +36,11 @@ export function LabRulesForm({ rules }: { rules: LabRules }) {
       reset(next);
       setSaved(true);
     } catch (error) {
-      applyServerErrors(error, RULE_FIELDS.map((f) => f.name), setError);
+      applyServerErrors(
+        error,
+        RULE_FIELDS.map((f) => f.name),
+        setError,
+      );
     }
   });
 
@@ -84,7 +88,8 @@ export function LabRulesForm({ rules }: { rules: LabRules }) {
         onPress={() => void onSubmit()}
       />
       <AppText variant="small" tone="muted">
-        New rules apply to assessments and releases from now on; bookings already made keep their stored assessment until their plan changes or they are released.
+        New rules apply to assessments and releases from now on; bookings already made keep their stored assessment until their plan changes or they are
+        released.
       </AppText>
     </View>
   );

@@ -12,7 +12,10 @@ export function LabRulesScreen() {
   const rules = useLabRulesQuery();
   return (
     <Screen testID="lab-rules-screen" title="Lab rules" width="form">
-      <AppText tone="muted">These numbers decide when a test needs your approval and what the release and return check. Follow local codes and the lab&apos;s licensed practice when changing them.</AppText>
+      <AppText tone="muted">
+        These numbers decide when a test needs your approval and what the release and return check. Follow local codes and the lab&apos;s licensed practice when
+        changing them.
+      </AppText>
       {rules.isPending ? (
         <LoadingState label="Loading the lab rules" />
       ) : rules.isError ? (

@@ -20,7 +20,8 @@ export const RULE_FIELDS: readonly RuleField[] = [
     label: 'Officer approval above',
     unit: 'kV',
     defaultValue: 15,
-    justification: 'Lab practice, no single standard: routine teaching and corona work stays below it; above it an officer reviews the barrier, the gear and who is present.',
+    justification:
+      'Lab practice, no single standard: routine teaching and corona work stays below it; above it an officer reviews the barrier, the gear and who is present.',
   },
   {
     name: 'energyThresholdJ',

@@ -26,7 +26,10 @@ const PAGE_SIZE = 50;
 export default function LabelsScreen() {
   const [search, setSearch] = useState('');
   const q = useDebouncedValue(search.trim(), 300);
-  const items = useItemsInfiniteQuery(useMemo(() => ({ q: q || undefined, sort: 'tag' as const }), [q]), PAGE_SIZE);
+  const items = useItemsInfiniteQuery(
+    useMemo(() => ({ q: q || undefined, sort: 'tag' as const }), [q]),
+    PAGE_SIZE,
+  );
   const rows = useMemo(() => items.data?.pages.flatMap((page) => page.items) ?? [], [items.data]);
   // Kept across searches, in the order picked, so a sheet prints in that order.
   const [selected, setSelected] = useState<Map<number, ItemSummary>>(new Map());
@@ -52,8 +55,8 @@ export default function LabelsScreen() {
   return (
     <Screen testID="labels-screen" title="Labels">
       <AppText tone="muted">
-        Pick gear and print its QR labels: 21 labels of 63.5 × 38.1 mm on each A4 sheet. Each label shows the tag, the name and the
-        rated voltage, and opens the item&apos;s page when scanned.
+        Pick gear and print its QR labels: 21 labels of 63.5 × 38.1 mm on each A4 sheet. Each label shows the tag, the name and the rated voltage, and opens the
+        item&apos;s page when scanned.
       </AppText>
       <Card testID="labels-selection">
         <AppText variant="bodyStrong" testID="labels-count" accessibilityLiveRegion="polite">
@@ -64,9 +67,7 @@ export default function LabelsScreen() {
             {[...selected.values()].map((item) => item.tag).join(', ')}
           </AppText>
         ) : null}
-        {tooMany ? (
-          <AppText tone="error" variant="smallStrong">{`At most ${MAX_LABELS} labels at a time; remove ${count - MAX_LABELS}.`}</AppText>
-        ) : null}
+        {tooMany ? <AppText tone="error" variant="smallStrong">{`At most ${MAX_LABELS} labels at a time; remove ${count - MAX_LABELS}.`}</AppText> : null}
         <View style={styles.buttons}>
           <Button
             label="Print labels"
@@ -92,7 +93,12 @@ export default function LabelsScreen() {
       ) : items.isError && rows.length === 0 ? (
         <ErrorState title="The gear list did not load" error={items.error} onRetry={() => void items.refetch()} retrying={items.isRefetching} />
       ) : rows.length === 0 ? (
-        <EmptyState testID="labels-empty" icon="magnify" title="No gear found" message={q ? 'Nothing matches this search.' : 'Register gear first; its labels are printed here.'} />
+        <EmptyState
+          testID="labels-empty"
+          icon="magnify"
+          title="No gear found"
+          message={q ? 'Nothing matches this search.' : 'Register gear first; its labels are printed here.'}
+        />
       ) : (
         <View style={styles.list}>
           <Button label={`Pick all ${rows.length} shown`} icon="checkbox-marked" variant="secondary" onPress={selectShown} testID="labels-pick-shown" />

@@ -47,13 +47,7 @@ export function MoreScreen() {
       {user ? <LazyCalendarFeedCard role={user.role} /> : null}
 
       <Card title="Appearance">
-        <ChoiceChips
-          label="Colours"
-          testID="theme-choice"
-          choices={THEME_CHOICES}
-          value={preference}
-          onChange={setThemePreference}
-        />
+        <ChoiceChips label="Colours" testID="theme-choice" choices={THEME_CHOICES} value={preference} onChange={setThemePreference} />
         <AppText variant="small" tone="muted">
           Same as this device follows the system setting, light or dark as it changes.
         </AppText>

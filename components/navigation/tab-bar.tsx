@@ -20,10 +20,7 @@ export function TabBar() {
       testID="tab-bar"
       role="navigation"
       accessibilityLabel="Main navigation"
-      style={[
-        styles.bar,
-        { backgroundColor: colors.surface, borderTopColor: colors.border, paddingBottom: insets.bottom },
-      ]}
+      style={[styles.bar, { backgroundColor: colors.surface, borderTopColor: colors.border, paddingBottom: insets.bottom }]}
     >
       {tabEntries.map((entry) => {
         const active = isActive(entry, pathname);
@@ -60,5 +57,13 @@ const styles = StyleSheet.create({
     gap: spacing.xxs,
     paddingVertical: spacing.xs,
   },
-  rail: { position: 'absolute', top: 0, left: spacing.xs, right: spacing.xs, height: shapes.railThickness, borderBottomLeftRadius: shapes.chipRadius, borderBottomRightRadius: shapes.chipRadius },
+  rail: {
+    position: 'absolute',
+    top: 0,
+    left: spacing.xs,
+    right: spacing.xs,
+    height: shapes.railThickness,
+    borderBottomLeftRadius: shapes.chipRadius,
+    borderBottomRightRadius: shapes.chipRadius,
+  },
 });

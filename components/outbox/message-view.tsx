@@ -71,6 +71,13 @@ function LinkLine({ parts }: { parts: ReturnType<typeof splitMailText>[number]['
 const styles = StyleSheet.create({
   meta: { gap: spacing.xxs },
   body: { gap: spacing.xxs, borderTopWidth: borders.hairline, paddingTop: spacing.sm },
-  link: { minHeight: layout.minTouchTarget, justifyContent: 'center', paddingHorizontal: spacing.sm, paddingVertical: spacing.xs, borderWidth: borders.hairline, borderRadius: radii.md },
+  link: {
+    minHeight: layout.minTouchTarget,
+    justifyContent: 'center',
+    paddingHorizontal: spacing.sm,
+    paddingVertical: spacing.xs,
+    borderWidth: borders.hairline,
+    borderRadius: radii.md,
+  },
   underline: { textDecorationLine: 'underline' },
 });

@@ -43,8 +43,7 @@ export function OutboxScreen({ messageId }: OutboxScreenProps) {
   return (
     <Screen testID="outbox-screen" title="Outbox">
       <AppText tone="muted">
-        The e-mails Voltcrib sent through the lab&apos;s local mail server, newest first. Use it to pass on an invitation or a reset link
-        by hand.
+        The e-mails Voltcrib sent through the lab&apos;s local mail server, newest first. Use it to pass on an invitation or a reset link by hand.
       </AppText>
       {mailbox.isPending ? (
         <LoadingState label="Loading messages" testID="outbox-loading" />

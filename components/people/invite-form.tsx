@@ -91,7 +91,15 @@ export function InviteForm({ onSent, onCancel }: InviteFormProps) {
       </View>
       {errors.root?.server?.message ? <FormAlert testID="people-invite-error" message={errors.root.server.message} /> : null}
       <View style={styles.actions}>
-        <Button label="Send invitation" loadingLabel="Sending the invitation" icon="email-fast" testID="people-invite-submit" block loading={isSubmitting} onPress={() => void submit()} />
+        <Button
+          label="Send invitation"
+          loadingLabel="Sending the invitation"
+          icon="email-fast"
+          testID="people-invite-submit"
+          block
+          loading={isSubmitting}
+          onPress={() => void submit()}
+        />
         <Button label="Cancel" variant="secondary" testID="people-invite-cancel" block onPress={onCancel} disabled={isSubmitting} />
       </View>
     </Card>

@@ -35,7 +35,12 @@ export function PeopleList({ people, today, onOpen }: PeopleListProps) {
           testID={`person-${person.id}`}
           icon={person.active ? 'account' : 'account-off'}
           title={person.name}
-          subtitle={[person.email, person.groupName, describeQualification(qualificationState(person.qualification, today)), `Last sign-in: ${lastSignIn(person)}`]
+          subtitle={[
+            person.email,
+            person.groupName,
+            describeQualification(qualificationState(person.qualification, today)),
+            `Last sign-in: ${lastSignIn(person)}`,
+          ]
             .filter(Boolean)
             .join('\n')}
           trailing={<PersonBadges person={person} />}
@@ -75,12 +80,7 @@ export function PeopleTable({ people, today, onOpen }: PeopleListProps) {
         {people.map((person) => (
           <TableRow key={person.id}>
             <TableCell column={nameColumn}>
-              <Pressable
-                testID={`person-${person.id}`}
-                accessibilityRole="button"
-                onPress={() => onOpen(person)}
-                style={styles.nameButton}
-              >
+              <Pressable testID={`person-${person.id}`} accessibilityRole="button" onPress={() => onOpen(person)} style={styles.nameButton}>
                 <View style={styles.nameText}>
                   <AppText variant="bodyStrong" tone="primary" style={styles.underline}>
                     {person.name}

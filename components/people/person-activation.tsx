@@ -35,9 +35,7 @@ export function PersonActivation({ person, isSelf }: { person: Person; isSelf: b
     <Card title="Access" testID="person-access">
       {confirming ? (
         <View style={styles.confirm} testID={`person-${action}-question`} accessibilityRole="alert">
-          <AppText variant="bodyStrong">
-            {person.active ? `Deactivate ${person.name}?` : `Reactivate ${person.name}?`}
-          </AppText>
+          <AppText variant="bodyStrong">{person.active ? `Deactivate ${person.name}?` : `Reactivate ${person.name}?`}</AppText>
           <AppText>
             {person.active
               ? 'Their sessions end at once: anyone signed in as them, on any device, is signed out now. They cannot sign in again until reactivated. Their bookings, checklists and history stay on record.'
@@ -54,13 +52,18 @@ export function PersonActivation({ person, isSelf }: { person: Person; isSelf: b
             loading={update.isPending}
             onPress={apply}
           />
-          <Button label="Keep as is" variant="secondary" block testID={`person-${action}-cancel`} onPress={() => setConfirming(false)} disabled={update.isPending} />
+          <Button
+            label="Keep as is"
+            variant="secondary"
+            block
+            testID={`person-${action}-cancel`}
+            onPress={() => setConfirming(false)}
+            disabled={update.isPending}
+          />
         </View>
       ) : (
         <>
-          <AppText tone="muted">
-            {person.active ? 'Active: can sign in and book gear.' : 'Inactive: cannot sign in. Bookings and records are kept.'}
-          </AppText>
+          <AppText tone="muted">{person.active ? 'Active: can sign in and book gear.' : 'Inactive: cannot sign in. Bookings and records are kept.'}</AppText>
           <Button
             label={person.active ? 'Deactivate' : 'Reactivate'}
             variant={person.active ? 'danger' : 'secondary'}

@@ -62,8 +62,8 @@ function QualificationCard({ person, today }: { person: Person; today: string })
         <>
           <HazardBadge level="warning" detail={`Expired ${formatCalendarDate(state.expiresOn)}`} />
           <AppText>
-            Was authorised up to {state.authorisedKv} kV. Until the safety officer renews it, this person cannot release gear for a test
-            unless an approval covers them.
+            Was authorised up to {state.authorisedKv} kV. Until the safety officer renews it, this person cannot release gear for a test unless an approval
+            covers them.
           </AppText>
         </>
       ) : (
@@ -186,7 +186,16 @@ function ChangeCard({ person, isSelf }: { person: Person; isSelf: boolean }) {
           Saved.
         </AppText>
       ) : null}
-      <Button label="Save changes" loadingLabel="Saving" icon="account-check" testID="person-save" block disabled={!changed} loading={isSubmitting} onPress={() => void submit()} />
+      <Button
+        label="Save changes"
+        loadingLabel="Saving"
+        icon="account-check"
+        testID="person-save"
+        block
+        disabled={!changed}
+        loading={isSubmitting}
+        onPress={() => void submit()}
+      />
     </Card>
   );
 }

@@ -3,9 +3,7 @@
 import type { Person } from '@/hooks/use-people';
 
 export type QualificationState =
-  | { kind: 'none' }
-  | { kind: 'expired'; authorisedKv: number; expiresOn: string }
-  | { kind: 'current'; authorisedKv: number; expiresOn: string };
+  { kind: 'none' } | { kind: 'expired'; authorisedKv: number; expiresOn: string } | { kind: 'current'; authorisedKv: number; expiresOn: string };
 
 export function qualificationState(qualification: Person['qualification'], today: string): QualificationState {
   if (!qualification) return { kind: 'none' };

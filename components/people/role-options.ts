@@ -16,7 +16,10 @@ export const NO_GROUP = 'none';
 
 /** Group choices as strings (the control's values), with "No group" first. */
 export function groupOptions(groups: readonly { id: number; name: string }[], testIdPrefix: string) {
-  return [{ value: NO_GROUP, label: 'No group', testID: `${testIdPrefix}-${NO_GROUP}` }, ...groups.map((g) => ({ value: String(g.id), label: g.name, testID: `${testIdPrefix}-${g.id}` }))];
+  return [
+    { value: NO_GROUP, label: 'No group', testID: `${testIdPrefix}-${NO_GROUP}` },
+    ...groups.map((g) => ({ value: String(g.id), label: g.name, testID: `${testIdPrefix}-${g.id}` })),
+  ];
 }
 
 export function groupIdFromOption(value: string): number | null {

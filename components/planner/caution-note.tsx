@@ -10,11 +10,7 @@ import { SAFETY_CAUTION } from '@/shared/rules/assessment';
 export function CautionNote() {
   const { colors } = useTheme();
   return (
-    <View
-      testID="planner-caution"
-      role="note"
-      style={[styles.box, { borderColor: colors.hazard.caution.edge, backgroundColor: colors.surface }]}
-    >
+    <View testID="planner-caution" role="note" style={[styles.box, { borderColor: colors.hazard.caution.edge, backgroundColor: colors.surface }]}>
       <HazardBadge level="caution" detail="Before you rely on these numbers" />
       <AppText>{SAFETY_CAUTION}</AppText>
     </View>

@@ -97,9 +97,12 @@ export default function PlannerCalculators({ tab, onTabChange }: PlannerCalculat
 function CopyButton({ text }: { text: () => string }) {
   const [state, setState] = useState<'idle' | 'copied' | 'failed'>('idle');
   const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
-  useEffect(() => () => {
-    if (timer.current) clearTimeout(timer.current);
-  }, []);
+  useEffect(
+    () => () => {
+      if (timer.current) clearTimeout(timer.current);
+    },
+    [],
+  );
 
   const onPress = async () => {
     const ok = await copyText(text());

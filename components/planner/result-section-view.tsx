@@ -62,10 +62,7 @@ export function ResultSectionView({ section }: { section: ResultSection }) {
 function NoticeView({ notice }: { notice: Notice }) {
   const { colors } = useTheme();
   return (
-    <View
-      testID={`planner-notice-${notice.key}`}
-      style={[styles.notice, { borderColor: colors.hazard[notice.level].edge, backgroundColor: colors.surface }]}
-    >
+    <View testID={`planner-notice-${notice.key}`} style={[styles.notice, { borderColor: colors.hazard[notice.level].edge, backgroundColor: colors.surface }]}>
       <HazardBadge level={notice.level} detail={notice.title} />
       <AppText>{notice.text}</AppText>
     </View>

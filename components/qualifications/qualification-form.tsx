@@ -37,19 +37,55 @@ export function QualificationForm({ person, onDone, onCancel }: { person: Qualif
       <Controller
         control={control}
         name="authorisedKv"
-        render={({ field }) => <NumberField ref={field.ref} label="Authorised up to" unit="kV" value={field.value} onChange={field.onChange} error={errors.authorisedKv?.message} testID="qualification-kv" />}
+        render={({ field }) => (
+          <NumberField
+            ref={field.ref}
+            label="Authorised up to"
+            unit="kV"
+            value={field.value}
+            onChange={field.onChange}
+            error={errors.authorisedKv?.message}
+            testID="qualification-kv"
+          />
+        )}
       />
       <Controller
         control={control}
         name="expiresOn"
         render={({ field }) => (
-          <TextField label="Expires on (YYYY-MM-DD)" hint="Retraining interval: at most 3 years for qualified persons (NFPA 70E), or the lab's own." value={field.value} onChangeText={field.onChange} error={errors.expiresOn?.message} testID="qualification-expires" />
+          <TextField
+            label="Expires on (YYYY-MM-DD)"
+            hint="Retraining interval: at most 3 years for qualified persons (NFPA 70E), or the lab's own."
+            value={field.value}
+            onChangeText={field.onChange}
+            error={errors.expiresOn?.message}
+            testID="qualification-expires"
+          />
         )}
       />
-      <Controller control={control} name="notes" render={({ field }) => <TextField label="Course or evidence" value={field.value ?? ''} onChangeText={field.onChange} error={errors.notes?.message} testID="qualification-notes" />} />
+      <Controller
+        control={control}
+        name="notes"
+        render={({ field }) => (
+          <TextField
+            label="Course or evidence"
+            value={field.value ?? ''}
+            onChangeText={field.onChange}
+            error={errors.notes?.message}
+            testID="qualification-notes"
+          />
+        )}
+      />
       {errors.root?.message ? <FormAlert message={errors.root.message} testID="qualification-error" /> : null}
       <View style={styles.actions}>
-        <Button label="Save the qualification" icon="badge-account" onPress={() => void onSubmit()} loading={formState.isSubmitting} loadingLabel="Saving" testID="qualification-save" />
+        <Button
+          label="Save the qualification"
+          icon="badge-account"
+          onPress={() => void onSubmit()}
+          loading={formState.isSubmitting}
+          loadingLabel="Saving"
+          testID="qualification-save"
+        />
         <Button label="Cancel" variant="secondary" onPress={onCancel} disabled={formState.isSubmitting} testID="qualification-cancel" />
       </View>
     </View>

@@ -117,7 +117,17 @@ export function ChecklistFields({ bookingId, entries, value, onChange, lineError
             </View>
           );
         }
-        return <PhotoLine key={entry.id} bookingId={bookingId} entry={entry} fileId={answer.fileId} onChange={(fileId) => set(entry.id, { fileId })} error={error} testID={lineTestID} />;
+        return (
+          <PhotoLine
+            key={entry.id}
+            bookingId={bookingId}
+            entry={entry}
+            fileId={answer.fileId}
+            onChange={(fileId) => set(entry.id, { fileId })}
+            error={error}
+            testID={lineTestID}
+          />
+        );
       })}
     </View>
   );

@@ -31,7 +31,9 @@ export function ChecklistStep({ booking, state }: { booking: Booking; state: Ste
             <View style={styles.done} testID="release-checklist-outside">
               <HazardBadge
                 level="warning"
-                detail={run.withinLimits ? 'The recorded checklist does not count: answer it again' : 'A reading is outside its limits: answer the checklist again'}
+                detail={
+                  run.withinLimits ? 'The recorded checklist does not count: answer it again' : 'A reading is outside its limits: answer the checklist again'
+                }
               />
               {/* Each line that stops the run, with its reading and limits (shared/rules/checklist-coverage.ts). */}
               {run.gaps.map((gap, index) => (
@@ -107,7 +109,17 @@ function ChecklistForm({ booking, primary, onDone }: { booking: Booking; primary
       <Controller
         control={control}
         name="answers"
-        render={({ field }) => <ChecklistFields bookingId={booking.id} entries={entries} value={field.value} onChange={field.onChange} lineErrors={formLineErrors} onLineAnswered={onLineAnswered} testID="checklist-pre" />}
+        render={({ field }) => (
+          <ChecklistFields
+            bookingId={booking.id}
+            entries={entries}
+            value={field.value}
+            onChange={field.onChange}
+            lineErrors={formLineErrors}
+            onLineAnswered={onLineAnswered}
+            testID="checklist-pre"
+          />
+        )}
       />
       {errors.root?.server?.message ? <FormAlert message={errors.root.server.message} testID="release-checklist-error" /> : null}
       <Button

@@ -21,7 +21,6 @@ import { ReleaseStep } from './release-step';
 import { ScanStep } from './scan-step';
 import { StepCard, type StepState } from './step-card';
 
-
 /** Release at the counter, phone first: scan, checklist, release; the next step stays on top. */
 export function ReleaseScreen({ id }: { id: number }) {
   const booking = useBookingQuery(id);
@@ -65,7 +64,11 @@ function ReleaseBody({ booking }: { booking: Booking }) {
           testID="release-not-open"
           icon="cancel"
           title="Nothing to release"
-          message={booking.status === 'refused' ? 'The officer refused this plan. Change it from the booking page and ask again.' : `This booking is ${booking.status}.`}
+          message={
+            booking.status === 'refused'
+              ? 'The officer refused this plan. Change it from the booking page and ask again.'
+              : `This booking is ${booking.status}.`
+          }
         />
       </>
     );

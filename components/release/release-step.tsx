@@ -37,7 +37,11 @@ export function ReleaseStep({ booking, state }: { booking: Booking; state: StepS
       ) : check.isError ? (
         <FormAlert message={`The release rules could not be checked: ${describeError(check.error)}`} testID="release-check-error" />
       ) : refusal ? null : failures.length > 0 ? (
-        <ReleaseFailures testID="release-check" title={`Not yet: ${failures.length} rule${failures.length === 1 ? '' : 's'} still in the way.`} failures={failures} />
+        <ReleaseFailures
+          testID="release-check"
+          title={`Not yet: ${failures.length} rule${failures.length === 1 ? '' : 's'} still in the way.`}
+          failures={failures}
+        />
       ) : (
         <Badge label="Every release rule holds now" icon="check-circle" tone="primary" testID="release-check-clear" />
       )}

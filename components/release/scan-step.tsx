@@ -76,17 +76,20 @@ export function ScanStep({ booking, state }: { booking: Booking; state: StepStat
           );
         })}
       </View>
-      {all ? (
-        result
-      ) : (
-        <QrScanner onTag={onTag} paused={scan.isPending} typedSubmitLabel="Tick off" result={result} testID="release-scanner" />
-      )}
+      {all ? result : <QrScanner onTag={onTag} paused={scan.isPending} typedSubmitLabel="Tick off" result={result} testID="release-scanner" />}
     </StepCard>
   );
 }
 
 const styles = StyleSheet.create({
   list: { borderWidth: borders.hairline, borderRadius: radii.md, overflow: 'hidden' },
-  row: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm, minHeight: layout.listRowMinHeight, paddingHorizontal: spacing.sm, paddingVertical: spacing.xs },
+  row: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: spacing.sm,
+    minHeight: layout.listRowMinHeight,
+    paddingHorizontal: spacing.sm,
+    paddingVertical: spacing.xs,
+  },
   rowText: { flex: 1, gap: spacing.xxs },
 });

@@ -37,7 +37,12 @@ export function StepCard({ number, title, state, testID, children }: StepCardPro
     >
       <View style={styles.header}>
         <AppText variant="heading" headingLevel={2} style={styles.title}>{`${number}. ${title}`}</AppText>
-        <Badge label={words.label} icon={words.icon} tone={state === 'current' ? 'primary' : state === 'done' ? 'neutral' : 'muted'} testID={`${testID}-state-${state}`} />
+        <Badge
+          label={words.label}
+          icon={words.icon}
+          tone={state === 'current' ? 'primary' : state === 'done' ? 'neutral' : 'muted'}
+          testID={`${testID}-state-${state}`}
+        />
       </View>
       {children}
     </View>

@@ -16,10 +16,22 @@ function ticks(labels: string[]): { x: number; label: string }[] {
 }
 
 /** One series per name, a point per x where it has a value, joined by a line. */
-function seriesBy<T>(rows: T[], xs: string[], nameOf: (r: T) => string, xOf: (r: T) => string, yOf: (r: T) => number, label: (name: string) => string): ChartSeries[] {
+function seriesBy<T>(
+  rows: T[],
+  xs: string[],
+  nameOf: (r: T) => string,
+  xOf: (r: T) => string,
+  yOf: (r: T) => number,
+  label: (name: string) => string,
+): ChartSeries[] {
   const names = [...new Set(rows.map(nameOf))].sort();
   return names.map((name) => {
-    const points = xs.map((xKey, x) => ({ x, y: rows.filter((r) => nameOf(r) === name && xOf(r) === xKey).reduce((n, r) => n + yOf(r), 0), run: x, flagged: false }));
+    const points = xs.map((xKey, x) => ({
+      x,
+      y: rows.filter((r) => nameOf(r) === name && xOf(r) === xKey).reduce((n, r) => n + yOf(r), 0),
+      run: x,
+      flagged: false,
+    }));
     return { key: name, label: label(name), points, curve: points.map((p) => ({ x: p.x, y: p.y })) };
   });
 }
@@ -44,8 +56,18 @@ export function bookedHoursChart(r: ChartsReport): ChartModel {
     xLabel: 'Week starting (Monday)',
     yLabel: 'Hours booked',
     xTicks: ticks(weeks.map(weekLabel)),
-    series: seriesBy(r.bookedHours, weeks, (b) => b.groupName, (b) => b.week, (b) => b.hours, (g) => g),
-    summary: r.bookedHours.length === 0 ? 'No hours booked in this period.' : `${hours(total)} booked over ${weeks.length} week${weeks.length === 1 ? '' : 's'}; the busiest was ${top!.groupName} in the week of ${weekLabel(top!.week)} (${hours(top!.hours)}).`,
+    series: seriesBy(
+      r.bookedHours,
+      weeks,
+      (b) => b.groupName,
+      (b) => b.week,
+      (b) => b.hours,
+      (g) => g,
+    ),
+    summary:
+      r.bookedHours.length === 0
+        ? 'No hours booked in this period.'
+        : `${hours(total)} booked over ${weeks.length} week${weeks.length === 1 ? '' : 's'}; the busiest was ${top!.groupName} in the week of ${weekLabel(top!.week)} (${hours(top!.hours)}).`,
   };
 }
 
@@ -60,7 +82,10 @@ export function energizedHoursChart(r: ChartsReport): ChartModel {
     yLabel: 'Hours out after release',
     xTicks: ticks(groups),
     series: [{ key: 'released', label: 'Hours out', points: r.energizedHours.map((e, x) => ({ x, y: e.hours, run: x, flagged: false })) }],
-    summary: r.energizedHours.length === 0 ? 'No gear was released in this period.' : `${hours(total)} of released gear in all; most by ${top!.groupName} (${hours(top!.hours)}). Counted from release to return, the time the gear may have been energized.`,
+    summary:
+      r.energizedHours.length === 0
+        ? 'No gear was released in this period.'
+        : `${hours(total)} of released gear in all; most by ${top!.groupName} (${hours(top!.hours)}). Counted from release to return, the time the gear may have been energized.`,
   };
 }
 
@@ -73,8 +98,18 @@ export function overdueChart(r: ChartsReport): ChartModel {
     xLabel: 'Week of the booking’s end',
     yLabel: 'Returns late or still out',
     xTicks: ticks(weeks.map(weekLabel)),
-    series: [{ key: 'overdue', label: 'Overdue returns', points: r.overdueReturns.map((o, x) => ({ x, y: o.count, run: x, flagged: false })), curve: r.overdueReturns.map((o, x) => ({ x, y: o.count })) }],
-    summary: total === 0 ? 'No return was late in this period.' : `${total} return${total === 1 ? '' : 's'} came back late or are still out, over ${weeks.length} week${weeks.length === 1 ? '' : 's'}.`,
+    series: [
+      {
+        key: 'overdue',
+        label: 'Overdue returns',
+        points: r.overdueReturns.map((o, x) => ({ x, y: o.count, run: x, flagged: false })),
+        curve: r.overdueReturns.map((o, x) => ({ x, y: o.count })),
+      },
+    ],
+    summary:
+      total === 0
+        ? 'No return was late in this period.'
+        : `${total} return${total === 1 ? '' : 's'} came back late or are still out, over ${weeks.length} week${weeks.length === 1 ? '' : 's'}.`,
   };
 }
 
@@ -89,8 +124,18 @@ export function inspectionsChart(r: ChartsReport): ChartModel {
     xLabel: 'Week starting (Monday)',
     yLabel: 'Items due',
     xTicks: ticks(weeks.map(weekLabel)),
-    series: seriesBy(r.inspectionsDue, weeks, (i) => i.kind, (i) => i.week, (i) => i.count, (k) => k),
-    summary: total === 0 ? 'Nothing falls due in the next 12 weeks.' : `${total} item${total === 1 ? '' : 's'} due in the next 12 weeks; ${blocking} of them (overdue or never inspected) block release now and are counted in this week.`,
+    series: seriesBy(
+      r.inspectionsDue,
+      weeks,
+      (i) => i.kind,
+      (i) => i.week,
+      (i) => i.count,
+      (k) => k,
+    ),
+    summary:
+      total === 0
+        ? 'Nothing falls due in the next 12 weeks.'
+        : `${total} item${total === 1 ? '' : 's'} due in the next 12 weeks; ${blocking} of them (overdue or never inspected) block release now and are counted in this week.`,
   };
 }
 
@@ -105,7 +150,17 @@ export function incidentsChart(r: ChartsReport): ChartModel {
     xLabel: 'Month',
     yLabel: 'Incidents reported',
     xTicks: ticks(months.map(monthLabel)),
-    series: seriesBy(r.incidents, months, (i) => i.kind, (i) => i.month, (i) => i.count, kindName),
-    summary: total === 0 ? 'No incident was reported in this period.' : `${total} incident${total === 1 ? '' : 's'} reported, ${serious} of them serious or severe. The table gives each month by kind and severity.`,
+    series: seriesBy(
+      r.incidents,
+      months,
+      (i) => i.kind,
+      (i) => i.month,
+      (i) => i.count,
+      kindName,
+    ),
+    summary:
+      total === 0
+        ? 'No incident was reported in this period.'
+        : `${total} incident${total === 1 ? '' : 's'} reported, ${serious} of them serious or severe. The table gives each month by kind and severity.`,
   };
 }

@@ -23,9 +23,20 @@ export function InspectionsSection() {
       {due.isPending ? (
         <LoadingState label="Loading inspections due" testID="reports-inspections-loading" />
       ) : due.isError ? (
-        <ErrorState testID="reports-inspections-error" title="Inspections due did not load" error={due.error} onRetry={() => void due.refetch()} retrying={due.isRefetching} />
+        <ErrorState
+          testID="reports-inspections-error"
+          title="Inspections due did not load"
+          error={due.error}
+          onRetry={() => void due.refetch()}
+          retrying={due.isRefetching}
+        />
       ) : due.data.items.length === 0 ? (
-        <EmptyState testID="reports-inspections-empty" icon="shield-check" title="No inspections due" message={`Nothing is overdue or due in the next ${DUE_SOON_DAYS} days.`} />
+        <EmptyState
+          testID="reports-inspections-empty"
+          icon="shield-check"
+          title="No inspections due"
+          message={`Nothing is overdue or due in the next ${DUE_SOON_DAYS} days.`}
+        />
       ) : (
         <>
           {due.data.items.map((item, index) => {
@@ -43,7 +54,15 @@ export function InspectionsSection() {
                   .filter(Boolean)
                   .join('\n')}
                 href={{ pathname: '/gear/[id]', params: { id: String(item.id) } }}
-                trailing={item.state === 'never' ? <Badge label="Never inspected" icon="alert-circle" /> : overdue ? <Badge label="Overdue" icon="alert-circle" /> : <Badge label="Due soon" tone="muted" />}
+                trailing={
+                  item.state === 'never' ? (
+                    <Badge label="Never inspected" icon="alert-circle" />
+                  ) : overdue ? (
+                    <Badge label="Overdue" icon="alert-circle" />
+                  ) : (
+                    <Badge label="Due soon" tone="muted" />
+                  )
+                }
                 divided={index > 0}
               />
             );
@@ -55,7 +74,12 @@ export function InspectionsSection() {
           ) : null}
         </>
       )}
-      <DownloadLink label="Download CSV" url={reportUrls.inspectionsCsv()} fileName={`voltcrib-inspections-${todayIso()}.csv`} testID="reports-inspections-csv" />
+      <DownloadLink
+        label="Download CSV"
+        url={reportUrls.inspectionsCsv()}
+        fileName={`voltcrib-inspections-${todayIso()}.csv`}
+        testID="reports-inspections-csv"
+      />
     </Card>
   );
 }

@@ -20,12 +20,21 @@ export function OverdueSection() {
       {overdue.isPending ? (
         <LoadingState label="Loading overdue bookings" testID="reports-overdue-loading" />
       ) : overdue.isError ? (
-        <ErrorState testID="reports-overdue-error" title="Overdue bookings did not load" error={overdue.error} onRetry={() => void overdue.refetch()} retrying={overdue.isRefetching} />
+        <ErrorState
+          testID="reports-overdue-error"
+          title="Overdue bookings did not load"
+          error={overdue.error}
+          onRetry={() => void overdue.refetch()}
+          retrying={overdue.isRefetching}
+        />
       ) : overdue.data.bookings.length === 0 ? (
         <EmptyState testID="reports-overdue-empty" icon="calendar-check" title="Nothing overdue" message="All released gear is inside its booking window." />
       ) : (
         <>
-          <HazardBadge level="warning" detail={overdue.data.bookings.length === 1 ? '1 booking past its end' : `${overdue.data.bookings.length} bookings past their end`} />
+          <HazardBadge
+            level="warning"
+            detail={overdue.data.bookings.length === 1 ? '1 booking past its end' : `${overdue.data.bookings.length} bookings past their end`}
+          />
           <AppText variant="small" tone="muted">
             Gear past its window may still be set up or charged: ask the person to make it safe and return it.
           </AppText>

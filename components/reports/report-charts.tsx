@@ -49,7 +49,12 @@ function ChartCard({ model, columns, rows, csv }: ChartCardProps) {
           </Table>
         </View>
       ) : null}
-      <DownloadLink label="Download CSV" url={chartUrls.csv(csv.name, csv.period)} fileName={`voltcrib-${csv.name}.csv`} testID={`report-chart-${model.key}-csv`} />
+      <DownloadLink
+        label="Download CSV"
+        url={chartUrls.csv(csv.name, csv.period)}
+        fileName={`voltcrib-${csv.name}.csv`}
+        testID={`report-chart-${model.key}-csv`}
+      />
     </Card>
   );
 }
@@ -68,8 +73,18 @@ function Charts({ report, period }: { report: ChartsReport; period: ReportPeriod
         rows={report.bookedHours.map((b) => ({ ...b, week: weekLabel(b.week) }))}
         csv={c('booked-hours')}
       />
-      <ChartCard model={energizedHoursChart(report)} columns={[col('groupName', 'Group', 5), col('hours', 'Hours out', 3, true)]} rows={report.energizedHours} csv={c('energized-hours')} />
-      <ChartCard model={overdueChart(report)} columns={[col('week', 'Week of', 4), col('count', 'Overdue', 3, true)]} rows={report.overdueReturns.map((o) => ({ ...o, week: weekLabel(o.week) }))} csv={c('overdue-returns')} />
+      <ChartCard
+        model={energizedHoursChart(report)}
+        columns={[col('groupName', 'Group', 5), col('hours', 'Hours out', 3, true)]}
+        rows={report.energizedHours}
+        csv={c('energized-hours')}
+      />
+      <ChartCard
+        model={overdueChart(report)}
+        columns={[col('week', 'Week of', 4), col('count', 'Overdue', 3, true)]}
+        rows={report.overdueReturns.map((o) => ({ ...o, week: weekLabel(o.week) }))}
+        csv={c('overdue-returns')}
+      />
       <ChartCard
         model={inspectionsChart(report)}
         columns={[col('week', 'Week of', 3), col('kind', 'Kind', 3), col('count', 'Due', 2, true), col('blocking', 'Overdue or never', 3, true)]}
@@ -96,9 +111,23 @@ function SafetySummaryCard() {
   const [month, setMonth] = useState(months[1]!);
   return (
     <Card title="Monthly safety summary" testID="report-safety-summary">
-      <AppText tone="muted">One page for the lab manager: the month&apos;s incidents by kind and severity, reviews, corrective actions, use, overdue returns and inspections that block release.</AppText>
-      <ChoiceChips label="Month" testID="safety-summary-month" choices={months.map((m) => ({ value: m, label: monthLabel(m) }))} value={month} onChange={setMonth} />
-      <DownloadLink label={`Download the ${monthLabel(month)} summary (PDF)`} url={chartUrls.safetySummaryPdf(month)} fileName={`voltcrib-safety-summary-${month}.pdf`} testID="safety-summary-pdf" />
+      <AppText tone="muted">
+        One page for the lab manager: the month&apos;s incidents by kind and severity, reviews, corrective actions, use, overdue returns and inspections that
+        block release.
+      </AppText>
+      <ChoiceChips
+        label="Month"
+        testID="safety-summary-month"
+        choices={months.map((m) => ({ value: m, label: monthLabel(m) }))}
+        value={month}
+        onChange={setMonth}
+      />
+      <DownloadLink
+        label={`Download the ${monthLabel(month)} summary (PDF)`}
+        url={chartUrls.safetySummaryPdf(month)}
+        fileName={`voltcrib-safety-summary-${month}.pdf`}
+        testID="safety-summary-pdf"
+      />
     </Card>
   );
 }

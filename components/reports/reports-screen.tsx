@@ -29,7 +29,10 @@ export function ReportsScreen() {
 
   return (
     <Screen testID="reports-screen" title="Reports" width={isWide ? 'wide' : 'regular'}>
-      <AppText tone="muted">Use per research group, bookings overdue now, inspections coming due, charts of use, returns and incidents, and the monthly safety summary. Each downloads as CSV.</AppText>
+      <AppText tone="muted">
+        Use per research group, bookings overdue now, inspections coming due, charts of use, returns and incidents, and the monthly safety summary. Each
+        downloads as CSV.
+      </AppText>
       {isWide ? (
         <View style={styles.columns}>
           <View style={styles.column}>

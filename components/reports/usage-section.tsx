@@ -34,11 +34,21 @@ export function UsageSection({ period, onPeriodChange }: UsageSectionProps) {
           retrying={usage.isRefetching}
         />
       ) : usage.data.groups.length === 0 ? (
-        <EmptyState testID="reports-usage-empty" icon="chart-bar" title="No bookings in this period" message="Pick a longer period to see how the gear was used." />
+        <EmptyState
+          testID="reports-usage-empty"
+          icon="chart-bar"
+          title="No bookings in this period"
+          message="Pick a longer period to see how the gear was used."
+        />
       ) : (
         <UsageTable groups={usage.data.groups} stale={usage.isPlaceholderData} />
       )}
-      <DownloadLink label="Download CSV" url={reportUrls.usageCsv(period)} fileName={`voltcrib-usage-${period.from}-to-${period.to}.csv`} testID="reports-usage-csv" />
+      <DownloadLink
+        label="Download CSV"
+        url={reportUrls.usageCsv(period)}
+        fileName={`voltcrib-usage-${period.from}-to-${period.to}.csv`}
+        testID="reports-usage-csv"
+      />
     </Card>
   );
 }

@@ -13,7 +13,15 @@ import type { Assessment } from '@/shared/schemas/assessment';
  * The computed bleed-down time as a countdown the member starts when switching off. A hint only:
  * the residual reading below is what the return is judged on, and the stick goes on regardless.
  */
-export function BleedDownCountdown({ assessment, safeResidualV, onRunning }: { assessment: Assessment; safeResidualV: number | undefined; onRunning?: (running: boolean) => void }) {
+export function BleedDownCountdown({
+  assessment,
+  safeResidualV,
+  onRunning,
+}: {
+  assessment: Assessment;
+  safeResidualV: number | undefined;
+  onRunning?: (running: boolean) => void;
+}) {
   const bleed = assessment.bleedDown;
   const [startedAt, setStartedAt] = useState<number | null>(null);
   const [now, setNow] = useState(() => Date.now());
@@ -45,7 +53,16 @@ export function BleedDownCountdown({ assessment, safeResidualV, onRunning }: { a
         source={`t = R·C·ln(V₀ / V_safe) from the stored assessment; ${bleed.source}`}
       />
       {startedAt === null ? (
-        <Button label="Start the countdown" icon="timer-sand" variant="secondary" testID="return-countdown-start" onPress={() => { setStartedAt(Date.now()); setNow(Date.now()); }} />
+        <Button
+          label="Start the countdown"
+          icon="timer-sand"
+          variant="secondary"
+          testID="return-countdown-start"
+          onPress={() => {
+            setStartedAt(Date.now());
+            setNow(Date.now());
+          }}
+        />
       ) : finished ? (
         <Badge label="Bleed-down time has passed: ground it, then measure" icon="check-circle" tone="primary" testID="return-countdown-done" />
       ) : (

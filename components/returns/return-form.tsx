@@ -48,7 +48,9 @@ export function ReturnForm({ booking, safeResidualV, bleeding = false }: ReturnF
 
   // The residual-voltage line's limit is the lab rule, not a number written in the template.
   const limitSources = Object.fromEntries(
-    entries.filter((e) => e.kind === 'reading' && e.unit === 'V' && e.max !== undefined && e.max === safeResidualV).map((e) => [e.id, "the lab's safe residual voltage"]),
+    entries
+      .filter((e) => e.kind === 'reading' && e.unit === 'V' && e.max !== undefined && e.max === safeResidualV)
+      .map((e) => [e.id, "the lab's safe residual voltage"]),
   );
 
   const onSubmit = handleSubmit(async ({ checklist, ret }) => {
@@ -82,12 +84,24 @@ export function ReturnForm({ booking, safeResidualV, bleeding = false }: ReturnF
           control={control}
           name="checklist.answers"
           render={({ field }) => (
-            <ChecklistFields bookingId={booking.id} entries={entries} value={field.value} onChange={field.onChange} lineErrors={formLineErrors} limitSources={limitSources} onLineAnswered={(lineId) => setLineErrors((lines) => withoutLine(lines, lineId))} testID="checklist-return" />
+            <ChecklistFields
+              bookingId={booking.id}
+              entries={entries}
+              value={field.value}
+              onChange={field.onChange}
+              lineErrors={formLineErrors}
+              limitSources={limitSources}
+              onLineAnswered={(lineId) => setLineErrors((lines) => withoutLine(lines, lineId))}
+              testID="checklist-return"
+            />
           )}
         />
       </Card>
       <Card title="Damage">
-        <AppText tone="muted">Mark anything that came back damaged. The return tags it out of service, so nobody can book or release it until a safety officer or manager has looked at it.</AppText>
+        <AppText tone="muted">
+          Mark anything that came back damaged. The return tags it out of service, so nobody can book or release it until a safety officer or manager has looked
+          at it.
+        </AppText>
         <Controller
           control={control}
           name="ret.damagedItemIds"

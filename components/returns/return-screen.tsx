@@ -71,7 +71,12 @@ function ReturnBody({ booking }: { booking: Booking }) {
     return (
       <>
         {header}
-        <EmptyState testID="return-not-open" icon="cancel" title="Nothing to return" message={`Only released gear is returned; this booking is ${booking.status}.`} />
+        <EmptyState
+          testID="return-not-open"
+          icon="cancel"
+          title="Nothing to return"
+          message={`Only released gear is returned; this booking is ${booking.status}.`}
+        />
       </>
     );
   }

@@ -19,11 +19,7 @@ interface CameraNoticeProps {
 export function CameraNotice({ title, message, icon, action, testID }: CameraNoticeProps) {
   const { colors } = useTheme();
   return (
-    <View
-      testID={testID}
-      accessibilityLiveRegion="polite"
-      style={[styles.notice, { borderColor: colors.borderStrong, backgroundColor: colors.surface }]}
-    >
+    <View testID={testID} accessibilityLiveRegion="polite" style={[styles.notice, { borderColor: colors.borderStrong, backgroundColor: colors.surface }]}>
       <View style={styles.titleRow}>
         <Icon name={icon} size={iconSizes.md} color={colors.text} />
         <AppText variant="bodyStrong" headingLevel={2}>

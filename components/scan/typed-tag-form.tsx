@@ -62,7 +62,14 @@ export function TypedTagForm({ onTag, disabled = false, submitLabel = 'Open', te
         />
       </View>
       <View style={styles.button}>
-        <Button label={submitLabel} icon={submitLabel === 'Open' ? 'chevron-right' : 'check-circle'} variant="secondary" onPress={() => void submit()} disabled={disabled} testID={`${testID}-submit`} />
+        <Button
+          label={submitLabel}
+          icon={submitLabel === 'Open' ? 'chevron-right' : 'check-circle'}
+          variant="secondary"
+          onPress={() => void submit()}
+          disabled={disabled}
+          testID={`${testID}-submit`}
+        />
       </View>
     </View>
   );

@@ -36,5 +36,9 @@ function subscribe(listener: () => void): () => void {
 }
 
 export function useThemePreference(): ThemePreference {
-  return useSyncExternalStore(subscribe, () => current, () => 'system');
+  return useSyncExternalStore(
+    subscribe,
+    () => current,
+    () => 'system',
+  );
 }

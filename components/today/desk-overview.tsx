@@ -50,7 +50,11 @@ export function DeskOverview({ role }: { role: Role }) {
             <ListRow
               testID="today-desk-approvals"
               icon="clipboard-check"
-              title={desk.data.approvalsWaiting === 0 ? 'No test waits for a safety officer' : `${plural(desk.data.approvalsWaiting, 'test waits', 'tests wait')} for a safety officer`}
+              title={
+                desk.data.approvalsWaiting === 0
+                  ? 'No test waits for a safety officer'
+                  : `${plural(desk.data.approvalsWaiting, 'test waits', 'tests wait')} for a safety officer`
+              }
               divided
             />
           )}
@@ -61,6 +65,10 @@ export function DeskOverview({ role }: { role: Role }) {
 }
 
 function inspectionWords(i: { neverDone: number; overdue: number; dueSoon: number }): string {
-  const parts = [i.neverDone > 0 ? `${i.neverDone} never inspected` : null, i.overdue > 0 ? `${i.overdue} overdue` : null, i.dueSoon > 0 ? `${i.dueSoon} due soon` : null].filter(Boolean);
+  const parts = [
+    i.neverDone > 0 ? `${i.neverDone} never inspected` : null,
+    i.overdue > 0 ? `${i.overdue} overdue` : null,
+    i.dueSoon > 0 ? `${i.dueSoon} due soon` : null,
+  ].filter(Boolean);
   return parts.length === 0 ? 'No inspection due' : `Inspections: ${parts.join(', ')}`;
 }

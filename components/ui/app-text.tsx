@@ -24,11 +24,7 @@ export function AppText({ variant = 'body', tone = 'default', headingLevel, colo
     <Text
       {...webA11y({ headingLevel })}
       {...rest}
-      style={[
-        styles.base,
-        { fontFamily: type.family, fontSize: type.fontSize, lineHeight: type.lineHeight, color: color ?? toneColor },
-        style,
-      ]}
+      style={[styles.base, { fontFamily: type.family, fontSize: type.fontSize, lineHeight: type.lineHeight, color: color ?? toneColor }, style]}
     />
   );
 }

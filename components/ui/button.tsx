@@ -23,17 +23,7 @@ interface ButtonProps {
   block?: boolean;
 }
 
-export function Button({
-  label,
-  onPress,
-  variant = 'primary',
-  icon,
-  loading = false,
-  loadingLabel,
-  disabled = false,
-  testID,
-  block = false,
-}: ButtonProps) {
+export function Button({ label, onPress, variant = 'primary', icon, loading = false, loadingLabel, disabled = false, testID, block = false }: ButtonProps) {
   const { colors } = useTheme();
   const inactive = disabled || loading;
   const palette = {
@@ -59,11 +49,7 @@ export function Button({
       ]}
     >
       <View style={styles.content}>
-        {loading ? (
-          <ActivityIndicator color={palette.text} aria-hidden />
-        ) : icon ? (
-          <Icon name={icon} color={palette.text} />
-        ) : null}
+        {loading ? <ActivityIndicator color={palette.text} aria-hidden /> : icon ? <Icon name={icon} color={palette.text} /> : null}
         <AppText variant="label" color={palette.text}>
           {label}
         </AppText>

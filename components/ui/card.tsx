@@ -17,10 +17,7 @@ interface CardProps {
 export function Card({ title, testID, flush = false, children }: CardProps) {
   const { colors } = useTheme();
   return (
-    <View
-      testID={testID}
-      style={[styles.card, flush && styles.flush, { backgroundColor: colors.surface, borderTopColor: colors.borderStrong }]}
-    >
+    <View testID={testID} style={[styles.card, flush && styles.flush, { backgroundColor: colors.surface, borderTopColor: colors.borderStrong }]}>
       {title ? (
         <View style={flush ? styles.flushTitle : undefined}>
           <AppText variant="heading" headingLevel={2}>

@@ -47,11 +47,7 @@ export function Checkbox({ label, checked, onChange, detail, error, disabled = f
           disabled && styles.disabled,
         ]}
       >
-        <Icon
-          name={checked ? 'checkbox-marked' : 'checkbox-blank-outline'}
-          size={iconSizes.md}
-          color={checked ? colors.primary : colors.textMuted}
-        />
+        <Icon name={checked ? 'checkbox-marked' : 'checkbox-blank-outline'} size={iconSizes.md} color={checked ? colors.primary : colors.textMuted} />
         <View style={styles.text}>
           <AppText variant="bodyStrong">{label}</AppText>
           {detail ? (
@@ -61,9 +57,7 @@ export function Checkbox({ label, checked, onChange, detail, error, disabled = f
           ) : null}
         </View>
       </Pressable>
-      {error ? (
-        <FieldError message={error} testID={testID ? `${testID}-error` : undefined} />
-      ) : null}
+      {error ? <FieldError message={error} testID={testID ? `${testID}-error` : undefined} /> : null}
     </View>
   );
 }

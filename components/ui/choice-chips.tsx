@@ -54,7 +54,11 @@ export function ChoiceChips<T extends string>({ label, hideLabel = false, choice
                 pressed && styles.pressed,
               ]}
             >
-              <Icon name={selected ? 'radiobox-marked' : (choice.icon ?? 'radiobox-blank')} size={iconSizes.sm} color={selected ? colors.onPrimary : colors.textMuted} />
+              <Icon
+                name={selected ? 'radiobox-marked' : (choice.icon ?? 'radiobox-blank')}
+                size={iconSizes.sm}
+                color={selected ? colors.onPrimary : colors.textMuted}
+              />
               <AppText variant="label" color={selected ? colors.onPrimary : colors.text}>
                 {choice.label}
               </AppText>
@@ -62,9 +66,7 @@ export function ChoiceChips<T extends string>({ label, hideLabel = false, choice
           );
         })}
       </View>
-      {error ? (
-        <FieldError message={error} testID={testID ? `${testID}-error` : undefined} />
-      ) : null}
+      {error ? <FieldError message={error} testID={testID ? `${testID}-error` : undefined} /> : null}
     </View>
   );
 }

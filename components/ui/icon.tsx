@@ -112,7 +112,17 @@ export function Icon({ name, size = iconSizes.md, color }: IconProps) {
       importantForAccessibility="no-hide-descendants"
       // A fixed square box: the glyph may arrive a moment after the words (font-display: swap),
       // and nothing beside it moves when it does.
-      style={{ fontFamily: FONT_FAMILY, fontSize: size, lineHeight: size, width: size, height: size, textAlign: 'center', color: color ?? colors.text, fontWeight: 'normal', fontStyle: 'normal' }}
+      style={{
+        fontFamily: FONT_FAMILY,
+        fontSize: size,
+        lineHeight: size,
+        width: size,
+        height: size,
+        textAlign: 'center',
+        color: color ?? colors.text,
+        fontWeight: 'normal',
+        fontStyle: 'normal',
+      }}
     >
       {String.fromCodePoint(glyphs[name])}
     </Text>

@@ -22,7 +22,14 @@ interface LoadMoreProps {
 }
 
 /** The button under a paged list that loads its next page, and the message when that failed. */
-export function LoadMore({ query, label = 'Load more', loadingLabel = 'Loading more', failedText = 'The next page did not load. Try again.', block = false, testID }: LoadMoreProps) {
+export function LoadMore({
+  query,
+  label = 'Load more',
+  loadingLabel = 'Loading more',
+  failedText = 'The next page did not load. Try again.',
+  block = false,
+  testID,
+}: LoadMoreProps) {
   return (
     <>
       {query.isFetchNextPageError ? (
@@ -31,7 +38,16 @@ export function LoadMore({ query, label = 'Load more', loadingLabel = 'Loading m
         </AppText>
       ) : null}
       {query.hasNextPage ? (
-        <Button label={label} icon="chevron-down" variant="secondary" block={block} onPress={() => void query.fetchNextPage()} loading={query.isFetchingNextPage} loadingLabel={loadingLabel} testID={testID} />
+        <Button
+          label={label}
+          icon="chevron-down"
+          variant="secondary"
+          block={block}
+          onPress={() => void query.fetchNextPage()}
+          loading={query.isFetchingNextPage}
+          loadingLabel={loadingLabel}
+          testID={testID}
+        />
       ) : null}
     </>
   );

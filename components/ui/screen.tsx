@@ -38,11 +38,7 @@ export function Screen({ testID, title, hideTitle = false, width = 'regular', ce
       <Head>
         <title>{`${title} · Voltcrib`}</title>
       </Head>
-      <ScrollView
-        style={styles.scroll}
-        contentContainerStyle={[styles.scrollContent, centered && styles.centered]}
-        keyboardShouldPersistTaps="handled"
-      >
+      <ScrollView style={styles.scroll} contentContainerStyle={[styles.scrollContent, centered && styles.centered]} keyboardShouldPersistTaps="handled">
         <View style={[styles.column, { maxWidth: maxWidths[width] }]}>
           {hideTitle ? null : (
             <AppText variant="title" headingLevel={1}>

@@ -31,15 +31,7 @@ interface SegmentedControlProps<V extends string> {
  * A small set of mutually exclusive choices as large pills. The chosen one is filled and bold and
  * announced as checked/selected, so the state never rests on hue alone.
  */
-export function SegmentedControl<V extends string>({
-  label,
-  hideLabel = false,
-  options,
-  value,
-  onChange,
-  kind = 'radio',
-  testID,
-}: SegmentedControlProps<V>) {
+export function SegmentedControl<V extends string>({ label, hideLabel = false, options, value, onChange, kind = 'radio', testID }: SegmentedControlProps<V>) {
   const { colors } = useTheme();
   return (
     <View style={styles.wrapper}>
@@ -65,7 +57,9 @@ export function SegmentedControl<V extends string>({
                 pressed && styles.pressed,
               ]}
             >
-              {kind === 'radio' ? <Icon name={chosen ? 'radiobox-marked' : 'radiobox-blank'} size={iconSizes.sm} color={chosen ? colors.onPrimary : colors.textMuted} /> : null}
+              {kind === 'radio' ? (
+                <Icon name={chosen ? 'radiobox-marked' : 'radiobox-blank'} size={iconSizes.sm} color={chosen ? colors.onPrimary : colors.textMuted} />
+              ) : null}
               <AppText variant={chosen ? 'label' : 'body'} color={chosen ? colors.onPrimary : colors.text}>
                 {option.label}
               </AppText>

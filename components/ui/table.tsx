@@ -60,7 +60,13 @@ export function TableRow({ testID, onPress, children }: { testID?: string; onPre
     );
   }
   return (
-    <Pressable role="row" testID={testID} onPress={onPress} focusable={false} style={(state) => [frame, hoveredOf(state) && { backgroundColor: colors.surfaceMuted }]}>
+    <Pressable
+      role="row"
+      testID={testID}
+      onPress={onPress}
+      focusable={false}
+      style={(state) => [frame, hoveredOf(state) && { backgroundColor: colors.surfaceMuted }]}
+    >
       {children}
     </Pressable>
   );

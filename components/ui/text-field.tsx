@@ -9,8 +9,7 @@ import { FieldError } from './field-error';
 import { Icon } from './icon';
 import { webA11y } from './web-a11y';
 
-interface TextFieldProps
-  extends Omit<TextInputProps, 'style' | 'accessibilityLabel' | 'placeholderTextColor' | 'editable'> {
+interface TextFieldProps extends Omit<TextInputProps, 'style' | 'accessibilityLabel' | 'placeholderTextColor' | 'editable'> {
   /** Visible label and the input's accessible name; a field cannot exist without one. */
   label: string;
   /** Shown under the field in place of the hint, and marks the field invalid. */

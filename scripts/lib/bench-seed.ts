@@ -35,7 +35,11 @@ export async function seedBench(db: Db, scale = { items: 50_000, people: 300, bo
   const next = addDaysIso(todayIso(), 200);
   for (let k = 0; k < KITS; k += 1) {
     const kit = [
-      { kind: 'hv-supply', ratings: { maxKv: 30, maxMa: 2, polarity: 'negative', outputCapacitanceNf: 5, bleederMohm: 300, hasInterlockInput: true }, rated: 30 },
+      {
+        kind: 'hv-supply',
+        ratings: { maxKv: 30, maxMa: 2, polarity: 'negative', outputCapacitanceNf: 5, bleederMohm: 300, hasInterlockInput: true },
+        rated: 30,
+      },
       { kind: 'grounding-stick', ratings: { ratedKv: 100, hookResistanceMohm: 10, cableLengthM: 3 }, rated: 100 },
       { kind: 'isolation-stand', ratings: { withstandKv: 100 }, rated: 100 },
       { kind: 'interlock', ratings: { ratedKv: 60 }, rated: 60 },
@@ -62,8 +66,8 @@ export async function seedBench(db: Db, scale = { items: 50_000, people: 300, bo
   const now = Date.now();
   const span = 2 * 365 * 24 * 3600_000;
   let rng = 7;
-  const rand = () => ((rng = (rng * 1103515245 + 12345) % 2 ** 31) / 2 ** 31);
-  for (let done = 0; done < scale.bookings; ) {
+  const rand = () => (rng = (rng * 1103515245 + 12345) % 2 ** 31) / 2 ** 31;
+  for (let done = 0; done < scale.bookings;) {
     const batch = [];
     const itemsOf: number[][] = [];
     for (let i = 0; i < 5000 && done < scale.bookings; i += 1, done += 1) {
@@ -92,7 +96,9 @@ export async function seedBench(db: Db, scale = { items: 50_000, people: 300, bo
       });
     }
     const [firstId] = (await db('bookings').insert(batch)) as [number];
-    const links = batch.flatMap((b, i) => itemsOf[i]!.map((itemId) => ({ booking_id: firstId + i, item_id: itemId, starts_at: b.starts_at, ends_at: b.ends_at, live: false })));
+    const links = batch.flatMap((b, i) =>
+      itemsOf[i]!.map((itemId) => ({ booking_id: firstId + i, item_id: itemId, starts_at: b.starts_at, ends_at: b.ends_at, live: false })),
+    );
     await db('booking_items').insert(links);
   }
   await db.raw('ANALYZE TABLE items, item_terms, bookings, booking_items, people');

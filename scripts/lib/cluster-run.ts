@@ -115,7 +115,9 @@ function sessionSecret(dir: string): string {
 
 export function nodeDb(layout: ClusterLayout, index: number): Db {
   const instance = nodeInstances(layout)[index]!;
-  return createDb(loadConfig({ DB_SOCKET: instance.socket, DB_NAME: layout.database, DB_USER: 'voltcrib', DB_PASSWORD: 'voltcrib-local-only', DB_POOL_MAX: '10' }));
+  return createDb(
+    loadConfig({ DB_SOCKET: instance.socket, DB_NAME: layout.database, DB_USER: 'voltcrib', DB_PASSWORD: 'voltcrib-local-only', DB_POOL_MAX: '10' }),
+  );
 }
 
 export async function runCluster(layout: ClusterLayout, options: ClusterOptions = {}): Promise<RunningCluster> {
@@ -180,7 +182,11 @@ export async function runCluster(layout: ClusterLayout, options: ClusterOptions 
     const count = options.appCount ?? layout.apps.length;
     for (let i = 0; i < count; i += 1) apps.push(new AppProcess(i, layout.apps[i]!, { ...env, PORT: String(layout.apps[i]) }, dir, layout));
     await Promise.all(apps.map((a) => a.start()));
-    await waitUntilUp(layout, ROOT, apps.map((a) => `apps/app${a.index + 1}`));
+    await waitUntilUp(
+      layout,
+      ROOT,
+      apps.map((a) => `apps/app${a.index + 1}`),
+    );
   } catch (error) {
     await stop();
     throw error;

@@ -21,9 +21,7 @@ export function ensureDebianPackages(packages: DebianPackage[]): void {
   const names = missing.map((p) => p.name).join(' ');
   const isRoot = typeof process.getuid === 'function' && process.getuid() === 0;
   if (!isRoot) {
-    throw new Error(
-      `Voltcrib needs the Debian package(s) ${names}. Run as root:\n  apt-get update && apt-get install -y ${names}`,
-    );
+    throw new Error(`Voltcrib needs the Debian package(s) ${names}. Run as root:\n  apt-get update && apt-get install -y ${names}`);
   }
   console.log(`[setup] installing Debian package(s): ${names} (about a minute)…`);
   execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit' });

@@ -14,7 +14,9 @@ export interface HealthServer {
 async function synced(instance: Instance, held: { connection: Connection | null }): Promise<boolean> {
   try {
     held.connection ??= await mysql.createConnection({ socketPath: instance.socket, user: 'root', connectTimeout: 1000 });
-    const [rows] = (await held.connection.query("SHOW GLOBAL STATUS WHERE Variable_name IN ('wsrep_local_state', 'wsrep_ready')")) as unknown as [{ Variable_name: string; Value: string }[]];
+    const [rows] = (await held.connection.query("SHOW GLOBAL STATUS WHERE Variable_name IN ('wsrep_local_state', 'wsrep_ready')")) as unknown as [
+      { Variable_name: string; Value: string }[],
+    ];
     const value = (name: string) => rows.find((r) => r.Variable_name === name)?.Value;
     return value('wsrep_local_state') === '4' && value('wsrep_ready') === 'ON';
   } catch {

@@ -45,11 +45,18 @@ export interface ClusterLayout {
 const credentials = { user: 'voltcrib', password: 'voltcrib-local-only' };
 
 /** keepalive ≤ check period ≤ suspect ≤ inactive (Galera's own ordering of these timeouts). */
-const FAILURE_DETECTION = 'evs.keepalive_period=PT0.5S;evs.inactive_check_period=PT0.5S;evs.suspect_timeout=PT1.5S;evs.inactive_timeout=PT3S;evs.install_timeout=PT1.5S';
+const FAILURE_DETECTION =
+  'evs.keepalive_period=PT0.5S;evs.inactive_check_period=PT0.5S;evs.suspect_timeout=PT1.5S;evs.inactive_timeout=PT3S;evs.install_timeout=PT1.5S';
 
 /** Node N's ports are 44N1…44N4 (dev) or 44N5…44N8 (the test suite's cluster). */
 function nodePorts(sqlBase: number, galeraBase: number): NodePorts[] {
-  return [0, 1, 2].map((i) => ({ sql: sqlBase + i, gcomm: galeraBase + 10 * i, ist: galeraBase + 10 * i + 1, sst: galeraBase + 10 * i + 2, health: galeraBase + 10 * i + 3 }));
+  return [0, 1, 2].map((i) => ({
+    sql: sqlBase + i,
+    gcomm: galeraBase + 10 * i,
+    ist: galeraBase + 10 * i + 1,
+    sst: galeraBase + 10 * i + 2,
+    health: galeraBase + 10 * i + 3,
+  }));
 }
 
 /** `npm run cluster`: nodes 3441–3443, balancer 3444, apps 8141–8142, proxy on PORT (8090). */
@@ -108,7 +115,10 @@ export function nodeInstances(layout: ClusterLayout): Instance[] {
 /** One value from a node (the first column of the first row), or null when it does not answer. */
 export function queryValue(instance: Instance, statement: string): string | null {
   try {
-    const out = execFileSync('/usr/bin/mariadb', [`--defaults-file=${instance.cnf}`, '-uroot', '-N', '-B', '-e', statement], { stdio: ['ignore', 'pipe', 'ignore'], timeout: 5000 });
+    const out = execFileSync('/usr/bin/mariadb', [`--defaults-file=${instance.cnf}`, '-uroot', '-N', '-B', '-e', statement], {
+      stdio: ['ignore', 'pipe', 'ignore'],
+      timeout: 5000,
+    });
     return out.toString().trim().split('\n')[0]?.split('\t').pop() ?? null;
   } catch {
     return null;
@@ -140,7 +150,8 @@ export async function waitSynced(instance: Instance, clusterSize: number, timeou
   for (;;) {
     const s = nodeState(instance);
     if (s.ready && s.state === 'Synced' && s.clusterSize >= clusterSize) return;
-    if (Date.now() > deadline) throw new Error(`${instance.name}: not synced in a cluster of ${clusterSize} (state ${s.state ?? 'down'}, size ${s.clusterSize})`);
+    if (Date.now() > deadline)
+      throw new Error(`${instance.name}: not synced in a cluster of ${clusterSize} (state ${s.state ?? 'down'}, size ${s.clusterSize})`);
     await sleep(300);
   }
 }
@@ -186,10 +197,13 @@ export async function startCluster(layout: ClusterLayout, log: (line: string) =>
     const first = bootstrapIndex(instances);
     log(`[cluster] bootstrapping a new cluster on node${first + 1}`);
     await startInstance(nodeOptions(layout, first), { args: ['--wsrep-new-cluster'], timeoutMs: 120_000, untilReady: (i) => waitSynced(i, 1) });
-    sql(instances[first]!, [
-      `CREATE USER IF NOT EXISTS '${SST_USER}'@'localhost' IDENTIFIED BY '${SST_PASSWORD}'`,
-      `GRANT RELOAD, PROCESS, LOCK TABLES, BINLOG MONITOR ON *.* TO '${SST_USER}'@'localhost'`,
-    ].join(';'));
+    sql(
+      instances[first]!,
+      [
+        `CREATE USER IF NOT EXISTS '${SST_USER}'@'localhost' IDENTIFIED BY '${SST_PASSWORD}'`,
+        `GRANT RELOAD, PROCESS, LOCK TABLES, BINLOG MONITOR ON *.* TO '${SST_USER}'@'localhost'`,
+      ].join(';'),
+    );
     order = [first, ...order.filter((i) => i !== first)];
   }
   for (const i of order) {

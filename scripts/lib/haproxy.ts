@@ -53,7 +53,7 @@ export function haproxyConfig(layout: ClusterLayout, statsSocket: string): strin
     '  retry-on conn-failure',
     ...apps,
     '',
-    '# The app processes\' database connections, spread over every synced node. A node that',
+    "# The app processes' database connections, spread over every synced node. A node that",
     '# leaves (killed, desynced, non-primary) has its connections cut, so pools reconnect elsewhere.',
     'listen galera',
     `  bind 127.0.0.1:${layout.dbBalancer}`,

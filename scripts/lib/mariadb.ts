@@ -140,11 +140,9 @@ export async function startInstance(options: InstanceOptions, start: StartOption
 
   if (!existsSync(path.join(dataDir, 'mysql'))) {
     mkdirSync(dataDir, { recursive: true });
-    execFileSync(
-      bin('mariadb-install-db'),
-      [`--defaults-file=${instance.cnf}`, '--auth-root-authentication-method=normal', '--skip-test-db'],
-      { stdio: 'ignore' },
-    );
+    execFileSync(bin('mariadb-install-db'), [`--defaults-file=${instance.cnf}`, '--auth-root-authentication-method=normal', '--skip-test-db'], {
+      stdio: 'ignore',
+    });
   }
 
   if (!isRunning(instance) || !ping(instance)) {
@@ -215,10 +213,6 @@ export function resetDatabase(options: InstanceOptions): void {
   const db = instance.database;
   sql(
     instance,
-    [
-      `DROP DATABASE IF EXISTS \`${db}\``,
-      `CREATE DATABASE \`${db}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`,
-      ...grantsOn(instance, db),
-    ].join(';'),
+    [`DROP DATABASE IF EXISTS \`${db}\``, `CREATE DATABASE \`${db}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`, ...grantsOn(instance, db)].join(';'),
   );
 }

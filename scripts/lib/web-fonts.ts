@@ -58,7 +58,10 @@ export function iconGlyphs(source = readFileSync(ICON_SOURCE, 'utf8')): Glyph[] 
 export function checkGlyphs(glyphs: Glyph[], glyphmap: Record<string, number> = JSON.parse(readFileSync(ICON_GLYPHMAP, 'utf8'))): void {
   const wrong = glyphs.filter((g) => glyphmap[g.name] !== g.codepoint);
   if (wrong.length > 0) {
-    const lines = wrong.map((g) => `  ${g.name}: 0x${g.codepoint.toString(16)} (the set has ${glyphmap[g.name] === undefined ? 'no such icon' : `0x${glyphmap[g.name]!.toString(16)}`})`);
+    const lines = wrong.map(
+      (g) =>
+        `  ${g.name}: 0x${g.codepoint.toString(16)} (the set has ${glyphmap[g.name] === undefined ? 'no such icon' : `0x${glyphmap[g.name]!.toString(16)}`})`,
+    );
     throw new Error(`components/ui/icon.tsx lists icons the font does not have under those codes:\n${lines.join('\n')}`);
   }
 }

@@ -64,7 +64,9 @@ export class SessionStore extends ConnectSessionKnexStore {
   private async readRow(sid: string): Promise<{ json: string; expiresMs: number } | null> {
     const startedAt = this.cache.begin();
     // Raw SQL: the query builder's work showed up in the bench profile next to the query itself.
-    const [rows] = (await this.db.raw('SELECT sess, expired FROM sessions WHERE sid = ? AND expired > ? LIMIT 1', [sid, new Date()])) as [{ sess: unknown; expired: Date }[]];
+    const [rows] = (await this.db.raw('SELECT sess, expired FROM sessions WHERE sid = ? AND expired > ? LIMIT 1', [sid, new Date()])) as [
+      { sess: unknown; expired: Date }[],
+    ];
     const row = rows[0];
     if (!row) return null;
     const json = typeof row.sess === 'string' ? row.sess : JSON.stringify(row.sess);

@@ -50,7 +50,15 @@ export class Throttle {
     limits: ThrottleLimits,
     private readonly message: string,
   ) {
-    const common = { storeClient: db, storeType: 'knex', dbName: database, tableName: THROTTLE_TABLE, tableCreated: true, clearExpiredByTimeout: false, duration: THROTTLE_WINDOW_S };
+    const common = {
+      storeClient: db,
+      storeType: 'knex',
+      dbName: database,
+      tableName: THROTTLE_TABLE,
+      tableCreated: true,
+      clearExpiredByTimeout: false,
+      duration: THROTTLE_WINDOW_S,
+    };
     this.account = new RateLimiterMySQL({ ...common, keyPrefix: `${name}:acct`, points: limits.perAccount });
     this.address = new RateLimiterMySQL({ ...common, keyPrefix: `${name}:addr`, points: limits.perAddress });
   }

@@ -16,7 +16,8 @@ export async function enqueueOverdueReminders(db: Db, publicUrl: string, now = n
   const officers = await db('people').where({ role: 'officer', active: true }).select('id', 'email');
   let queued = 0;
   for (const b of facts.values()) {
-    if (await enqueueMail(db, { kind: 'overdue-member', to: b.personEmail, dedupeKey: `overdue-member:${b.id}`, ...messages.overdueToMember(publicUrl, b) })) queued += 1;
+    if (await enqueueMail(db, { kind: 'overdue-member', to: b.personEmail, dedupeKey: `overdue-member:${b.id}`, ...messages.overdueToMember(publicUrl, b) }))
+      queued += 1;
     if (now.getTime() - b.endsAtDate.getTime() >= rules.overdueGraceMin * 60_000) {
       for (const officer of officers) {
         const content = messages.overdueToOfficer(publicUrl, b, rules.overdueGraceMin);

@@ -43,14 +43,21 @@ export const messages = {
   overdueToMember(baseUrl: string, b: BookingFacts): MailContent {
     return compose(
       `Overdue: return HV gear from booking #${b.id}`,
-      [`Hello ${b.personName},`, `Your booking #${b.id} ended ${mailTime(b.endsAt)} and its gear is still out: ${b.itemTags.join(', ')}.`, 'Make it safe (switch off, unplug, ground with the stick, measure the residual voltage) and return it at the counter.'],
+      [
+        `Hello ${b.personName},`,
+        `Your booking #${b.id} ended ${mailTime(b.endsAt)} and its gear is still out: ${b.itemTags.join(', ')}.`,
+        'Make it safe (switch off, unplug, ground with the stick, measure the residual voltage) and return it at the counter.',
+      ],
       { url: `${baseUrl}/bookings/${b.id}`, label: 'Open the booking' },
     );
   },
   overdueToOfficer(baseUrl: string, b: BookingFacts, graceMin: number): MailContent {
     return compose(
       `Overdue more than ${graceMin} min: booking #${b.id} (${b.personName})`,
-      [`Booking #${b.id} by ${b.personName} (${b.plannedKv} kV, ${b.purpose}) ended ${mailTime(b.endsAt)}, and the gear has not come back: ${b.itemTags.join(', ')}.`, 'Please check that the setup has been made safe.'],
+      [
+        `Booking #${b.id} by ${b.personName} (${b.plannedKv} kV, ${b.purpose}) ended ${mailTime(b.endsAt)}, and the gear has not come back: ${b.itemTags.join(', ')}.`,
+        'Please check that the setup has been made safe.',
+      ],
       { url: `${baseUrl}/bookings/${b.id}`, label: 'Open the booking' },
     );
   },
@@ -64,7 +71,11 @@ export const messages = {
   benchRunBeyondPlan(baseUrl: string, b: BookingFacts, run: { number: number; appliedKv: number; currentMa: number }, reasons: string[]): MailContent {
     return compose(
       `Beyond the approved plan: booking #${b.id} (${b.personName}), run ${run.number}`,
-      [`${b.personName} recorded run ${run.number} at ${run.appliedKv} kV and ${run.currentMa} mA on booking #${b.id} (${b.purpose}), beyond the plan you approved:`, ...reasons.map((r) => `• ${r}`), 'Later runs beyond the plan are recorded and flagged on the booking without another e-mail.'],
+      [
+        `${b.personName} recorded run ${run.number} at ${run.appliedKv} kV and ${run.currentMa} mA on booking #${b.id} (${b.purpose}), beyond the plan you approved:`,
+        ...reasons.map((r) => `• ${r}`),
+        'Later runs beyond the plan are recorded and flagged on the booking without another e-mail.',
+      ],
       { url: `${baseUrl}/bookings/${b.id}`, label: 'Open the booking' },
     );
   },
@@ -100,14 +111,22 @@ export const messages = {
   invitation(baseUrl: string, name: string, inviterName: string, token: string, expiresAt: string): MailContent {
     return compose(
       'You are invited to Voltcrib',
-      [`Hello ${name},`, `${inviterName} added you to the lab's Voltcrib, where the shared high-voltage gear is booked and released.`, `Set your password with the link below. It works once and expires ${mailTime(expiresAt)}.`],
+      [
+        `Hello ${name},`,
+        `${inviterName} added you to the lab's Voltcrib, where the shared high-voltage gear is booked and released.`,
+        `Set your password with the link below. It works once and expires ${mailTime(expiresAt)}.`,
+      ],
       { url: `${baseUrl}/invitation/${token}`, label: 'Set your password' },
     );
   },
   passwordReset(baseUrl: string, name: string, token: string, expiresAt: string): MailContent {
     return compose(
       'Reset your Voltcrib password',
-      [`Hello ${name},`, 'Someone (hopefully you) asked to reset your Voltcrib password.', `The link below works once and expires ${mailTime(expiresAt)}. If you did not ask, ignore this e-mail.`],
+      [
+        `Hello ${name},`,
+        'Someone (hopefully you) asked to reset your Voltcrib password.',
+        `The link below works once and expires ${mailTime(expiresAt)}. If you did not ask, ignore this e-mail.`,
+      ],
       { url: `${baseUrl}/reset-password/${token}`, label: 'Choose a new password' },
     );
   },

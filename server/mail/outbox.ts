@@ -94,7 +94,10 @@ export class OutboxWorker {
           .select('id', 'kind', 'to_address', 'subject', 'text_body', 'html_body', 'attempts', 'created_at')) as ClaimedRow[];
         if (rows.length === 0) return [];
         await trx('outbox')
-          .whereIn('id', rows.map((r) => r.id))
+          .whereIn(
+            'id',
+            rows.map((r) => r.id),
+          )
           .update({ state: 'sending', lease_owner: this.owner, lease_expires_at: new Date(now.getTime() + this.leaseMs), attempts: trx.raw('attempts + 1') });
         return rows.map((r) => ({ ...r, attempts: r.attempts + 1 }));
       }),
@@ -127,7 +130,9 @@ export class OutboxWorker {
         return undefined;
       }
       const { subject, text, html } = prepared.content;
-      await trx('outbox').where({ id: row.id }).update({ kind: prepared.kind, subject: subject.slice(0, 200), text_body: text, html_body: html });
+      await trx('outbox')
+        .where({ id: row.id })
+        .update({ kind: prepared.kind, subject: subject.slice(0, 200), text_body: text, html_body: html });
       return { ...row, kind: prepared.kind, subject, text_body: text, html_body: html };
     });
   }
@@ -145,14 +150,27 @@ export class OutboxWorker {
         try {
           row = await this.prepare(claimed);
           if (!row) continue;
-          await this.transport.sendMail({ from: this.from, to: row.to_address, subject: row.subject, text: row.text_body, html: row.html_body, messageId: messageIdOf(row, this.from) });
+          await this.transport.sendMail({
+            from: this.from,
+            to: row.to_address,
+            subject: row.subject,
+            text: row.text_body,
+            html: row.html_body,
+            messageId: messageIdOf(row, this.from),
+          });
         } catch (error) {
           failed += 1;
           const message = error instanceof Error ? error.message : String(error);
           const giveUp = claimed.attempts >= MAX_ATTEMPTS;
           await this.db('outbox')
             .where({ id: claimed.id, lease_owner: this.owner })
-            .update({ state: giveUp ? 'failed' : 'pending', next_attempt_at: new Date(Date.now() + backoffMs(claimed.attempts)), lease_owner: null, lease_expires_at: null, last_error: message.slice(0, 2000) })
+            .update({
+              state: giveUp ? 'failed' : 'pending',
+              next_attempt_at: new Date(Date.now() + backoffMs(claimed.attempts)),
+              lease_owner: null,
+              lease_expires_at: null,
+              last_error: message.slice(0, 2000),
+            })
             .catch(() => undefined);
           this.log.warn({ outboxId: claimed.id, attempts: claimed.attempts, err: message }, 'mail delivery failed; will retry');
           continue;
@@ -163,7 +181,10 @@ export class OutboxWorker {
         } catch (error) {
           // Sent, but not recorded: remembered, and marked before this worker does anything else.
           this.unmarked.add(row.id);
-          this.log.warn({ outboxId: row.id, err: error instanceof Error ? error.message : String(error) }, 'mail sent but not yet marked; will mark before any other send');
+          this.log.warn(
+            { outboxId: row.id, err: error instanceof Error ? error.message : String(error) },
+            'mail sent but not yet marked; will mark before any other send',
+          );
           break;
         }
       }

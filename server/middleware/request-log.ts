@@ -12,7 +12,13 @@ export function requestLog(logger: Logger): RequestHandler {
       res.removeListener('finish', done);
       res.removeListener('close', done);
       const ms = Number(process.hrtime.bigint() - started) / 1e6;
-      const line = { method: req.method, url: req.originalUrl, status: res.statusCode, ms: Math.round(ms * 10) / 10, aborted: !res.writableFinished || undefined };
+      const line = {
+        method: req.method,
+        url: req.originalUrl,
+        status: res.statusCode,
+        ms: Math.round(ms * 10) / 10,
+        aborted: !res.writableFinished || undefined,
+      };
       if (res.statusCode >= 500) logger.error(line, 'request failed');
       else logger.info(line, 'request');
     };

@@ -29,7 +29,10 @@ export function invitationsRouter(db: Db, config: Config, throttle: Throttle): R
     const person = await invitePerson(db, currentUser(req), validate(invitationSchema, req.body, 'invitation'), config.publicUrl);
     res.status(201).json({ person });
   });
-  router.post('/:token', redeemRoute(throttle, (token, password) => acceptInvitation(db, token, password)));
+  router.post(
+    '/:token',
+    redeemRoute(throttle, (token, password) => acceptInvitation(db, token, password)),
+  );
   return router;
 }
 
@@ -43,6 +46,9 @@ export function passwordResetsRouter(db: Db, config: Config, throttle: Throttle)
     // The same answer, after the same work, whether or not the e-mail belongs to someone.
     res.status(202).json({ ok: true, message: 'If that e-mail belongs to an account, a reset link is on its way.' });
   });
-  router.post('/:token', redeemRoute(throttle, (token, password) => completePasswordReset(db, token, password)));
+  router.post(
+    '/:token',
+    redeemRoute(throttle, (token, password) => completePasswordReset(db, token, password)),
+  );
   return router;
 }

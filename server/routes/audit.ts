@@ -24,7 +24,9 @@ export function auditRouter(db: Db): Router {
   const router = Router();
   router.get('/', requireRole('officer', 'manager'), async (req, res) => {
     const q = validate(querySchema, req.query, 'audit filter');
-    res.json(await listAudit(db, { entity: q.entity, entityId: q.id, tag: q.tag, person: q.person, from: q.from, to: q.to, beforeId: q.cursor, limit: q.limit }));
+    res.json(
+      await listAudit(db, { entity: q.entity, entityId: q.id, tag: q.tag, person: q.person, from: q.from, to: q.to, beforeId: q.cursor, limit: q.limit }),
+    );
   });
   router.get('/verify', requireRole('officer', 'manager'), async (_req, res) => {
     res.json(await verifyAuditChain(db));

@@ -2,7 +2,14 @@
 // shared/hv functions run in the app for live results; these answers are the authoritative ones.
 import { Router } from 'express';
 import { approachBoundaries, capacitorEnergy, classifyHazardousLive, coronaOnset, dischargePlan, multiplierOutput } from '../../shared/hv';
-import { boundariesBodySchema, coronaBodySchema, dischargeBodySchema, energyBodySchema, hazardBodySchema, multiplierBodySchema } from '../../shared/schemas/calc';
+import {
+  boundariesBodySchema,
+  coronaBodySchema,
+  dischargeBodySchema,
+  energyBodySchema,
+  hazardBodySchema,
+  multiplierBodySchema,
+} from '../../shared/schemas/calc';
 import { requireSignedIn } from '../middleware/require-role';
 import { validate } from '../middleware/validate';
 

@@ -107,7 +107,10 @@ export function itemsRouter(db: Db, config: Config, store: ObjectStore): Router 
 
   router.get('/:id/label.svg', requireSignedIn, async (req, res) => {
     const item = await getItem(db, id(req));
-    res.type('image/svg+xml').set('Cache-Control', 'private, max-age=3600').send(await labelSvg(item.tag, config.publicUrl));
+    res
+      .type('image/svg+xml')
+      .set('Cache-Control', 'private, max-age=3600')
+      .send(await labelSvg(item.tag, config.publicUrl));
   });
 
   router.get('/:id/label.pdf', requireRole('manager', 'officer'), async (req, res) => {

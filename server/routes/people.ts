@@ -52,7 +52,11 @@ export function qualificationsRouter(db: Db): Router {
   const router = Router();
   router.get('/', requireRole('officer', 'manager'), async (_req, res) => {
     const people = await listPeople(db);
-    res.json({ people: people.filter((p) => p.active).map(({ id, name, email, role, groupName, qualification }) => ({ id, name, email, role, groupName, qualification })) });
+    res.json({
+      people: people
+        .filter((p) => p.active)
+        .map(({ id, name, email, role, groupName, qualification }) => ({ id, name, email, role, groupName, qualification })),
+    });
   });
   return router;
 }

@@ -22,9 +22,7 @@ const periodSchema = z
   .refine((v) => v.to.getTime() - v.from.getTime() <= 3 * 366 * 24 * 3600_000, { message: 'At most three years', path: ['from'] });
 
 const none = z.object({}).strict();
-const monthSchema = z
-  .object({ month: z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, 'Give a month as YYYY-MM, for example 2026-11') })
-  .strict();
+const monthSchema = z.object({ month: z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, 'Give a month as YYYY-MM, for example 2026-11') }).strict();
 
 /** Which rows of the charts answer each CSV holds. */
 const CHART_ROWS: Record<ChartCsvName, (r: ChartsReport) => Record<string, unknown>[]> = {
@@ -59,7 +57,11 @@ export function reportsRouter(db: Db): Router {
   });
   router.get('/usage.csv', async (req, res) => {
     const { from, to } = validate(periodSchema, req.query, 'period');
-    sendCsv(res, 'voltcrib-usage.csv', toCsv(await usageByGroup(db, from, to) as unknown as Record<string, unknown>[], ['groupName', 'bookings', 'hours', 'people']));
+    sendCsv(
+      res,
+      'voltcrib-usage.csv',
+      toCsv((await usageByGroup(db, from, to)) as unknown as Record<string, unknown>[], ['groupName', 'bookings', 'hours', 'people']),
+    );
   });
   router.get('/charts', async (req, res) => {
     const { from, to } = validate(periodSchema, req.query, 'period');

@@ -34,7 +34,14 @@ export async function invitePerson(db: Db, actor: SessionUser, input: Invitation
   return auditedTransaction(db, async (trx) => {
     let personId: number;
     try {
-      [personId] = (await trx('people').insert({ email: input.email, name: input.name, role: input.role, group_id: input.groupId ?? null, password_hash: null, active: true })) as [number];
+      [personId] = (await trx('people').insert({
+        email: input.email,
+        name: input.name,
+        role: input.role,
+        group_id: input.groupId ?? null,
+        password_hash: null,
+        active: true,
+      })) as [number];
     } catch (error) {
       if (isDuplicateKey(error)) throw new ConflictError('Someone with that e-mail is already in Voltcrib.', ERROR_CODES.emailTaken);
       // people.group_id references groups: the only parent an invitation names.
@@ -43,7 +50,13 @@ export async function invitePerson(db: Db, actor: SessionUser, input: Invitation
     }
     const { token, expiresAt } = await issueToken(trx, personId, 'invitation', INVITATION_HOURS * 3600_000, { newPerson: true });
     await enqueueMail(trx, { kind: 'invitation', to: input.email, ...messages.invitation(publicUrl, input.name, actor.name, token, expiresAt.toISOString()) });
-    await appendAudit(trx, { actorId: actor.id, entity: 'person', entityId: personId, action: 'person.invited', after: { email: input.email, name: input.name, role: input.role } });
+    await appendAudit(trx, {
+      actorId: actor.id,
+      entity: 'person',
+      entityId: personId,
+      action: 'person.invited',
+      after: { email: input.email, name: input.name, role: input.role },
+    });
     return { id: personId, email: input.email, name: input.name, role: input.role };
   });
 }
@@ -52,14 +65,23 @@ export async function invitePerson(db: Db, actor: SessionUser, input: Invitation
 async function redeem(db: Db, token: string, purpose: 'invitation' | 'password-reset', password: string): Promise<void> {
   const hash = await hashPassword(password);
   const personId = await auditedTransaction(db, async (trx) => {
-    const row = await trx('person_tokens').where({ token_hash: sha256(token), purpose }).forUpdate().first();
-    if (!row || row.used_at !== null) throw new AppError(410, ERROR_CODES.linkUsedOrInvalid, 'This link is not valid or has already been used. Ask for a new one.');
+    const row = await trx('person_tokens')
+      .where({ token_hash: sha256(token), purpose })
+      .forUpdate()
+      .first();
+    if (!row || row.used_at !== null)
+      throw new AppError(410, ERROR_CODES.linkUsedOrInvalid, 'This link is not valid or has already been used. Ask for a new one.');
     if (new Date(row.expires_at).getTime() < Date.now()) throw new AppError(410, ERROR_CODES.linkExpired, 'This link has expired. Ask for a new one.');
     const person = await trx('people').where({ id: row.person_id }).forUpdate().first('id', 'active');
     if (!person?.active) throw new AppError(410, ERROR_CODES.linkUsedOrInvalid, 'This link is not valid or has already been used. Ask for a new one.');
     await trx('person_tokens').where({ id: row.id }).update({ used_at: new Date() });
     await trx('people').where({ id: row.person_id }).update({ password_hash: hash, updated_at: new Date() });
-    await appendAudit(trx, { actorId: row.person_id, entity: 'person', entityId: row.person_id, action: purpose === 'invitation' ? 'person.invitation-accepted' : 'person.password-reset' });
+    await appendAudit(trx, {
+      actorId: row.person_id,
+      entity: 'person',
+      entityId: row.person_id,
+      action: purpose === 'invitation' ? 'person.invitation-accepted' : 'person.password-reset',
+    });
     return row.person_id as number;
   });
   // Whoever held a session with the old password is signed out.
@@ -126,5 +148,12 @@ export async function updatePerson(db: Db, actor: SessionUser, personId: number,
   if (result.after.role !== result.before.role || (result.before.active && !result.after.active) || result.after.name !== result.before.name) {
     await endSessionsOf(db, personId);
   }
-  return { id: personId, email: result.after.email, name: result.after.name, role: result.after.role, active: Boolean(result.after.active), groupId: result.after.group_id };
+  return {
+    id: personId,
+    email: result.after.email,
+    name: result.after.name,
+    role: result.after.role,
+    active: Boolean(result.after.active),
+    groupId: result.after.group_id,
+  };
 }

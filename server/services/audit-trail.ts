@@ -73,20 +73,18 @@ export async function listAudit(db: Db, filter: AuditFilter): Promise<AuditPage>
   const page = rows.slice(0, filter.limit);
   const subjects = await subjectsOf(db, page);
   return {
-    events: page.map(
-      (r): AuditEvent => ({
-        id: Number(r.id),
-        at: new Date(r.at).toISOString(),
-        actorId: r.actor_id,
-        actorName: r.actor_name ?? null,
-        entity: r.entity,
-        entityId: r.entity_id,
-        action: r.action,
-        before: parseJson(r.before),
-        after: parseJson(r.after),
-        subject: subjects.get(`${r.entity}:${r.entity_id}`) ?? null,
-      }),
-    ),
+    events: page.map((r): AuditEvent => ({
+      id: Number(r.id),
+      at: new Date(r.at).toISOString(),
+      actorId: r.actor_id,
+      actorName: r.actor_name ?? null,
+      entity: r.entity,
+      entityId: r.entity_id,
+      action: r.action,
+      before: parseJson(r.before),
+      after: parseJson(r.after),
+      subject: subjects.get(`${r.entity}:${r.entity_id}`) ?? null,
+    })),
     nextCursor: rows.length > filter.limit ? String(page[page.length - 1]!.id) : null,
   };
 }
@@ -96,14 +94,21 @@ export async function listAudit(db: Db, filter: AuditFilter): Promise<AuditPage>
  * so a page costs the same number of queries whatever it holds.
  */
 async function subjectsOf(db: Db, rows: { entity: string; entity_id: string }[]): Promise<Map<string, AuditSubject>> {
-  const idsOf = (...entities: string[]) => [...new Set(rows.filter((r) => entities.includes(r.entity)).map((r) => Number(r.entity_id)))].filter(Number.isInteger);
+  const idsOf = (...entities: string[]) =>
+    [...new Set(rows.filter((r) => entities.includes(r.entity)).map((r) => Number(r.entity_id)))].filter(Number.isInteger);
   const parts: Knex.QueryBuilder[] = [];
   const itemIds = idsOf('item');
   const bookingIds = idsOf('booking');
   const personIds = idsOf('person', 'qualification');
   const lineIds = idsOf('checklist-template');
   if (itemIds.length) parts.push(db('items').whereIn('id', itemIds).select(db.raw("'item' AS kind"), 'id', 'tag AS a', 'name AS b'));
-  if (bookingIds.length) parts.push(db('bookings as bk').join('people as bp', 'bp.id', 'bk.person_id').whereIn('bk.id', bookingIds).select(db.raw("'booking' AS kind"), 'bk.id', 'bp.name AS a', 'bk.item_tags AS b'));
+  if (bookingIds.length)
+    parts.push(
+      db('bookings as bk')
+        .join('people as bp', 'bp.id', 'bk.person_id')
+        .whereIn('bk.id', bookingIds)
+        .select(db.raw("'booking' AS kind"), 'bk.id', 'bp.name AS a', 'bk.item_tags AS b'),
+    );
   if (personIds.length) parts.push(db('people').whereIn('id', personIds).select(db.raw("'person' AS kind"), 'id', 'name AS a', db.raw('NULL AS b')));
   if (lineIds.length) parts.push(db('checklist_templates').whereIn('id', lineIds).select(db.raw("'line' AS kind"), 'id', 'text AS a', db.raw('NULL AS b')));
   const subjects = new Map<string, AuditSubject>();

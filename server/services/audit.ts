@@ -18,8 +18,6 @@ export interface AuditInput {
   after?: unknown;
 }
 
-
-
 export function parseJson(value: unknown): unknown {
   // mysql2 hands MariaDB JSON columns back as strings (they are LONGTEXT underneath).
   if (typeof value !== 'string') return value ?? null;
@@ -30,7 +28,10 @@ export function parseJson(value: unknown): unknown {
   }
 }
 
-function entryHash(prevHash: string, row: { at: string; actorId: number | null; entity: string; entityId: string; action: string; before: unknown; after: unknown }): string {
+function entryHash(
+  prevHash: string,
+  row: { at: string; actorId: number | null; entity: string; entityId: string; action: string; before: unknown; after: unknown },
+): string {
   return createHash('sha256')
     .update(canonical({ prevHash, ...row }))
     .digest('hex');

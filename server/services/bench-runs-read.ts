@@ -167,7 +167,11 @@ export async function listRunRevisions(db: Db, actor: SessionUser, bookingId: nu
   await visibleBooking(db, actor, bookingId);
   const run = await db('bench_runs').where({ id: runId, booking_id: bookingId }).first('id');
   if (!run) throw new NotFoundError(`No run ${runId} on booking ${bookingId}.`);
-  const rows = await db('bench_run_revisions as v').join('people as p', 'p.id', 'v.edited_by').where('v.run_id', runId).orderBy('v.revision').select('v.*', 'p.name as editor');
+  const rows = await db('bench_run_revisions as v')
+    .join('people as p', 'p.id', 'v.edited_by')
+    .where('v.run_id', runId)
+    .orderBy('v.revision')
+    .select('v.*', 'p.name as editor');
   return rows.map((r) => ({
     revision: r.revision,
     action: r.action,

@@ -28,27 +28,34 @@ const CARRIED_OVER = ['temperature_c', 'pressure_kpa', 'humidity_pct', 'wire_rad
 function assertOpen(row: BookingRow): void {
   if (benchLogOpen(row)) return;
   const why =
-    row.status === 'returned'
-      ? `it was returned more than ${BENCH_LOG_GRACE_HOURS} h ago`
-      : `it is ${row.status}; runs are recorded once the gear is released`;
+    row.status === 'returned' ? `it was returned more than ${BENCH_LOG_GRACE_HOURS} h ago` : `it is ${row.status}; runs are recorded once the gear is released`;
   throw new ConflictError(`Runs cannot be added to this booking: ${why}.`, ERROR_CODES.benchLogClosed);
 }
 
 async function suppliesOf(trx: Trx, bookingId: number) {
-  const rows = await trx('booking_items as bi').join('items as i', 'i.id', 'bi.item_id').where('bi.booking_id', bookingId).whereIn('i.kind', ['hv-supply', 'multiplier']).orderBy('i.tag').select('i.tag', 'i.kind', 'i.ratings');
+  const rows = await trx('booking_items as bi')
+    .join('items as i', 'i.id', 'bi.item_id')
+    .where('bi.booking_id', bookingId)
+    .whereIn('i.kind', ['hv-supply', 'multiplier'])
+    .orderBy('i.tag')
+    .select('i.tag', 'i.kind', 'i.ratings');
   return rows.map((r) => {
     const ratings = (typeof r.ratings === 'string' ? JSON.parse(r.ratings) : r.ratings) as { maxKv?: number; maxOutputKv?: number; maxMa: number };
     return { tag: r.tag as string, maxKv: Number(r.kind === 'multiplier' ? ratings.maxOutputKv : ratings.maxKv), maxMa: Number(ratings.maxMa) };
   });
 }
 
-type RunColumns = Omit<BenchRunRow, 'id' | 'booking_id' | 'number' | 'revision' | 'recorded_by' | 'recorded_at' | 'updated_at' | 'deleted_at' | 'deleted_by' | 'flags'>;
+type RunColumns = Omit<
+  BenchRunRow,
+  'id' | 'booking_id' | 'number' | 'revision' | 'recorded_by' | 'recorded_at' | 'updated_at' | 'deleted_at' | 'deleted_by' | 'flags'
+>;
 
 /** The input in stored units (mA, mN), with the polarity and carried-over readings filled in. */
 function columnsOf(input: BenchRunInput, booking: BookingRow, previous: Partial<BenchRunRow> | undefined, field = ''): RunColumns {
   const plan = planOf(booking);
   const polarity = input.polarity ?? (plan.polarity === 'reversible' ? null : plan.polarity);
-  if (!polarity) throw new ValidationError('The plan allows either polarity: say which one this run used.', { [`${field}polarity`]: ['Positive or negative?'] });
+  if (!polarity)
+    throw new ValidationError('The plan allows either polarity: say which one this run used.', { [`${field}polarity`]: ['Positive or negative?'] });
   const columns: RunColumns = {
     applied_kv: input.appliedKv,
     polarity,
@@ -101,16 +108,32 @@ function flagsFor(columns: RunColumns, booking: BookingRow, supplies: Awaited<Re
 async function assertPhoto(trx: Trx, bookingId: number, fileId: number | null): Promise<void> {
   if (fileId === null) return;
   const ok = await bookingPhotoIdsAmong(trx, bookingId, [fileId]);
-  if (!ok.has(fileId)) throw new ValidationError('That photo is not one of this booking’s photos.', { photoFileId: ['Upload the photo to this booking first'] });
+  if (!ok.has(fileId))
+    throw new ValidationError('That photo is not one of this booking’s photos.', { photoFileId: ['Upload the photo to this booking first'] });
 }
 
 /** Officers hear of a run beyond the plan once per booking (the dedupe key), however many follow. */
 async function tellOfficers(trx: Trx, booking: BookingRow, number: number, columns: RunColumns, flags: BenchFlag[], mail: BenchMailContext): Promise<void> {
   const beyond = flags.filter((f) => BEYOND_PLAN_FLAGS.includes(f.code));
   if (beyond.length === 0) return;
-  const b = await trx('bookings as b').join('people as p', 'p.id', 'b.person_id').where('b.id', booking.id).first('b.id', 'b.ends_at', 'b.planned_kv', 'b.purpose', 'b.item_tags', 'p.name');
-  const facts = { id: b.id, personName: b.name, plannedKv: Number(b.planned_kv), purpose: b.purpose, endsAt: timestampToIso(b.ends_at)!, itemTags: JSON.parse(b.item_tags) as string[] };
-  const content = messages.benchRunBeyondPlan(mail.publicUrl, facts, { number, appliedKv: columns.applied_kv, currentMa: columns.current_ma }, beyond.map((f) => f.message));
+  const b = await trx('bookings as b')
+    .join('people as p', 'p.id', 'b.person_id')
+    .where('b.id', booking.id)
+    .first('b.id', 'b.ends_at', 'b.planned_kv', 'b.purpose', 'b.item_tags', 'p.name');
+  const facts = {
+    id: b.id,
+    personName: b.name,
+    plannedKv: Number(b.planned_kv),
+    purpose: b.purpose,
+    endsAt: timestampToIso(b.ends_at)!,
+    itemTags: JSON.parse(b.item_tags) as string[],
+  };
+  const content = messages.benchRunBeyondPlan(
+    mail.publicUrl,
+    facts,
+    { number, appliedKv: columns.applied_kv, currentMa: columns.current_ma },
+    beyond.map((f) => f.message),
+  );
   const officers = await trx('people').where({ role: 'officer', active: true }).select('id', 'email');
   for (const officer of officers) {
     await enqueueMail(trx, { kind: 'bench-run-beyond-plan', to: officer.email, dedupeKey: `bench-run-beyond-plan:${booking.id}:${officer.id}`, ...content });
@@ -127,21 +150,50 @@ async function nextNumber(trx: Trx, bookingId: number): Promise<number> {
 }
 
 /** Inserts one run under the booking's lock; returns its id. */
-async function insertRun(trx: Trx, actor: SessionUser, booking: BookingRow, input: BenchRunInput, supplies: Awaited<ReturnType<typeof suppliesOf>>, mail: BenchMailContext, field = ''): Promise<number> {
+async function insertRun(
+  trx: Trx,
+  actor: SessionUser,
+  booking: BookingRow,
+  input: BenchRunInput,
+  supplies: Awaited<ReturnType<typeof suppliesOf>>,
+  mail: BenchMailContext,
+  field = '',
+): Promise<number> {
   const columns = columnsOf(input, booking, await lastRun(trx, booking.id), field);
   await assertPhoto(trx, booking.id, columns.photo_file_id);
   const flags = flagsFor(columns, booking, supplies);
   const number = await nextNumber(trx, booking.id);
   const now = new Date();
-  const [id] = (await trx('bench_runs').insert({ ...columns, booking_id: booking.id, number, recorded_by: actor.id, recorded_at: now, updated_at: now, flags: JSON.stringify(flags) })) as [number];
-  await appendAudit(trx, { actorId: actor.id, entity: 'booking', entityId: booking.id, action: 'bench-run.recorded', after: { runId: id, number, ...columns, flags: flags.map((f) => f.code) } });
+  const [id] = (await trx('bench_runs').insert({
+    ...columns,
+    booking_id: booking.id,
+    number,
+    recorded_by: actor.id,
+    recorded_at: now,
+    updated_at: now,
+    flags: JSON.stringify(flags),
+  })) as [number];
+  await appendAudit(trx, {
+    actorId: actor.id,
+    entity: 'booking',
+    entityId: booking.id,
+    action: 'bench-run.recorded',
+    after: { runId: id, number, ...columns, flags: flags.map((f) => f.code) },
+  });
   if (flags.some((f) => BEYOND_PLAN_FLAGS.includes(f.code))) {
     await appendAudit(trx, {
       actorId: actor.id,
       entity: 'booking',
       entityId: booking.id,
       action: 'bench-run.beyond-plan',
-      after: { runId: id, number, appliedKv: columns.applied_kv, currentMa: columns.current_ma, plan: planOf(booking), flags: flags.filter((f) => BEYOND_PLAN_FLAGS.includes(f.code)) },
+      after: {
+        runId: id,
+        number,
+        appliedKv: columns.applied_kv,
+        currentMa: columns.current_ma,
+        plan: planOf(booking),
+        flags: flags.filter((f) => BEYOND_PLAN_FLAGS.includes(f.code)),
+      },
     });
   }
   await tellOfficers(trx, booking, number, columns, flags, mail);
@@ -181,7 +233,14 @@ function snapshot(run: BenchRunRow): Record<string, unknown> {
 }
 
 /** A correction: the run as it was goes to bench_run_revisions, the row takes the new readings. */
-export async function editBenchRun(db: Db, actor: SessionUser, bookingId: number, runId: number, edit: BenchRunEdit, mail: BenchMailContext): Promise<BenchRun> {
+export async function editBenchRun(
+  db: Db,
+  actor: SessionUser,
+  bookingId: number,
+  runId: number,
+  edit: BenchRunEdit,
+  mail: BenchMailContext,
+): Promise<BenchRun> {
   await auditedTransaction(db, async (trx) => {
     const booking = await openBookingForWrite(trx, actor, bookingId);
     const run = await lockRun(trx, bookingId, runId);
@@ -191,9 +250,26 @@ export async function editBenchRun(db: Db, actor: SessionUser, bookingId: number
     await assertPhoto(trx, bookingId, columns.photo_file_id);
     const flags = flagsFor(columns, booking, await suppliesOf(trx, bookingId));
     const now = new Date();
-    await trx('bench_run_revisions').insert({ run_id: runId, revision: run.revision, action: 'edited', before: JSON.stringify(snapshot(run)), reason, edited_by: actor.id, edited_at: now });
-    await trx('bench_runs').where({ id: runId }).update({ ...columns, revision: run.revision + 1, updated_at: now, flags: JSON.stringify(flags) });
-    await appendAudit(trx, { actorId: actor.id, entity: 'booking', entityId: bookingId, action: 'bench-run.edited', before: snapshot(run), after: { runId, number: run.number, revision: run.revision + 1, reason, ...columns, flags: flags.map((f) => f.code) } });
+    await trx('bench_run_revisions').insert({
+      run_id: runId,
+      revision: run.revision,
+      action: 'edited',
+      before: JSON.stringify(snapshot(run)),
+      reason,
+      edited_by: actor.id,
+      edited_at: now,
+    });
+    await trx('bench_runs')
+      .where({ id: runId })
+      .update({ ...columns, revision: run.revision + 1, updated_at: now, flags: JSON.stringify(flags) });
+    await appendAudit(trx, {
+      actorId: actor.id,
+      entity: 'booking',
+      entityId: bookingId,
+      action: 'bench-run.edited',
+      before: snapshot(run),
+      after: { runId, number: run.number, revision: run.revision + 1, reason, ...columns, flags: flags.map((f) => f.code) },
+    });
     if (flags.some((f) => BEYOND_PLAN_FLAGS.includes(f.code))) await tellOfficers(trx, booking, run.number, columns, flags, mail);
   });
   return runById(db, bookingId, runId);
@@ -206,9 +282,24 @@ export async function deleteBenchRun(db: Db, actor: SessionUser, bookingId: numb
     assertCounterAccess(actor, booking);
     const run = await lockRun(trx, bookingId, runId);
     const now = new Date();
-    await trx('bench_run_revisions').insert({ run_id: runId, revision: run.revision, action: 'deleted', before: JSON.stringify(snapshot(run)), reason, edited_by: actor.id, edited_at: now });
+    await trx('bench_run_revisions').insert({
+      run_id: runId,
+      revision: run.revision,
+      action: 'deleted',
+      before: JSON.stringify(snapshot(run)),
+      reason,
+      edited_by: actor.id,
+      edited_at: now,
+    });
     await trx('bench_runs').where({ id: runId }).update({ deleted_at: now, deleted_by: actor.id, updated_at: now });
-    await appendAudit(trx, { actorId: actor.id, entity: 'booking', entityId: bookingId, action: 'bench-run.deleted', before: snapshot(run), after: { runId, number: run.number, reason } });
+    await appendAudit(trx, {
+      actorId: actor.id,
+      entity: 'booking',
+      entityId: bookingId,
+      action: 'bench-run.deleted',
+      before: snapshot(run),
+      after: { runId, number: run.number, reason },
+    });
   });
 }
 
@@ -233,17 +324,28 @@ export async function importBenchRuns(db: Db, actor: SessionUser, bookingId: num
   const refused = outcomes.filter((o) => o.input === null);
   if (refused.length > 0) {
     const failures = refused.flatMap((o) => o.errors.map((message) => ({ rule: `line-${o.line}`, message: `Line ${o.line}: ${message}` })));
-    throw new AppError(400, ERROR_CODES.validation, `Import refused: ${refused.length} row${refused.length === 1 ? '' : 's'} cannot be read; nothing was imported.`, {
-      failures,
-      fieldErrors: Object.fromEntries(refused.map((o) => [`line ${o.line}`, o.errors])),
-    });
+    throw new AppError(
+      400,
+      ERROR_CODES.validation,
+      `Import refused: ${refused.length} row${refused.length === 1 ? '' : 's'} cannot be read; nothing was imported.`,
+      {
+        failures,
+        fieldErrors: Object.fromEntries(refused.map((o) => [`line ${o.line}`, o.errors])),
+      },
+    );
   }
   const ids = await auditedTransaction(db, async (trx) => {
     const booking = await openBookingForWrite(trx, actor, bookingId);
     const supplies = await suppliesOf(trx, bookingId);
     const created: number[] = [];
     for (const outcome of outcomes) created.push(await insertRun(trx, actor, booking, outcome.input!, supplies, mail, `line ${outcome.line}.`));
-    await appendAudit(trx, { actorId: actor.id, entity: 'booking', entityId: bookingId, action: 'bench-run.imported', after: { runIds: created, rows: created.length, mapping: body.mapping, fields: CSV_FIELDS.filter((f) => body.mapping[f]) } });
+    await appendAudit(trx, {
+      actorId: actor.id,
+      entity: 'booking',
+      entityId: bookingId,
+      action: 'bench-run.imported',
+      after: { runIds: created, rows: created.length, mapping: body.mapping, fields: CSV_FIELDS.filter((f) => body.mapping[f]) },
+    });
     return created;
   });
   const runs = await runRows(db, bookingId);

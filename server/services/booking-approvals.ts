@@ -26,10 +26,14 @@ export async function decideApproval(
     const row = await lockBooking(trx, id);
     // Nobody approves their own test, whatever their role.
     if (row.person_id === actor.id) throw new ForbiddenError('You cannot decide on your own booking; another officer must.');
-    if (row.status !== 'awaiting-approval') throw new ConflictError(`Only bookings awaiting approval can be decided; this one is ${row.status}.`, ERROR_CODES.notAwaitingApproval);
+    if (row.status !== 'awaiting-approval')
+      throw new ConflictError(`Only bookings awaiting approval can be decided; this one is ${row.status}.`, ERROR_CODES.notAwaitingApproval);
     // The decision binds to the version the officer read, never to whatever is current at the click.
     if (input.planVersion !== undefined && input.planVersion !== row.plan_version) {
-      throw new ConflictError(`The plan changed while you were reviewing it (version ${input.planVersion} → ${row.plan_version}). Read it again before deciding.`, ERROR_CODES.planChanged);
+      throw new ConflictError(
+        `The plan changed while you were reviewing it (version ${input.planVersion} → ${row.plan_version}). Read it again before deciding.`,
+        ERROR_CODES.planChanged,
+      );
     }
     // What the officer approves, recorded as it stands under the locks: release compares it with the booking then.
     const itemIds = (await trx('booking_items').where({ booking_id: id }).select('item_id')).map((r) => r.item_id as number);
@@ -58,7 +62,11 @@ export async function decideApproval(
     });
     const facts = await factsFor(trx, id);
     const note = (input.decision === 'approve' ? input.conditions : input.reason) || null;
-    await enqueueMail(trx, { kind: 'approval-decided', to: facts.personEmail, ...messages.approvalDecided(mail.publicUrl, facts, input.decision, actor.name, note) });
+    await enqueueMail(trx, {
+      kind: 'approval-decided',
+      to: facts.personEmail,
+      ...messages.approvalDecided(mail.publicUrl, facts, input.decision, actor.name, note),
+    });
   });
   return getBooking(db, actor, id);
 }

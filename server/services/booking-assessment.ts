@@ -46,15 +46,31 @@ export async function assessPlan(db: Db, itemIds: number[], plan: TestPlan, pers
 }
 
 /** The booking as an approval records it, from its row (or a change to it) and its items now. */
-export function basisOf(booking: { plan: TestPlan; startsAt: Date; endsAt: Date; location: string; purpose: string }, items: ItemRow[], assessment: Assessment): ApprovalBasis {
+export function basisOf(
+  booking: { plan: TestPlan; startsAt: Date; endsAt: Date; location: string; purpose: string },
+  items: ItemRow[],
+  assessment: Assessment,
+): ApprovalBasis {
   return approvalBasisOf(
-    { plan: booking.plan, startsAt: booking.startsAt.toISOString(), endsAt: booking.endsAt.toISOString(), location: booking.location, purpose: booking.purpose },
+    {
+      plan: booking.plan,
+      startsAt: booking.startsAt.toISOString(),
+      endsAt: booking.endsAt.toISOString(),
+      location: booking.location,
+      purpose: booking.purpose,
+    },
     items.map(toAssessedItem),
     assessment,
   );
 }
 
-export const rowBasisInput = (row: BookingRow) => ({ plan: planOf(row), startsAt: new Date(row.starts_at), endsAt: new Date(row.ends_at), location: row.location, purpose: row.purpose });
+export const rowBasisInput = (row: BookingRow) => ({
+  plan: planOf(row),
+  startsAt: new Date(row.starts_at),
+  endsAt: new Date(row.ends_at),
+  location: row.location,
+  purpose: row.purpose,
+});
 
 /** A plan that needs an officer waits for one; any other is simply requested. */
 export function statusFor(assessment: Assessment): BookingStatus {

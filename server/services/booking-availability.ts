@@ -15,7 +15,13 @@ export async function itemAvailability(db: Db, itemId: number, from: Date, to: D
     .andWhere('bi.ends_at', '>', from)
     .orderBy('bi.starts_at')
     .select('b.id', 'b.status', 'bi.starts_at', 'bi.ends_at', 'p.name as person_name');
-  return rows.map((r) => ({ bookingId: r.id, status: r.status, startsAt: timestampToIso(r.starts_at)!, endsAt: timestampToIso(r.ends_at)!, personName: r.person_name }));
+  return rows.map((r) => ({
+    bookingId: r.id,
+    status: r.status,
+    startsAt: timestampToIso(r.starts_at)!,
+    endsAt: timestampToIso(r.ends_at)!,
+    personName: r.person_name,
+  }));
 }
 
 /** An item's booking history for its page (newest first). */

@@ -54,7 +54,15 @@ export async function replanBookingsHolding(trx: Trx, actor: SessionUser, itemId
     const assessment = await assess(trx, items, planOf(row), row.person_id);
     const status = statusFor(assessment);
     const planVersion = row.plan_version + 1;
-    await trx('bookings').where({ id: bookingId }).update({ status, plan_version: planVersion, assessment: JSON.stringify(assessment), approval_required: assessment.approvalRequired, updated_at: new Date() });
+    await trx('bookings')
+      .where({ id: bookingId })
+      .update({
+        status,
+        plan_version: planVersion,
+        assessment: JSON.stringify(assessment),
+        approval_required: assessment.approvalRequired,
+        updated_at: new Date(),
+      });
     await voidApproval(trx, actor.id, row, planVersion, [`item ${itemId} ratings`]);
     await appendAudit(trx, {
       actorId: actor.id,
@@ -92,7 +100,14 @@ export async function cancelOpenBookingsOf(trx: Trx, actor: SessionUser, personI
     if (!OPEN_STATUSES.includes(row.status)) continue;
     await trx('bookings').where({ id: bookingId }).update({ status: 'cancelled', cancelled_at: new Date(), updated_at: new Date() });
     await trx('booking_items').where({ booking_id: bookingId }).update({ live: false });
-    await appendAudit(trx, { actorId: actor.id, entity: 'booking', entityId: bookingId, action: 'booking.cancelled-on-deactivation', before: { status: row.status }, after: { status: 'cancelled', personId } });
+    await appendAudit(trx, {
+      actorId: actor.id,
+      entity: 'booking',
+      entityId: bookingId,
+      action: 'booking.cancelled-on-deactivation',
+      before: { status: row.status },
+      after: { status: 'cancelled', personId },
+    });
     cancelled.push(bookingId);
   }
   if (cancelled.length > 0) {
@@ -100,7 +115,12 @@ export async function cancelOpenBookingsOf(trx: Trx, actor: SessionUser, personI
     const officers = await trx('people').where({ role: 'officer', active: true }).whereNot('id', personId).select('id', 'email');
     const content = messages.bookingsCancelledOnDeactivation(mail.publicUrl, String(person?.name ?? `Person ${personId}`), cancelled);
     for (const officer of officers) {
-      await enqueueMail(trx, { kind: 'bookings-cancelled', to: officer.email, dedupeKey: `deactivated:${personId}:${cancelled.join('-')}:${officer.id}`, ...content });
+      await enqueueMail(trx, {
+        kind: 'bookings-cancelled',
+        to: officer.email,
+        dedupeKey: `deactivated:${personId}:${cancelled.join('-')}:${officer.id}`,
+        ...content,
+      });
     }
   }
   return cancelled;

@@ -44,13 +44,27 @@ export interface DecisionColumns {
 }
 
 export function decisionsOf(row: DecisionColumns): Decisions {
-  type Stored = { decision: 'approve' | 'refuse'; officerName: string; conditions: string | null; reason: string | null; decidedAtMs: number; voided: number | boolean; planVersion: number; basis: ApprovalBasis | null };
+  type Stored = {
+    decision: 'approve' | 'refuse';
+    officerName: string;
+    conditions: string | null;
+    reason: string | null;
+    decidedAtMs: number;
+    voided: number | boolean;
+    planVersion: number;
+    basis: ApprovalBasis | null;
+  };
   type Run = { planVersion: number; withinLimits: number | boolean; completedAtMs: number; answers: ChecklistAnswerRecord[] | string };
   const a = row.approval_json === null ? null : json<Stored>(row.approval_json);
   const run = (value: unknown): StoredRun | null => {
     if (value === null || value === undefined) return null;
     const r = json<Run>(value);
-    return { planVersion: r.planVersion, withinLimits: Boolean(r.withinLimits), completedAt: new Date(Number(r.completedAtMs)).toISOString(), answers: json<ChecklistAnswerRecord[]>(r.answers) };
+    return {
+      planVersion: r.planVersion,
+      withinLimits: Boolean(r.withinLimits),
+      completedAt: new Date(Number(r.completedAtMs)).toISOString(),
+      answers: json<ChecklistAnswerRecord[]>(r.answers),
+    };
   };
   return {
     approval: a && {
@@ -74,4 +88,5 @@ export async function decisionsInTransaction(trx: Trx, id: number): Promise<Deci
 }
 
 /** An approval counts for the view while it is an approval of the current plan version that nothing voided. */
-export const approvalHolds = (approval: Decisions['approval'], planVersion: number) => Boolean(approval && approval.decision === 'approve' && !approval.voided && approval.planVersion === planVersion);
+export const approvalHolds = (approval: Decisions['approval'], planVersion: number) =>
+  Boolean(approval && approval.decision === 'approve' && !approval.voided && approval.planVersion === planVersion);

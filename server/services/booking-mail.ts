@@ -17,7 +17,10 @@ export interface BookingMailFacts extends BookingFacts {
 /** The mail facts of these bookings, by id. The tags come from the booking row's own copy (bookings.item_tags). */
 export async function bookingFacts(q: Db | Trx, ids: readonly number[]): Promise<Map<number, BookingMailFacts>> {
   if (ids.length === 0) return new Map();
-  const rows = await q('bookings as b').join('people as p', 'p.id', 'b.person_id').whereIn('b.id', [...ids]).select('b.id', 'b.person_id', 'b.ends_at', 'b.planned_kv', 'b.purpose', 'b.item_tags', 'p.name', 'p.email');
+  const rows = await q('bookings as b')
+    .join('people as p', 'p.id', 'b.person_id')
+    .whereIn('b.id', [...ids])
+    .select('b.id', 'b.person_id', 'b.ends_at', 'b.planned_kv', 'b.purpose', 'b.item_tags', 'p.name', 'p.email');
   return new Map(
     rows.map((r) => [
       r.id as number,
@@ -45,8 +48,17 @@ export async function factsFor(q: Db | Trx, bookingId: number): Promise<BookingM
 export async function notifyOfficers(trx: Trx, bookingId: number, planVersion: number, assessment: Assessment, mail: MailContext): Promise<void> {
   const facts = await factsFor(trx, bookingId);
   const officers = await trx('people').where({ role: 'officer', active: true }).whereNot('id', facts.personId).select('id', 'email');
-  const content = messages.approvalRequested(mail.publicUrl, facts, assessment.approvalReasons.map((r) => r.message));
+  const content = messages.approvalRequested(
+    mail.publicUrl,
+    facts,
+    assessment.approvalReasons.map((r) => r.message),
+  );
   for (const officer of officers) {
-    await enqueueMail(trx, { kind: 'approval-requested', to: officer.email, dedupeKey: `approval-requested:${bookingId}:${planVersion}:${officer.id}`, ...content });
+    await enqueueMail(trx, {
+      kind: 'approval-requested',
+      to: officer.email,
+      dedupeKey: `approval-requested:${bookingId}:${planVersion}:${officer.id}`,
+      ...content,
+    });
   }
 }

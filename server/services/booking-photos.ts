@@ -15,7 +15,8 @@ import { describeFile, insertFileRow, storeThenRecord } from './files';
 
 /** Checklists are answered while a booking is live: before release (pre) and while out (make-safe). */
 function assertTakesPhotos(row: Pick<BookingRow, 'status'>): void {
-  if (!LIVE_STATUSES.includes(row.status)) throw new ConflictError(`Checklist photos are for live bookings; this booking is ${row.status}.`, ERROR_CODES.bookingLocked);
+  if (!LIVE_STATUSES.includes(row.status))
+    throw new ConflictError(`Checklist photos are for live bookings; this booking is ${row.status}.`, ERROR_CODES.bookingLocked);
 }
 
 export type UploadCaps = Config['uploadCaps'];
@@ -29,16 +30,36 @@ const capReached = (message: string) => new AppError(413, ERROR_CODES.uploadCapR
  * PERSON_UPLOADS_PER_DAY, PERSON_UPLOAD_MB_PER_DAY).
  */
 async function assertWithinCaps(q: Db | Trx, caps: UploadCaps, actor: SessionUser, bookingId: number, sizeBytes: number): Promise<void> {
-  const booking = (await q('item_files').where({ booking_id: bookingId }).first(q.raw('COUNT(*) AS n'), q.raw('COALESCE(SUM(size_bytes), 0) AS bytes'))) as { n: number; bytes: number };
-  if (Number(booking.n) + 1 > caps.bookingFiles) throw capReached(`This booking already has ${booking.n} photos, the most one booking keeps (${caps.bookingFiles}).`);
-  if (Number(booking.bytes) + sizeBytes > caps.bookingBytes) throw capReached(`This photo would take the booking's photos past ${mb(caps.bookingBytes)} (${mb(Number(booking.bytes))} so far). Send a smaller photo.`);
+  const booking = (await q('item_files').where({ booking_id: bookingId }).first(q.raw('COUNT(*) AS n'), q.raw('COALESCE(SUM(size_bytes), 0) AS bytes'))) as {
+    n: number;
+    bytes: number;
+  };
+  if (Number(booking.n) + 1 > caps.bookingFiles)
+    throw capReached(`This booking already has ${booking.n} photos, the most one booking keeps (${caps.bookingFiles}).`);
+  if (Number(booking.bytes) + sizeBytes > caps.bookingBytes)
+    throw capReached(`This photo would take the booking's photos past ${mb(caps.bookingBytes)} (${mb(Number(booking.bytes))} so far). Send a smaller photo.`);
   const since = new Date(Date.now() - 24 * 3600_000);
-  const person = (await q('item_files').where({ uploaded_by: actor.id }).whereNotNull('booking_id').andWhere('created_at', '>', since).first(q.raw('COUNT(*) AS n'), q.raw('COALESCE(SUM(size_bytes), 0) AS bytes'))) as { n: number; bytes: number };
-  if (Number(person.n) + 1 > caps.personFilesPerDay) throw capReached(`You have sent ${person.n} booking photos in the last 24 hours, the most one person may (${caps.personFilesPerDay}). Try again later.`);
-  if (Number(person.bytes) + sizeBytes > caps.personBytesPerDay) throw capReached(`This photo would take your booking photos of the last 24 hours past ${mb(caps.personBytesPerDay)} (${mb(Number(person.bytes))} so far). Try again later or send a smaller photo.`);
+  const person = (await q('item_files')
+    .where({ uploaded_by: actor.id })
+    .whereNotNull('booking_id')
+    .andWhere('created_at', '>', since)
+    .first(q.raw('COUNT(*) AS n'), q.raw('COALESCE(SUM(size_bytes), 0) AS bytes'))) as { n: number; bytes: number };
+  if (Number(person.n) + 1 > caps.personFilesPerDay)
+    throw capReached(`You have sent ${person.n} booking photos in the last 24 hours, the most one person may (${caps.personFilesPerDay}). Try again later.`);
+  if (Number(person.bytes) + sizeBytes > caps.personBytesPerDay)
+    throw capReached(
+      `This photo would take your booking photos of the last 24 hours past ${mb(caps.personBytesPerDay)} (${mb(Number(person.bytes))} so far). Try again later or send a smaller photo.`,
+    );
 }
 
-export async function storeBookingPhoto(db: Db, store: ObjectStore, actor: SessionUser, bookingId: number, upload: { originalName: string; buffer: Buffer }, caps: UploadCaps): Promise<BookingPhoto> {
+export async function storeBookingPhoto(
+  db: Db,
+  store: ObjectStore,
+  actor: SessionUser,
+  bookingId: number,
+  upload: { originalName: string; buffer: Buffer },
+  caps: UploadCaps,
+): Promise<BookingPhoto> {
   const file = await checkUpload(upload, ['photo']);
   // Checked before the object is stored, so a refused request stores nothing; checked again under
   // the booking's lock, since it may have been cancelled or returned meanwhile.
@@ -63,7 +84,19 @@ export async function storeBookingPhoto(db: Db, store: ObjectStore, actor: Sessi
       action: 'booking.photo-added',
       after: { fileId: id, fileName: file.fileName, contentType: file.contentType, sizeBytes: file.sizeBytes, sha256: file.sha256 },
     });
-    return { ...describeFile({ id, kind: 'photo', file_name: file.fileName, content_type: file.contentType, size_bytes: file.sizeBytes, created_at: new Date(), uploaded_by_name: actor.name }), kind: 'photo', bookingId };
+    return {
+      ...describeFile({
+        id,
+        kind: 'photo',
+        file_name: file.fileName,
+        content_type: file.contentType,
+        size_bytes: file.sizeBytes,
+        created_at: new Date(),
+        uploaded_by_name: actor.name,
+      }),
+      kind: 'photo',
+      bookingId,
+    };
   });
 }
 

@@ -27,7 +27,14 @@ function assertWindow(startsAt: Date, endsAt: Date): void {
 export async function voidApproval(trx: Trx, actorId: number, row: BookingRow, planVersion: number, changes: string[]): Promise<void> {
   const voided = await trx('approvals').where({ booking_id: row.id }).whereNull('voided_at').update({ voided_at: new Date() });
   if (voided === 0) return;
-  await appendAudit(trx, { actorId, entity: 'booking', entityId: row.id, action: 'approval.voided', before: { status: row.status, planVersion: row.plan_version }, after: { planVersion, changes } });
+  await appendAudit(trx, {
+    actorId,
+    entity: 'booking',
+    entityId: row.id,
+    action: 'approval.voided',
+    before: { status: row.status, planVersion: row.plan_version },
+    after: { planVersion, changes },
+  });
 }
 
 export async function createBooking(db: Db, actor: SessionUser, input: BookingCreateInput, mail: MailContext): Promise<Booking> {
@@ -69,7 +76,16 @@ export async function createBooking(db: Db, actor: SessionUser, input: BookingCr
       entity: 'booking',
       entityId: bookingId,
       action: 'booking.created',
-      after: { status: record.status, itemIds: items.map((i) => i.id), startsAt: input.startsAt, endsAt: input.endsAt, location: input.location, purpose: input.purpose, plan: input.plan, approvalReasons: assessment.approvalReasons.map((r) => r.code) },
+      after: {
+        status: record.status,
+        itemIds: items.map((i) => i.id),
+        startsAt: input.startsAt,
+        endsAt: input.endsAt,
+        location: input.location,
+        purpose: input.purpose,
+        plan: input.plan,
+        approvalReasons: assessment.approvalReasons.map((r) => r.code),
+      },
     });
     if (record.status === 'awaiting-approval') await notifyOfficers(trx, bookingId, 1, assessment, mail);
     return bookingId;
@@ -107,24 +123,32 @@ export async function updateBooking(db: Db, actor: SessionUser, id: number, inpu
     const assessment = await assess(trx, items, plan, row.person_id);
     const status = bumps || row.status === 'refused' ? statusFor(assessment) : row.status;
     const planVersion = bumps ? row.plan_version + 1 : row.plan_version;
-    await trx('bookings').where({ id }).update({
-      status,
-      starts_at: startsAt,
-      ends_at: endsAt,
-      location,
-      purpose,
-      planned_kv: plan.plannedKv,
-      polarity: plan.polarity,
-      max_current_ma: plan.maxCurrentMa,
-      people_present: plan.peoplePresent,
-      plan_version: planVersion,
-      assessment: JSON.stringify(assessment),
-      approval_required: assessment.approvalRequired,
-      item_tags: bookingItemTags(items),
-      updated_at: new Date(),
-    });
+    await trx('bookings')
+      .where({ id })
+      .update({
+        status,
+        starts_at: startsAt,
+        ends_at: endsAt,
+        location,
+        purpose,
+        planned_kv: plan.plannedKv,
+        polarity: plan.polarity,
+        max_current_ma: plan.maxCurrentMa,
+        people_present: plan.peoplePresent,
+        plan_version: planVersion,
+        assessment: JSON.stringify(assessment),
+        approval_required: assessment.approvalRequired,
+        item_tags: bookingItemTags(items),
+        updated_at: new Date(),
+      });
     if (bumps) {
-      const changes = [itemsChanged && 'items', windowChanged && 'window', planChanged && 'plan', location !== row.location && 'location', purpose !== row.purpose && 'purpose'].filter((c): c is string => Boolean(c));
+      const changes = [
+        itemsChanged && 'items',
+        windowChanged && 'window',
+        planChanged && 'plan',
+        location !== row.location && 'location',
+        purpose !== row.purpose && 'purpose',
+      ].filter((c): c is string => Boolean(c));
       await voidApproval(trx, actor.id, row, planVersion, changes);
       await trx('booking_scans').where({ booking_id: id }).whereNotIn('item_id', itemIds).delete();
     }
@@ -137,7 +161,16 @@ export async function updateBooking(db: Db, actor: SessionUser, id: number, inpu
       entity: 'booking',
       entityId: id,
       action: bumps ? 'booking.plan-changed' : 'booking.updated',
-      before: { status: row.status, planVersion: row.plan_version, itemIds: currentItems, startsAt: row.starts_at, endsAt: row.ends_at, plan: planOf(row), location: row.location, purpose: row.purpose },
+      before: {
+        status: row.status,
+        planVersion: row.plan_version,
+        itemIds: currentItems,
+        startsAt: row.starts_at,
+        endsAt: row.ends_at,
+        plan: planOf(row),
+        location: row.location,
+        purpose: row.purpose,
+      },
       after: { status, planVersion, itemIds, startsAt, endsAt, plan, location, purpose },
     });
     if (status === 'awaiting-approval' && (bumps || row.status === 'refused')) await notifyOfficers(trx, id, planVersion, assessment, mail);
@@ -153,7 +186,14 @@ export async function cancelBooking(db: Db, actor: SessionUser, id: number): Pro
     if (!OPEN_STATUSES.includes(row.status)) throw new ConflictError(`A ${row.status} booking cannot be cancelled.`, ERROR_CODES.bookingLocked);
     await trx('bookings').where({ id }).update({ status: 'cancelled', cancelled_at: new Date(), updated_at: new Date() });
     await trx('booking_items').where({ booking_id: id }).update({ live: false });
-    await appendAudit(trx, { actorId: actor.id, entity: 'booking', entityId: id, action: 'booking.cancelled', before: { status: row.status }, after: { status: 'cancelled' } });
+    await appendAudit(trx, {
+      actorId: actor.id,
+      entity: 'booking',
+      entityId: id,
+      action: 'booking.cancelled',
+      before: { status: row.status },
+      after: { status: 'cancelled' },
+    });
   });
   return getBooking(db, actor, id);
 }

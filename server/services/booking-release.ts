@@ -62,7 +62,15 @@ export async function previewRelease(db: Db, actor: SessionUser, id: number, now
   const row = await db<BookingRow>('bookings').where({ id }).first();
   if (!row || !canSeeBooking(actor, row)) throw new NotFoundError(`No booking with id ${id}.`);
   const itemIds = (await db('booking_items').where({ booking_id: id }).pluck('item_id')) as number[];
-  const { failures, opensAt } = await releaseCheck(db, row, await loadItems(db, [...itemIds].sort((a, b) => a - b)), now);
+  const { failures, opensAt } = await releaseCheck(
+    db,
+    row,
+    await loadItems(
+      db,
+      [...itemIds].sort((a, b) => a - b),
+    ),
+    now,
+  );
   return { failures, opensAt: opensAt.toISOString(), checkedAt: now.toISOString() };
 }
 
@@ -78,8 +86,17 @@ export async function releaseBooking(db: Db, actor: SessionUser, id: number, now
     if (failures.length > 0) {
       throw new ConflictError(`Release refused: ${failures.length} rule${failures.length === 1 ? '' : 's'} not met.`, ERROR_CODES.releaseRefused, failures);
     }
-    const approvedBy = approval && approvalStanding(approval, row.plan_version, basis).current ? { officer: approval.officerName, conditions: approval.conditions } : null;
-    await trx('bookings').where({ id }).update({ status: 'released', released_at: now, assessment: JSON.stringify(assessment), approval_required: assessment.approvalRequired, updated_at: new Date() });
+    const approvedBy =
+      approval && approvalStanding(approval, row.plan_version, basis).current ? { officer: approval.officerName, conditions: approval.conditions } : null;
+    await trx('bookings')
+      .where({ id })
+      .update({
+        status: 'released',
+        released_at: now,
+        assessment: JSON.stringify(assessment),
+        approval_required: assessment.approvalRequired,
+        updated_at: new Date(),
+      });
     await appendAudit(trx, {
       actorId: actor.id,
       entity: 'booking',

@@ -25,7 +25,6 @@ export interface BookingRow {
   updated_at: Date;
 }
 
-
 /** mysql2 returns MariaDB JSON columns already parsed, sometimes as text: accept both. */
 export const json = <T>(value: unknown): T => (typeof value === 'string' ? JSON.parse(value) : value) as T;
 

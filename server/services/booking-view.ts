@@ -34,7 +34,10 @@ function bookingView(row: ViewRow, templates: readonly TemplateRow[], rules: Lab
   const plan = planOf(row);
   const itemRows = row.items_json === null ? [] : json<BookedItem[]>(row.items_json);
   const kinds = [...new Set(itemRows.map((i) => i.kind as string))];
-  const checklist = { pre: applicableEntries(templates, 'pre', plan.plannedKv, kinds, rules), return: applicableEntries(templates, 'return', plan.plannedKv, kinds, rules) };
+  const checklist = {
+    pre: applicableEntries(templates, 'pre', plan.plannedKv, kinds, rules),
+    return: applicableEntries(templates, 'return', plan.plannedKv, kinds, rules),
+  };
   const runState = (phase: 'pre' | 'return') => {
     const run = runs[phase];
     if (!run) return null;
@@ -84,7 +87,10 @@ function bookingView(row: ViewRow, templates: readonly TemplateRow[], rules: Lab
 /** A booking as its page shows it: one query, whatever it holds (checklist lines and lab rules are shared reads). */
 export async function getBooking(db: Db, actor: SessionUser, id: number): Promise<Booking> {
   const [row, templates, rules] = await Promise.all([
-    db('bookings as b').join('people as p', 'p.id', 'b.person_id').where('b.id', id).first('b.*', 'p.name as person_name', 'p.active as person_active', db.raw(DECISIONS_SQL), db.raw(ITEMS_SQL)) as Promise<ViewRow | undefined>,
+    db('bookings as b')
+      .join('people as p', 'p.id', 'b.person_id')
+      .where('b.id', id)
+      .first('b.*', 'p.name as person_name', 'p.active as person_active', db.raw(DECISIONS_SQL), db.raw(ITEMS_SQL)) as Promise<ViewRow | undefined>,
     activeTemplates(db),
     getLabRulesState(db),
   ]);
@@ -102,7 +108,19 @@ export async function listBookings(
   const builder = db('bookings as b')
     .join('people as p', 'p.id', 'b.person_id')
     // item_tags is kept on the booking row (see bookingItemTags), so a page is one index range.
-    .select('b.id', 'b.person_id', 'b.status', 'b.starts_at', 'b.ends_at', 'b.location', 'b.purpose', 'b.planned_kv', 'b.approval_required', 'b.item_tags', 'p.name as person_name');
+    .select(
+      'b.id',
+      'b.person_id',
+      'b.status',
+      'b.starts_at',
+      'b.ends_at',
+      'b.location',
+      'b.purpose',
+      'b.planned_kv',
+      'b.approval_required',
+      'b.item_tags',
+      'p.name as person_name',
+    );
   if (mine) builder.where('b.person_id', actor.id);
   if (query.status === 'overdue') builder.where('b.status', 'released').andWhere('b.ends_at', '<', new Date());
   else if (query.status === 'live') builder.whereIn('b.status', LIVE_STATUSES);

@@ -37,7 +37,11 @@ interface FeedRow {
   inspections: number | boolean;
 }
 
-const scopesOf = (row: FeedRow): CalendarFeedScopes => ({ approvals: Boolean(row.approvals), labBookings: Boolean(row.lab_bookings), inspections: Boolean(row.inspections) });
+const scopesOf = (row: FeedRow): CalendarFeedScopes => ({
+  approvals: Boolean(row.approvals),
+  labBookings: Boolean(row.lab_bookings),
+  inspections: Boolean(row.inspections),
+});
 
 export async function describeFeed(db: Db, config: FeedConfig, actor: SessionUser): Promise<{ url: string | null; scopes: CalendarFeedScopes | null }> {
   const row = await db<FeedRow>('calendar_feeds').where({ person_id: actor.id }).first();
@@ -50,21 +54,40 @@ export async function describeFeed(db: Db, config: FeedConfig, actor: SessionUse
 
 /** Officers may add the approval queue and all lab bookings; managers the inspections due. */
 function assertScopesAllowed(actor: SessionUser, scopes: CalendarFeedScopes): void {
-  if ((scopes.approvals || scopes.labBookings) && actor.role !== 'officer') throw new ForbiddenError('Only safety officers can add the approval queue or all lab bookings to their feed.');
+  if ((scopes.approvals || scopes.labBookings) && actor.role !== 'officer')
+    throw new ForbiddenError('Only safety officers can add the approval queue or all lab bookings to their feed.');
   if (scopes.inspections && actor.role !== 'manager') throw new ForbiddenError('Only lab managers can add inspections due to their feed.');
 }
 
 /** Turns the feed on, or gives it a new address (the old one stops working at once). */
-export async function createOrRotateFeed(db: Db, config: FeedConfig, actor: SessionUser, scopes: CalendarFeedScopes): Promise<{ url: string; scopes: CalendarFeedScopes }> {
+export async function createOrRotateFeed(
+  db: Db,
+  config: FeedConfig,
+  actor: SessionUser,
+  scopes: CalendarFeedScopes,
+): Promise<{ url: string; scopes: CalendarFeedScopes }> {
   assertScopesAllowed(actor, scopes);
   const nonce = randomBytes(16).toString('hex');
   const token = tokenOf(config, nonce);
   await auditedTransaction(db, async (trx) => {
     const existing = await trx('calendar_feeds').where({ person_id: actor.id }).forUpdate().first('person_id');
-    const row = { token_hash: hashToken(token), nonce, approvals: scopes.approvals, lab_bookings: scopes.labBookings, inspections: scopes.inspections, created_at: new Date() };
+    const row = {
+      token_hash: hashToken(token),
+      nonce,
+      approvals: scopes.approvals,
+      lab_bookings: scopes.labBookings,
+      inspections: scopes.inspections,
+      created_at: new Date(),
+    };
     if (existing) await trx('calendar_feeds').where({ person_id: actor.id }).update(row);
     else await trx('calendar_feeds').insert({ person_id: actor.id, ...row });
-    await appendAudit(trx, { actorId: actor.id, entity: 'person', entityId: actor.id, action: existing ? 'calendar-feed.rotated' : 'calendar-feed.created', after: { scopes } });
+    await appendAudit(trx, {
+      actorId: actor.id,
+      entity: 'person',
+      entityId: actor.id,
+      action: existing ? 'calendar-feed.rotated' : 'calendar-feed.created',
+      after: { scopes },
+    });
   });
   return { url: feedUrl(config, token), scopes };
 }
@@ -123,7 +146,11 @@ const PAST_DAYS = 90;
 /** The feed's text, or null when the token opens no feed (the route answers 404 either way). */
 export async function feedText(db: Db, config: FeedConfig, token: string, now = new Date()): Promise<string | null> {
   if (!TOKEN_PATTERN.test(token)) return null;
-  const feed = await db('calendar_feeds as f').join('people as p', 'p.id', 'f.person_id').where('f.token_hash', hashToken(token)).andWhere('p.active', true).first('f.*', 'p.id as pid', 'p.name', 'p.role');
+  const feed = await db('calendar_feeds as f')
+    .join('people as p', 'p.id', 'f.person_id')
+    .where('f.token_hash', hashToken(token))
+    .andWhere('p.active', true)
+    .first('f.*', 'p.id as pid', 'p.name', 'p.role');
   if (!feed) return null;
   const role = feed.role as SessionUser['role'];
   // Scopes are honoured only while the role still allows them.
@@ -133,7 +160,12 @@ export async function feedText(db: Db, config: FeedConfig, token: string, now = 
 
   const host = new URL(config.publicUrl).host;
   const since = new Date(now.getTime() - PAST_DAYS * 24 * 3600_000);
-  const cal = ical({ name: `Voltcrib — ${feed.name}`, prodId: { company: 'Voltcrib', product: 'Voltcrib', language: 'EN' }, method: ICalCalendarMethod.PUBLISH, ttl: 15 * 60 });
+  const cal = ical({
+    name: `Voltcrib — ${feed.name}`,
+    prodId: { company: 'Voltcrib', product: 'Voltcrib', language: 'EN' },
+    method: ICalCalendarMethod.PUBLISH,
+    ttl: 15 * 60,
+  });
 
   const query = db('bookings as b').join('people as p', 'p.id', 'b.person_id').where('b.ends_at', '>', since);
   if (!labBookings) {
@@ -145,7 +177,20 @@ export async function feedText(db: Db, config: FeedConfig, token: string, now = 
   const bookings = (await query
     .orderBy('b.starts_at')
     .limit(2000)
-    .select('b.id', 'b.person_id', 'p.name as person_name', 'b.status', 'b.starts_at', 'b.ends_at', 'b.location', 'b.purpose', 'b.planned_kv', 'b.item_tags', 'b.created_at', 'b.updated_at')) as BookingEventRow[];
+    .select(
+      'b.id',
+      'b.person_id',
+      'p.name as person_name',
+      'b.status',
+      'b.starts_at',
+      'b.ends_at',
+      'b.location',
+      'b.purpose',
+      'b.planned_kv',
+      'b.item_tags',
+      'b.created_at',
+      'b.updated_at',
+    )) as BookingEventRow[];
 
   for (const b of bookings) {
     const tags = JSON.parse(b.item_tags) as string[];
@@ -162,7 +207,12 @@ export async function feedText(db: Db, config: FeedConfig, token: string, now = 
       stamp: new Date(b.updated_at),
       summary: `${waiting}${tags.join(', ')} at ${kv} kV${who}`,
       location: b.location,
-      description: [`Booking #${b.id}: ${b.purpose}`, `Planned ${kv} kV`, `Status: ${STATUS_WORDS[b.status] ?? b.status}`, `${config.publicUrl}/bookings/${b.id}`].join('\n'),
+      description: [
+        `Booking #${b.id}: ${b.purpose}`,
+        `Planned ${kv} kV`,
+        `Status: ${STATUS_WORDS[b.status] ?? b.status}`,
+        `${config.publicUrl}/bookings/${b.id}`,
+      ].join('\n'),
       url: `${config.publicUrl}/bookings/${b.id}`,
       status: eventStatus(b.status),
     });

@@ -25,9 +25,12 @@ export interface TemplateRow {
   active: boolean;
 }
 
-const templates = sharedRead(
-  async (db): Promise<readonly TemplateRow[]> =>
-    Object.freeze(await db<TemplateRow>('checklist_templates').where({ active: true }).orderBy([{ column: 'phase' }, { column: 'position' }, { column: 'id' }])),
+const templates = sharedRead(async (db): Promise<readonly TemplateRow[]> =>
+  Object.freeze(
+    await db<TemplateRow>('checklist_templates')
+      .where({ active: true })
+      .orderBy([{ column: 'phase' }, { column: 'position' }, { column: 'id' }]),
+  ),
 );
 
 /** Inside a transaction, the rows themselves; otherwise a copy at most a few seconds old (shared-read.ts). */
@@ -35,7 +38,13 @@ export function activeTemplates(db: Db | Trx): Promise<readonly TemplateRow[]> {
   return templates.read(db);
 }
 
-export function applicableEntries(templates: readonly TemplateRow[], phase: 'pre' | 'return', plannedKv: number, kinds: string[], rules: LabRules): ChecklistEntry[] {
+export function applicableEntries(
+  templates: readonly TemplateRow[],
+  phase: 'pre' | 'return',
+  plannedKv: number,
+  kinds: string[],
+  rules: LabRules,
+): ChecklistEntry[] {
   return templates
     .filter((t) => t.phase === phase)
     .filter((t) => t.applies_from_kv === null || plannedKv >= Number(t.applies_from_kv))
@@ -61,7 +70,11 @@ export interface EvaluatedRun {
  * photo that is not in `bookingPhotoIds` (the ids among the answers that are photos of this
  * booking): a made-up id, another booking's photo or an item's file is no evidence for this one.
  */
-export function evaluateAnswers(entries: ChecklistEntry[], answers: ChecklistSubmitInput['answers'], bookingPhotoIds: ReadonlySet<number> = new Set()): EvaluatedRun {
+export function evaluateAnswers(
+  entries: ChecklistEntry[],
+  answers: ChecklistSubmitInput['answers'],
+  bookingPhotoIds: ReadonlySet<number> = new Set(),
+): EvaluatedRun {
   const byId = new Map(entries.map((e) => [e.id, e]));
   const fieldErrors: Record<string, string[]> = {};
   const seen = new Set<number>();
@@ -91,7 +104,19 @@ export function evaluateAnswers(entries: ChecklistEntry[], answers: ChecklistSub
       (fieldErrors[key] ??= []).push('That photo was not taken for this booking: attach the photo again.');
     }
     if (entry.kind !== 'photo' && answer?.fileId !== undefined) (fieldErrors[key] ??= []).push('This line takes no photo.');
-    snapshot.push({ id: entry.id, text: entry.text, kind: entry.kind, unit: entry.unit, min: entry.min, max: entry.max, required: entry.required, confirmed: answer?.confirmed, value: answer?.value, fileId: answer?.fileId, withinLimits: inside });
+    snapshot.push({
+      id: entry.id,
+      text: entry.text,
+      kind: entry.kind,
+      unit: entry.unit,
+      min: entry.min,
+      max: entry.max,
+      required: entry.required,
+      confirmed: answer?.confirmed,
+      value: answer?.value,
+      fileId: answer?.fileId,
+      withinLimits: inside,
+    });
   }
   if (Object.keys(fieldErrors).length > 0) throw new ValidationError('The checklist is not complete.', fieldErrors);
   return { complete: true, withinLimits, snapshot };
@@ -150,8 +175,17 @@ export async function replaceTemplate(db: Db, actor: SessionUser, id: number, bo
   const replaced = await auditedTransaction(db, async (trx) => {
     const before = await trx<TemplateRow>('checklist_templates').where({ id, active: true }).forUpdate().first();
     if (!before) throw new NotFoundError(`No checklist line with id ${id}.`);
-    await trx('checklist_templates').where({ id }).update({ ...toColumns(input), updated_at: new Date() });
-    await appendAudit(trx, { actorId: actor.id, entity: 'checklist-template', entityId: id, action: 'checklist-template.updated', before: toTemplate(before), after: input });
+    await trx('checklist_templates')
+      .where({ id })
+      .update({ ...toColumns(input), updated_at: new Date() });
+    await appendAudit(trx, {
+      actorId: actor.id,
+      entity: 'checklist-template',
+      entityId: id,
+      action: 'checklist-template.updated',
+      before: toTemplate(before),
+      after: input,
+    });
     return toTemplate((await trx<TemplateRow>('checklist_templates').where({ id }).first())!);
   });
   templates.forget(db);

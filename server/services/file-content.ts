@@ -50,7 +50,8 @@ const refused = () => new ValidationError('The file name is not acceptable: use 
  */
 export function storedFileName(name: string, contentType: string): string {
   const cleaned = name.toWellFormed().normalize('NFC').replace(INVISIBLE, '').trim();
-  if (cleaned.length === 0 || cleaned.length > 200 || /[\\/]/.test(cleaned) || cleaned.includes('..') || cleaned.split('.').every((p) => p === '')) throw refused();
+  if (cleaned.length === 0 || cleaned.length > 200 || /[\\/]/.test(cleaned) || cleaned.includes('..') || cleaned.split('.').every((p) => p === ''))
+    throw refused();
   const dot = cleaned.lastIndexOf('.');
   const extension = dot >= 0 ? cleaned.slice(dot + 1) : '';
   const { canonical, aliases } = EXTENSIONS[contentType] ?? { canonical: 'bin', aliases: [] };

@@ -45,7 +45,14 @@ export function describeFile(row: Pick<FileRow, 'id' | 'kind' | 'file_name' | 'c
 }
 
 /** Writes the file's row for its owner and returns its id. */
-export async function insertFileRow(trx: Trx, owner: FileOwner, file: CheckedFile, storageKey: string, actor: SessionUser, kind: FileKind = file.kind): Promise<number> {
+export async function insertFileRow(
+  trx: Trx,
+  owner: FileOwner,
+  file: CheckedFile,
+  storageKey: string,
+  actor: SessionUser,
+  kind: FileKind = file.kind,
+): Promise<number> {
   const [id] = (await trx('item_files')
     .insert({
       ...owner,
@@ -60,7 +67,8 @@ export async function insertFileRow(trx: Trx, owner: FileOwner, file: CheckedFil
     .catch((error: unknown) => {
       // The stored name is the sent one with the extension its bytes show, which can make a
       // name that passed the 200-character check longer than the column (item_files.file_name).
-      if (isDataTooLong(error)) throw new ValidationError('The file name is too long; rename the file (at most 200 characters) and send it again.', { file: ['Name too long'] });
+      if (isDataTooLong(error))
+        throw new ValidationError('The file name is too long; rename the file (at most 200 characters) and send it again.', { file: ['Name too long'] });
       throw error;
     })) as [number];
   return id;
@@ -71,7 +79,13 @@ export async function insertFileRow(trx: Trx, owner: FileOwner, file: CheckedFil
  * checks and the audit entry) in one audited transaction. If anything in it fails, the object is
  * removed again. An object store outage fails the put with a 503 before any row exists.
  */
-export async function storeThenRecord<T>(db: Db, store: ObjectStore, keyPrefix: string, file: CheckedFile, record: (trx: Trx, storageKey: string) => Promise<T>): Promise<T> {
+export async function storeThenRecord<T>(
+  db: Db,
+  store: ObjectStore,
+  keyPrefix: string,
+  file: CheckedFile,
+  record: (trx: Trx, storageKey: string) => Promise<T>,
+): Promise<T> {
   const key = `${keyPrefix}/${randomUUID()}`;
   await store.put(key, file.buffer, file.contentType);
   try {
@@ -106,8 +120,25 @@ export async function storeItemFile(
   return storeThenRecord(db, store, `items/${itemId}`, file, async (trx, key) => {
     const id = await insertFileRow(trx, { item_id: itemId }, file, key, actor, kind);
     if (kind === 'photo') await trx('items').where({ id: itemId }).update({ photo_file_id: id, updated_at: new Date() });
-    await appendAudit(trx, { actorId: actor.id, entity: 'item', entityId: itemId, action: 'item.file-added', after: { fileId: id, kind, fileName: file.fileName, contentType: file.contentType, sizeBytes: file.sizeBytes, sha256: file.sha256 } });
-    return toItemFile({ id, item_id: itemId, booking_id: null, kind, file_name: file.fileName, content_type: file.contentType, size_bytes: file.sizeBytes, storage_key: key, created_at: new Date(), uploaded_by_name: actor.name });
+    await appendAudit(trx, {
+      actorId: actor.id,
+      entity: 'item',
+      entityId: itemId,
+      action: 'item.file-added',
+      after: { fileId: id, kind, fileName: file.fileName, contentType: file.contentType, sizeBytes: file.sizeBytes, sha256: file.sha256 },
+    });
+    return toItemFile({
+      id,
+      item_id: itemId,
+      booking_id: null,
+      kind,
+      file_name: file.fileName,
+      content_type: file.contentType,
+      size_bytes: file.sizeBytes,
+      storage_key: key,
+      created_at: new Date(),
+      uploaded_by_name: actor.name,
+    });
   });
 }
 
@@ -127,10 +158,16 @@ export async function listItemFiles(db: Db, itemId: number): Promise<ItemFile[]>
  * A file's description and bytes. An item's files are for everyone signed in; a booking's photos
  * only for those who may see the booking (the booker and staff): to anyone else they do not exist.
  */
-export async function readFile(db: Db, store: ObjectStore, actor: SessionUser, fileId: number): Promise<{ file: ReturnType<typeof describeFile>; body: Buffer }> {
-  const row = (await db('item_files as f').leftJoin('bookings as b', 'b.id', 'f.booking_id').where('f.id', fileId).first('f.*', 'b.person_id as booking_person_id')) as
-    | (FileRow & { booking_person_id: number | null; incident_id: number | null })
-    | undefined;
+export async function readFile(
+  db: Db,
+  store: ObjectStore,
+  actor: SessionUser,
+  fileId: number,
+): Promise<{ file: ReturnType<typeof describeFile>; body: Buffer }> {
+  const row = (await db('item_files as f')
+    .leftJoin('bookings as b', 'b.id', 'f.booking_id')
+    .where('f.id', fileId)
+    .first('f.*', 'b.person_id as booking_person_id')) as (FileRow & { booking_person_id: number | null; incident_id: number | null }) | undefined;
   if (!row) throw new NotFoundError(`No file with id ${fileId}.`);
   if (row.booking_id !== null && !canSeeBooking(actor, { person_id: row.booking_person_id! })) throw new NotFoundError(`No file with id ${fileId}.`);
   if (row.incident_id !== null && !(await canSeeIncident(db, actor, row.incident_id))) throw new NotFoundError(`No file with id ${fileId}.`);

@@ -77,7 +77,11 @@ function baseQuery(db: Db | Trx) {
 async function itemsOf(db: Db | Trx, incidentIds: number[]): Promise<Map<number, Incident['items']>> {
   const map = new Map<number, Incident['items']>();
   if (incidentIds.length === 0) return map;
-  const rows = await db('incident_items as ii').join('items as it', 'it.id', 'ii.item_id').whereIn('ii.incident_id', incidentIds).orderBy('it.tag').select('ii.incident_id', 'it.id', 'it.tag', 'it.name', 'it.status');
+  const rows = await db('incident_items as ii')
+    .join('items as it', 'it.id', 'ii.item_id')
+    .whereIn('ii.incident_id', incidentIds)
+    .orderBy('it.tag')
+    .select('ii.incident_id', 'it.id', 'it.tag', 'it.name', 'it.status');
   for (const r of rows) {
     const list = map.get(r.incident_id) ?? [];
     list.push({ id: r.id, tag: r.tag, name: r.name, status: r.status });
@@ -90,7 +94,16 @@ function toActions(rows: Record<string, unknown>[], today = todayIso()): Correct
   return rows.map((r) => {
     const dueOn = dateColumnToIso(r.due_on as string)!;
     const doneAt = timestampToIso(r.done_at as Date | null);
-    return { id: Number(r.id), incidentId: Number(r.incident_id), action: String(r.action), ownerId: Number(r.owner_id), ownerName: String(r.owner_name), dueOn, doneAt, pastDue: doneAt === null && dueOn < today };
+    return {
+      id: Number(r.id),
+      incidentId: Number(r.incident_id),
+      action: String(r.action),
+      ownerId: Number(r.owner_id),
+      ownerName: String(r.owner_name),
+      dueOn,
+      doneAt,
+      pastDue: doneAt === null && dueOn < today,
+    };
   });
 }
 
@@ -123,13 +136,16 @@ export async function listIncidents(db: Db, actor: SessionUser, filter: Incident
   if (filter.status) query = query.where('i.status', filter.status);
   if (filter.kind) query = query.where('i.kind', filter.kind);
   if (filter.bookingId) query = query.where('i.booking_id', filter.bookingId);
-  if (filter.itemId) query = query.whereExists(db('incident_items as f').whereRaw('f.incident_id = i.id').andWhere('f.item_id', filter.itemId).select(db.raw('1')));
+  if (filter.itemId)
+    query = query.whereExists(db('incident_items as f').whereRaw('f.incident_id = i.id').andWhere('f.item_id', filter.itemId).select(db.raw('1')));
   query = visibleTo(db, query, actor);
   const rows = (await query.orderBy('i.id', 'desc').limit(500)) as IncidentRow[];
   const ids = rows.map((r) => r.id);
   const [items, open] = await Promise.all([
     itemsOf(db, ids),
-    ids.length === 0 ? [] : db('incident_actions').whereIn('incident_id', ids).whereNull('done_at').groupBy('incident_id').select('incident_id', db.raw('COUNT(*) AS n')),
+    ids.length === 0
+      ? []
+      : db('incident_actions').whereIn('incident_id', ids).whereNull('done_at').groupBy('incident_id').select('incident_id', db.raw('COUNT(*) AS n')),
   ]);
   const openBy = new Map((open as { incident_id: number; n: number }[]).map((r) => [r.incident_id, Number(r.n)]));
   return rows.map((r) => toSummary(r, items.get(r.id) ?? [], openBy.get(r.id) ?? 0));
@@ -148,7 +164,13 @@ export async function getIncident(db: Db | Trx, actor: SessionUser, id: number):
     ...summary,
     cause: row.cause,
     correctiveActions: toActions(actions),
-    photos: photos.map((p: Record<string, unknown>) => ({ id: Number(p.id), fileName: String(p.file_name), contentType: String(p.content_type), sizeBytes: Number(p.size_bytes), uploadedAt: timestampToIso(p.created_at as Date)! })),
+    photos: photos.map((p: Record<string, unknown>) => ({
+      id: Number(p.id),
+      fileName: String(p.file_name),
+      contentType: String(p.content_type),
+      sizeBytes: Number(p.size_bytes),
+      uploadedAt: timestampToIso(p.created_at as Date)!,
+    })),
   };
 }
 
@@ -178,7 +200,13 @@ export interface RecordIncidentOptions {
  * Writes the report, its items, the tag-outs and the mail inside the caller's transaction. The
  * caller holds the booking's lock (if any); items are locked here in id order, after it.
  */
-export async function recordIncidentInTransaction(trx: Trx, actor: SessionUser, input: IncidentCreateInput, mail: IncidentMail, options: RecordIncidentOptions = {}): Promise<number> {
+export async function recordIncidentInTransaction(
+  trx: Trx,
+  actor: SessionUser,
+  input: IncidentCreateInput,
+  mail: IncidentMail,
+  options: RecordIncidentOptions = {},
+): Promise<number> {
   const itemIds = [...new Set(input.itemIds)].sort((a, b) => a - b);
   const items = [];
   for (const itemId of itemIds) {
@@ -204,7 +232,13 @@ export async function recordIncidentInTransaction(trx: Trx, actor: SessionUser, 
     for (const item of items) {
       const locked = await lockItem(trx, item.id);
       if (locked.status === 'retired') continue;
-      await tagOutInTransaction(trx, actor.id, item.id, options.tagOutReason ?? `Incident #${id} (${input.kind}): ${input.description}`, options.tagOutAction ?? 'item.tagged-out-for-incident');
+      await tagOutInTransaction(
+        trx,
+        actor.id,
+        item.id,
+        options.tagOutReason ?? `Incident #${id} (${input.kind}): ${input.description}`,
+        options.tagOutAction ?? 'item.tagged-out-for-incident',
+      );
       taggedOut.push(item.tag);
     }
   }
@@ -213,11 +247,32 @@ export async function recordIncidentInTransaction(trx: Trx, actor: SessionUser, 
     entity: 'incident',
     entityId: id,
     action: 'incident.reported',
-    after: { kind: input.kind, severity: input.severity, occurredAt: input.occurredAt, location: input.location, description: input.description, itemIds, bookingId: input.bookingId ?? null, tagOut: input.tagOut, taggedOut },
+    after: {
+      kind: input.kind,
+      severity: input.severity,
+      occurredAt: input.occurredAt,
+      location: input.location,
+      description: input.description,
+      itemIds,
+      bookingId: input.bookingId ?? null,
+      tagOut: input.tagOut,
+      taggedOut,
+    },
   });
   await notifyOfIncident(
     trx,
-    { id, kind: input.kind, severity: input.severity, occurredAt: input.occurredAt, location: input.location, description: input.description, reporterName: actor.name, itemTags: items.map((i) => i.tag), taggedOutTags: taggedOut, bookingId: input.bookingId ?? null },
+    {
+      id,
+      kind: input.kind,
+      severity: input.severity,
+      occurredAt: input.occurredAt,
+      location: input.location,
+      description: input.description,
+      reporterName: actor.name,
+      itemTags: items.map((i) => i.tag),
+      taggedOutTags: taggedOut,
+      bookingId: input.bookingId ?? null,
+    },
     actor.id,
     mail,
   );
@@ -232,7 +287,8 @@ export async function reportIncident(db: Db, actor: SessionUser, input: Incident
     if (input.bookingId) {
       // The booking's row first (the lock order: bookings, then items).
       const booking = await trx('bookings').where({ id: input.bookingId }).forUpdate().first('id', 'person_id');
-      if (!booking || !canSeeBooking(actor, booking)) throw new ValidationError(`No booking of yours with id ${input.bookingId}.`, { bookingId: ['Pick one of your bookings, or none'] });
+      if (!booking || !canSeeBooking(actor, booking))
+        throw new ValidationError(`No booking of yours with id ${input.bookingId}.`, { bookingId: ['Pick one of your bookings, or none'] });
     }
     return recordIncidentInTransaction(trx, actor, input, mail);
   });
@@ -252,7 +308,8 @@ export async function reviewIncident(db: Db, actor: SessionUser, id: number, inp
     const row = await trx('incidents').where({ id }).forUpdate().first();
     if (!row) throw new NotFoundError(`No incident with id ${id}.`);
     if (row.status === 'closed') throw new ConflictError('This incident is closed; report a new one for anything found since.', 'INCIDENT_CLOSED');
-    if (!NEXT[row.status as IncidentStatus].includes(input.status)) throw new ConflictError(`An incident that is ${row.status} cannot become ${input.status}.`, 'INCIDENT_STATUS');
+    if (!NEXT[row.status as IncidentStatus].includes(input.status))
+      throw new ConflictError(`An incident that is ${row.status} cannot become ${input.status}.`, 'INCIDENT_STATUS');
 
     const cause = input.cause !== undefined ? input.cause || null : (row.cause as string | null);
     const existing = await trx('incident_actions').where({ incident_id: id }).count({ n: '*' }).first();
@@ -267,7 +324,10 @@ export async function reviewIncident(db: Db, actor: SessionUser, id: number, inp
       const ownerIds = [...new Set(input.correctiveActions.map((a) => a.ownerId))];
       const owners = ownerIds.length === 0 ? [] : await trx('people').whereIn('id', ownerIds).andWhere({ active: true }).pluck('id');
       const missing = ownerIds.filter((o) => !owners.map(Number).includes(o));
-      if (missing.length > 0) throw new ValidationError(`No active person with id ${missing.join(', ')}.`, { correctiveActions: ['Each action needs an active person as its owner'] });
+      if (missing.length > 0)
+        throw new ValidationError(`No active person with id ${missing.join(', ')}.`, {
+          correctiveActions: ['Each action needs an active person as its owner'],
+        });
       // The list is replaced as a whole; actions already done keep their done time if kept alike.
       const before = await trx('incident_actions').where({ incident_id: id }).select('action', 'owner_id', 'due_on', 'done_at');
       await trx('incident_actions').where({ incident_id: id }).delete();
@@ -280,7 +340,14 @@ export async function reviewIncident(db: Db, actor: SessionUser, id: number, inp
     await trx('incidents')
       .where({ id })
       .update({ status: input.status, cause, updated_at: now, ...(input.status === 'closed' ? { closed_at: now, closed_by: actor.id } : {}) });
-    const action = input.status === 'closed' ? 'incident.closed' : input.status === 'under-review' && row.status !== 'under-review' ? 'incident.under-review' : input.status === 'open' && row.status !== 'open' ? 'incident.reopened' : 'incident.updated';
+    const action =
+      input.status === 'closed'
+        ? 'incident.closed'
+        : input.status === 'under-review' && row.status !== 'under-review'
+          ? 'incident.under-review'
+          : input.status === 'open' && row.status !== 'open'
+            ? 'incident.reopened'
+            : 'incident.updated';
     await appendAudit(trx, {
       actorId: actor.id,
       entity: 'incident',
@@ -299,8 +366,17 @@ export async function setActionDone(db: Db, actor: SessionUser, actionId: number
     const action = await trx('incident_actions').where({ id: actionId }).forUpdate().first();
     if (!action) throw new NotFoundError(`No corrective action with id ${actionId}.`);
     if (action.owner_id !== actor.id && actor.role !== 'officer') throw new ForbiddenError('Only the action’s owner or a safety officer can mark it done.');
-    await trx('incident_actions').where({ id: actionId }).update({ done_at: done ? new Date() : null });
-    await appendAudit(trx, { actorId: actor.id, entity: 'incident', entityId: action.incident_id, action: done ? 'incident.action-done' : 'incident.action-reopened', before: { done: action.done_at !== null }, after: { actionId, action: action.action, done } });
+    await trx('incident_actions')
+      .where({ id: actionId })
+      .update({ done_at: done ? new Date() : null });
+    await appendAudit(trx, {
+      actorId: actor.id,
+      entity: 'incident',
+      entityId: action.incident_id,
+      action: done ? 'incident.action-done' : 'incident.action-reopened',
+      before: { done: action.done_at !== null },
+      after: { actionId, action: action.action, done },
+    });
     return Number(action.incident_id);
   });
   return getIncident(db, actor, incidentId);
@@ -315,4 +391,3 @@ export async function pastDueActions(db: Db, actor: SessionUser | null, today = 
   if (actor && actor.role !== 'officer') query = query.where('a.owner_id', actor.id);
   return toActions(await query.orderBy([{ column: 'a.due_on' }, { column: 'a.id' }]).limit(200), today);
 }
-

@@ -31,7 +31,9 @@ export async function recordInspection(db: Db, actor: SessionUser, itemId: numbe
     // A later inspection entered for an earlier date must not move the due date backwards.
     const latest = dateColumnToIso(item.last_inspected_on);
     if (!latest || inspectedOn >= latest) {
-      await trx('items').where({ id: itemId }).update({ last_inspected_on: inspectedOn, next_inspection_due: nextDue, last_inspection_result: input.result, updated_at: new Date() });
+      await trx('items')
+        .where({ id: itemId })
+        .update({ last_inspected_on: inspectedOn, next_inspection_due: nextDue, last_inspection_result: input.result, updated_at: new Date() });
       await updateTermsDueDate(trx, itemId, nextDue);
     }
     await appendAudit(trx, {
@@ -61,7 +63,10 @@ export async function listInspections(db: Db, itemId: number, limit = 50): Promi
   const rows = await db('inspections as i')
     .join('people as p', 'p.id', 'i.inspector_id')
     .where('i.item_id', itemId)
-    .orderBy([{ column: 'i.inspected_on', order: 'desc' }, { column: 'i.id', order: 'desc' }])
+    .orderBy([
+      { column: 'i.inspected_on', order: 'desc' },
+      { column: 'i.id', order: 'desc' },
+    ])
     .limit(limit)
     .select('i.*', 'p.name as inspector_name');
   return rows.map((r) => ({

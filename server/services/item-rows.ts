@@ -67,7 +67,9 @@ export async function lockItem(trx: Trx, id: number): Promise<ItemRow> {
 export async function tagOutInTransaction(trx: Trx, actorId: number, id: number, reason: string, action = 'item.tagged-out'): Promise<void> {
   const before = await lockItem(trx, id);
   if (before.status === 'retired') return;
-  await trx('items').where({ id }).update({ status: 'out-of-service', status_reason: reason.slice(0, 500), status_changed_at: new Date(), updated_at: new Date() });
+  await trx('items')
+    .where({ id })
+    .update({ status: 'out-of-service', status_reason: reason.slice(0, 500), status_changed_at: new Date(), updated_at: new Date() });
   await appendAudit(trx, {
     actorId,
     entity: 'item',
@@ -77,4 +79,3 @@ export async function tagOutInTransaction(trx: Trx, actorId: number, id: number,
     after: { status: 'out-of-service', statusReason: reason.slice(0, 500) },
   });
 }
-

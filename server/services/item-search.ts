@@ -41,8 +41,20 @@ const TAG_LIKE = /^[A-Za-z]{2,5}-[A-Za-z0-9-]*\d[A-Za-z0-9-]*$/;
 const SORTS = {
   tag: { column: 'tag', order: 'asc', unique: true, term: { column: 't.tag', id: 't.item_id' }, key: (r: ItemRow) => r.tag },
   name: { column: 'name', order: 'asc', unique: false, term: { column: 't.name', id: 't.item_id' }, key: (r: ItemRow) => r.name },
-  ratedKv: { column: 'rated_kv', order: 'desc', unique: false, term: { column: 't.rated_kv', id: 't.item_id' }, key: (r: ItemRow) => (r.rated_kv === null ? null : Number(r.rated_kv)) },
-  nextDue: { column: 'next_inspection_due', order: 'asc', unique: false, term: { column: 't.next_inspection_due', id: 't.item_id' }, key: (r: ItemRow) => dateColumnToIso(r.next_inspection_due) },
+  ratedKv: {
+    column: 'rated_kv',
+    order: 'desc',
+    unique: false,
+    term: { column: 't.rated_kv', id: 't.item_id' },
+    key: (r: ItemRow) => (r.rated_kv === null ? null : Number(r.rated_kv)),
+  },
+  nextDue: {
+    column: 'next_inspection_due',
+    order: 'asc',
+    unique: false,
+    term: { column: 't.next_inspection_due', id: 't.item_id' },
+    key: (r: ItemRow) => dateColumnToIso(r.next_inspection_due),
+  },
 } as const;
 
 type TextMatch = 'tag' | 'words';
@@ -58,8 +70,22 @@ interface Columns {
   sortId: string;
 }
 
-const ITEM_COLUMNS = (sort: Sort): Columns => ({ kind: 'kind', ratedKv: 'rated_kv', status: 'status', nextDue: 'next_inspection_due', sort: sort.column, sortId: 'id' });
-const TERM_COLUMNS = (sort: Sort): Columns => ({ kind: 't.kind', ratedKv: 't.rated_kv', status: 'i.status', nextDue: 't.next_inspection_due', sort: sort.term.column, sortId: sort.term.id });
+const ITEM_COLUMNS = (sort: Sort): Columns => ({
+  kind: 'kind',
+  ratedKv: 'rated_kv',
+  status: 'status',
+  nextDue: 'next_inspection_due',
+  sort: sort.column,
+  sortId: 'id',
+});
+const TERM_COLUMNS = (sort: Sort): Columns => ({
+  kind: 't.kind',
+  ratedKv: 't.rated_kv',
+  status: 'i.status',
+  nextDue: 't.next_inspection_due',
+  sort: sort.term.column,
+  sortId: sort.term.id,
+});
 
 export async function listItems(db: Db, query: ItemListQuery): Promise<{ items: ItemSummary[]; nextCursor: string | null }> {
   const cursor = query.cursor ? decodeCursor(query.cursor) : null;
@@ -97,10 +123,25 @@ function applyListing(builder: Knex.QueryBuilder, query: ItemListQuery, cursor: 
     } else {
       // Descending: NULLs come last.
       if (v === null) builder.whereNull(col).andWhere(idCol, '<', id);
-      else builder.where((w) => w.where(col, '<', v).orWhere((x) => x.where(col, v).andWhere(idCol, '<', id)).orWhereNull(col));
+      else
+        builder.where((w) =>
+          w
+            .where(col, '<', v)
+            .orWhere((x) => x.where(col, v).andWhere(idCol, '<', id))
+            .orWhereNull(col),
+        );
     }
   }
-  builder.orderBy(sort.unique ? [{ column: c.sort, order: sort.order }] : [{ column: c.sort, order: sort.order }, { column: c.sortId, order: sort.order }]).limit(query.limit + 1);
+  builder
+    .orderBy(
+      sort.unique
+        ? [{ column: c.sort, order: sort.order }]
+        : [
+            { column: c.sort, order: sort.order },
+            { column: c.sortId, order: sort.order },
+          ],
+    )
+    .limit(query.limit + 1);
 }
 
 /**

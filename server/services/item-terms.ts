@@ -63,16 +63,18 @@ const WORD_SEPARATORS = /[^\p{L}\p{M}\p{N}]+/u;
  * searches and stored terms go through this one function, so they agree.
  */
 export function wordsOf(text: string): string[] {
-  return text
-    .normalize('NFKD')
-    .toLowerCase()
-    // Lower-casing can decompose again ("İ" becomes "i" and a combining dot).
-    .normalize('NFKD')
-    .replace(OPTIONAL_ACCENTS, '')
-    .normalize('NFC')
-    .split(WORD_SEPARATORS)
-    .filter((w) => w.length > 0)
-    .map((w) => Array.from(w).slice(0, TERM_MAX_LENGTH).join(''));
+  return (
+    text
+      .normalize('NFKD')
+      .toLowerCase()
+      // Lower-casing can decompose again ("İ" becomes "i" and a combining dot).
+      .normalize('NFKD')
+      .replace(OPTIONAL_ACCENTS, '')
+      .normalize('NFC')
+      .split(WORD_SEPARATORS)
+      .filter((w) => w.length > 0)
+      .map((w) => Array.from(w).slice(0, TERM_MAX_LENGTH).join(''))
+  );
 }
 
 /** Every prefix of a word, one character (code point) longer each time, the word itself last. */
@@ -93,7 +95,15 @@ export function searchWords(q: string): string[] {
 }
 
 export function termRowsOf(item: TermSource) {
-  return termsOf(item).map((term) => ({ term, item_id: item.id, kind: item.kind, tag: item.tag, rated_kv: item.rated_kv, name: item.name, next_inspection_due: item.next_inspection_due }));
+  return termsOf(item).map((term) => ({
+    term,
+    item_id: item.id,
+    kind: item.kind,
+    tag: item.tag,
+    rated_kv: item.rated_kv,
+    name: item.name,
+    next_inspection_due: item.next_inspection_due,
+  }));
 }
 
 /** The columns item_terms has at the latest migration; earlier migrations name their own. */
@@ -113,7 +123,11 @@ const INSERT_CHUNK = 2000;
  * Replaces the term rows of the given items. Runs in the caller's transaction (or connection),
  * so an item and its terms never disagree. A migration passes the columns the table had then.
  */
-export async function writeItemTerms(trx: Knex | Knex.Transaction, items: TermSource | readonly TermSource[], columns: readonly TermRowColumn[] = TERM_ROW_COLUMNS): Promise<void> {
+export async function writeItemTerms(
+  trx: Knex | Knex.Transaction,
+  items: TermSource | readonly TermSource[],
+  columns: readonly TermRowColumn[] = TERM_ROW_COLUMNS,
+): Promise<void> {
   const list = Array.isArray(items) ? (items as readonly TermSource[]) : [items as TermSource];
   if (list.length === 0) return;
   await trx('item_terms')

@@ -137,7 +137,11 @@ export async function updateItem(db: Db, actor: SessionUser, id: number, input: 
     if (input.status === 'in-service' && before.status === 'out-of-service') {
       // Lockout/tagout: the same check the item page asks before offering the button (item-clearance.ts).
       const passed = await passedSinceTagOut(trx, before);
-      if (!passed) throw new ConflictError(`${before.tag} is tagged out: record a passing inspection carried out since the tag-out before clearing it.`, ERROR_CODES.inspectionRequired);
+      if (!passed)
+        throw new ConflictError(
+          `${before.tag} is tagged out: record a passing inspection carried out since the tag-out before clearing it.`,
+          ERROR_CODES.inspectionRequired,
+        );
     }
     if (input.status !== undefined && input.status !== before.status) {
       changes.status = input.status;
@@ -156,7 +160,13 @@ export async function updateItem(db: Db, actor: SessionUser, id: number, input: 
     // Name, make, model, serial, location and rating can all change what the item is found by.
     await writeItemTerms(trx, after);
     const action =
-      changes.status === 'out-of-service' ? 'item.tagged-out' : changes.status === 'in-service' ? 'item.cleared' : changes.status === 'retired' ? 'item.retired' : 'item.updated';
+      changes.status === 'out-of-service'
+        ? 'item.tagged-out'
+        : changes.status === 'in-service'
+          ? 'item.cleared'
+          : changes.status === 'retired'
+            ? 'item.retired'
+            : 'item.updated';
     await appendAudit(trx, { actorId: actor.id, entity: 'item', entityId: id, action, before: auditView(before), after: auditView(after) });
     return after;
   });

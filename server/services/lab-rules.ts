@@ -51,20 +51,29 @@ export async function updateLabRules(db: Db, actor: SessionUser, input: LabRules
     const row = await trx('lab_rules').where({ id: 1 }).forUpdate().first();
     const before = toState(row);
     const pendingEditors = before.pendingEditors.includes(actor.id) ? before.pendingEditors : [...before.pendingEditors, actor.id];
-    await trx('lab_rules').where({ id: 1 }).update({
-      approval_kv: input.approvalKv,
-      energy_threshold_j: input.energyThresholdJ,
-      rating_margin_pct: input.ratingMarginPct,
-      interlock_kv: input.interlockKv,
-      safe_residual_v: input.safeResidualV,
-      early_pickup_min: input.earlyPickupMin,
-      overdue_grace_min: input.overdueGraceMin,
-      confirmed_rules: JSON.stringify(before.confirmed),
-      pending_editors: JSON.stringify(pendingEditors),
-      updated_at: new Date(),
-      updated_by: actor.id,
+    await trx('lab_rules')
+      .where({ id: 1 })
+      .update({
+        approval_kv: input.approvalKv,
+        energy_threshold_j: input.energyThresholdJ,
+        rating_margin_pct: input.ratingMarginPct,
+        interlock_kv: input.interlockKv,
+        safe_residual_v: input.safeResidualV,
+        early_pickup_min: input.earlyPickupMin,
+        overdue_grace_min: input.overdueGraceMin,
+        confirmed_rules: JSON.stringify(before.confirmed),
+        pending_editors: JSON.stringify(pendingEditors),
+        updated_at: new Date(),
+        updated_by: actor.id,
+      });
+    await appendAudit(trx, {
+      actorId: actor.id,
+      entity: 'lab-rules',
+      entityId: 1,
+      action: 'lab-rules.updated',
+      before: before.rules,
+      after: { ...input, pendingEditors },
     });
-    await appendAudit(trx, { actorId: actor.id, entity: 'lab-rules', entityId: 1, action: 'lab-rules.updated', before: before.rules, after: { ...input, pendingEditors } });
     return input;
   });
   labRules.forget(db);
@@ -77,8 +86,17 @@ export async function confirmLabRules(db: Db, actor: SessionUser): Promise<LabRu
     const before = toState(await trx('lab_rules').where({ id: 1 }).forUpdate().first());
     if (before.pendingEditors.length === 0) throw new ConflictError('The lab rules have no change waiting for confirmation.', ERROR_CODES.nothingToConfirm);
     if (before.pendingEditors.includes(actor.id)) throw new ForbiddenError('You changed these rules; another officer must confirm them.');
-    await trx('lab_rules').where({ id: 1 }).update({ confirmed_rules: JSON.stringify(before.rules), pending_editors: '[]', updated_at: new Date() });
-    await appendAudit(trx, { actorId: actor.id, entity: 'lab-rules', entityId: 1, action: 'lab-rules.confirmed', before: { confirmed: before.confirmed, pendingEditors: before.pendingEditors }, after: before.rules });
+    await trx('lab_rules')
+      .where({ id: 1 })
+      .update({ confirmed_rules: JSON.stringify(before.rules), pending_editors: '[]', updated_at: new Date() });
+    await appendAudit(trx, {
+      actorId: actor.id,
+      entity: 'lab-rules',
+      entityId: 1,
+      action: 'lab-rules.confirmed',
+      before: { confirmed: before.confirmed, pendingEditors: before.pendingEditors },
+      after: before.rules,
+    });
     return { rules: before.rules, confirmed: before.rules, pendingEditors: [] };
   });
   labRules.forget(db);

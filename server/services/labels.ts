@@ -14,7 +14,17 @@ export interface LabelItem {
 
 const MM = 72 / 25.4;
 // A common 21-up sheet: 3 x 7 labels of 63.5 x 38.1 mm on A4.
-const SHEET = { pageWidth: 210 * MM, pageHeight: 297 * MM, columns: 3, rows: 7, labelWidth: 63.5 * MM, labelHeight: 38.1 * MM, left: 7.2 * MM, top: 15.15 * MM, gap: 2.5 * MM };
+const SHEET = {
+  pageWidth: 210 * MM,
+  pageHeight: 297 * MM,
+  columns: 3,
+  rows: 7,
+  labelWidth: 63.5 * MM,
+  labelHeight: 38.1 * MM,
+  left: 7.2 * MM,
+  top: 15.15 * MM,
+  gap: 2.5 * MM,
+};
 const FONT_DIR = path.dirname(require.resolve('@expo-google-fonts/atkinson-hyperlegible/package.json'));
 const FONT_REGULAR = path.join(FONT_DIR, '400Regular', 'AtkinsonHyperlegible_400Regular.ttf');
 const FONT_BOLD = path.join(FONT_DIR, '700Bold', 'AtkinsonHyperlegible_700Bold.ttf');
@@ -39,11 +49,25 @@ function drawLabel(doc: PDFKit.PDFDocument, item: LabelItem, publicUrl: string, 
   drawQr(doc, labelUrl(publicUrl, item.tag), x + 1 * MM, y + 1 * MM, qrSize);
   const textX = x + qrSize + 2 * MM;
   const textWidth = w - qrSize - 4 * MM;
-  doc.font('bold').fontSize(11).fillColor('black').text(item.tag, textX, y + 4 * MM, { width: textWidth, lineBreak: false });
-  doc.font('regular').fontSize(7.5).text(item.name, textX, y + 9.5 * MM, { width: textWidth, height: 14 * MM, ellipsis: true });
+  doc
+    .font('bold')
+    .fontSize(11)
+    .fillColor('black')
+    .text(item.tag, textX, y + 4 * MM, { width: textWidth, lineBreak: false });
+  doc
+    .font('regular')
+    .fontSize(7.5)
+    .text(item.name, textX, y + 9.5 * MM, { width: textWidth, height: 14 * MM, ellipsis: true });
   const rating = item.ratedKv === null ? 'No kV rating' : `Max ${item.ratedKv} kV`;
-  doc.font('bold').fontSize(9).text(rating, textX, y + h - 12 * MM, { width: textWidth, lineBreak: false });
-  doc.font('regular').fontSize(6).fillColor('#333333').text('Scan before use · Voltcrib', textX, y + h - 6.5 * MM, { width: textWidth, lineBreak: false });
+  doc
+    .font('bold')
+    .fontSize(9)
+    .text(rating, textX, y + h - 12 * MM, { width: textWidth, lineBreak: false });
+  doc
+    .font('regular')
+    .fontSize(6)
+    .fillColor('#333333')
+    .text('Scan before use · Voltcrib', textX, y + h - 6.5 * MM, { width: textWidth, lineBreak: false });
 }
 
 async function render(doc: PDFKit.PDFDocument): Promise<Buffer> {

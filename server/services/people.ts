@@ -14,7 +14,6 @@ export interface PersonRow {
   last_sign_in_at: Date | null;
 }
 
-
 export function toSessionUser(person: Pick<PersonRow, 'id' | 'email' | 'name' | 'role'>): SessionUser {
   return { id: person.id, email: person.email, name: person.name, role: person.role };
 }

@@ -6,7 +6,10 @@ import { appendAudit, auditedTransaction } from './audit';
 import { dateColumnToIso, timestampToIso } from './dates';
 
 export async function getQualification(db: Db | Trx, personId: number): Promise<Qualification | null> {
-  const row = await db('qualifications as q').leftJoin('people as p', 'p.id', 'q.recorded_by').where('q.person_id', personId).first('q.*', 'p.name as recorded_by_name');
+  const row = await db('qualifications as q')
+    .leftJoin('people as p', 'p.id', 'q.recorded_by')
+    .where('q.person_id', personId)
+    .first('q.*', 'p.name as recorded_by_name');
   if (!row) return null;
   return {
     personId,
@@ -30,7 +33,10 @@ export async function setQualification(db: Db, actor: SessionUser, personId: num
     const existing = await trx('qualifications').where({ person_id: personId }).forUpdate().first('person_id');
     const before = existing ? await getQualification(trx, personId) : null;
     const record = { authorised_kv: input.authorisedKv, expires_on: input.expiresOn, notes: input.notes ?? '', recorded_by: actor.id, updated_at: new Date() };
-    await trx('qualifications').insert({ person_id: personId, ...record }).onConflict('person_id').merge(record);
+    await trx('qualifications')
+      .insert({ person_id: personId, ...record })
+      .onConflict('person_id')
+      .merge(record);
     await appendAudit(trx, {
       actorId: actor.id,
       entity: 'qualification',

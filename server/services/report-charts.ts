@@ -120,10 +120,16 @@ export async function chartsReport(db: Db, from: Date, to: Date, now = new Date(
   return {
     from: from.toISOString(),
     to: to.toISOString(),
-    bookedHours: [...booked].map(([key, hours]) => ({ week: split(key)[0], groupName: split(key)[1], hours: round1(hours) })).sort((a, b) => a.week.localeCompare(b.week) || a.groupName.localeCompare(b.groupName)),
+    bookedHours: [...booked]
+      .map(([key, hours]) => ({ week: split(key)[0], groupName: split(key)[1], hours: round1(hours) }))
+      .sort((a, b) => a.week.localeCompare(b.week) || a.groupName.localeCompare(b.groupName)),
     energizedHours: [...energized].map(([groupName, hours]) => ({ groupName, hours: round1(hours) })).sort((a, b) => a.groupName.localeCompare(b.groupName)),
     overdueReturns: [...overdue].map(([week, count]) => ({ week, count })).sort((a, b) => a.week.localeCompare(b.week)),
-    inspectionsDue: [...due].map(([key, cell]) => ({ week: split(key)[0], kind: split(key)[1], ...cell })).sort((a, b) => a.week.localeCompare(b.week) || a.kind.localeCompare(b.kind)),
-    incidents: [...incidents].map(([key, count]) => ({ month: split(key)[0], kind: split(key)[1], severity: split(key)[2]!, count })).sort((a, b) => a.month.localeCompare(b.month) || a.kind.localeCompare(b.kind) || a.severity.localeCompare(b.severity)),
+    inspectionsDue: [...due]
+      .map(([key, cell]) => ({ week: split(key)[0], kind: split(key)[1], ...cell }))
+      .sort((a, b) => a.week.localeCompare(b.week) || a.kind.localeCompare(b.kind)),
+    incidents: [...incidents]
+      .map(([key, count]) => ({ month: split(key)[0], kind: split(key)[1], severity: split(key)[2]!, count }))
+      .sort((a, b) => a.month.localeCompare(b.month) || a.kind.localeCompare(b.kind) || a.severity.localeCompare(b.severity)),
   };
 }

@@ -4,7 +4,6 @@ import type { DeskOverview, GroupUsage, InspectionDue } from '../../shared/schem
 import type { Db } from '../db';
 import { addDaysIso, dateColumnToIso, timestampToIso, todayIso } from './dates';
 
-
 /** Released or returned bookings overlapping the period; hours are clipped to it. */
 export async function usageByGroup(db: Db, from: Date, to: Date): Promise<GroupUsage[]> {
   const rows = await db('bookings as b')
@@ -32,7 +31,15 @@ export async function overdueRows(db: Db, now = new Date()) {
     .orderBy('b.ends_at')
     .limit(5000)
     .select('b.id', 'p.name', 'p.email', 'b.ends_at', 'b.planned_kv', 'b.location');
-  return rows.map((r) => ({ bookingId: r.id, person: r.name, email: r.email, endedAt: timestampToIso(r.ends_at)!, hoursOverdue: Math.round(((now.getTime() - new Date(r.ends_at).getTime()) / 3600_000) * 10) / 10, plannedKv: Number(r.planned_kv), location: r.location }));
+  return rows.map((r) => ({
+    bookingId: r.id,
+    person: r.name,
+    email: r.email,
+    endedAt: timestampToIso(r.ends_at)!,
+    hoursOverdue: Math.round(((now.getTime() - new Date(r.ends_at).getTime()) / 3600_000) * 10) / 10,
+    plannedKv: Number(r.planned_kv),
+    location: r.location,
+  }));
 }
 
 export async function inspectionRows(db: Db, withinDays = 14, today = todayIso()) {
@@ -42,7 +49,15 @@ export async function inspectionRows(db: Db, withinDays = 14, today = todayIso()
     .orderBy('next_inspection_due')
     .limit(5000)
     .select('tag', 'name', 'kind', 'location', 'status', 'next_inspection_due');
-  return rows.map((r) => ({ tag: r.tag, name: r.name, kind: r.kind, location: r.location, status: r.status, nextDue: r.next_inspection_due ?? 'never inspected', overdue: !r.next_inspection_due || r.next_inspection_due < today }));
+  return rows.map((r) => ({
+    tag: r.tag,
+    name: r.name,
+    kind: r.kind,
+    location: r.location,
+    status: r.status,
+    nextDue: r.next_inspection_due ?? 'never inspected',
+    overdue: !r.next_inspection_due || r.next_inspection_due < today,
+  }));
 }
 
 /** RFC 4180 CSV; cells that a spreadsheet would run as a formula are prefixed with a quote. */
@@ -69,7 +84,16 @@ export async function inspectionsDue(db: Db, limit: number, withinDays = 14, tod
     .select('id', 'tag', 'name', 'kind', 'location', 'status', 'next_inspection_due');
   const items = rows.slice(0, limit).map((r): InspectionDue => {
     const due = dateColumnToIso(r.next_inspection_due);
-    return { id: r.id, tag: r.tag, name: r.name, kind: r.kind, location: r.location, status: r.status, nextInspectionDue: due, state: due === null ? 'never' : due < today ? 'overdue' : 'soon' };
+    return {
+      id: r.id,
+      tag: r.tag,
+      name: r.name,
+      kind: r.kind,
+      location: r.location,
+      status: r.status,
+      nextInspectionDue: due,
+      state: due === null ? 'never' : due < today ? 'overdue' : 'soon',
+    };
   });
   return { items, more: rows.length > limit };
 }

@@ -44,7 +44,10 @@ export async function safetySummary(db: Db, month: string, now = new Date()): Pr
     .whereNotIn('status', ['cancelled', 'refused'])
     .andWhere('starts_at', '<', to)
     .andWhere('ends_at', '>', from)
-    .select(db.raw('COUNT(*) AS n'), db.raw('COALESCE(SUM(TIMESTAMPDIFF(SECOND, GREATEST(starts_at, ?), LEAST(ends_at, ?))), 0) / 3600 AS hours', [from, to]))) as unknown as { n: number; hours: number }[];
+    .select(
+      db.raw('COUNT(*) AS n'),
+      db.raw('COALESCE(SUM(TIMESTAMPDIFF(SECOND, GREATEST(starts_at, ?), LEAST(ends_at, ?))), 0) / 3600 AS hours', [from, to]),
+    )) as unknown as { n: number; hours: number }[];
   const [overdue] = (await db('bookings')
     .whereIn('status', ['released', 'returned'])
     .andWhere('ends_at', '>=', from)
@@ -53,7 +56,10 @@ export async function safetySummary(db: Db, month: string, now = new Date()): Pr
     .count({ n: '*' })) as { n: number }[];
   const [inspections] = (await db('items')
     .whereNot('status', 'retired')
-    .select(db.raw('SUM(next_inspection_due < ?) AS overdue', [today]), db.raw('SUM(next_inspection_due IS NULL) AS never'))) as unknown as { overdue: number | null; never: number | null }[];
+    .select(db.raw('SUM(next_inspection_due < ?) AS overdue', [today]), db.raw('SUM(next_inspection_due IS NULL) AS never'))) as unknown as {
+    overdue: number | null;
+    never: number | null;
+  }[];
   return {
     month,
     incidents: {
@@ -92,8 +98,15 @@ export async function safetySummaryPdf(summary: SafetySummary, now = new Date())
   const line = (label: string, value: string | number) => doc.font('regular').fontSize(11).fillColor('black').text(`${label}: ${value}`);
   const { from } = monthBounds(summary.month);
 
-  doc.font('bold').fontSize(20).text(`Safety summary, ${MONTH_WORDS.format(from)}`);
-  doc.font('regular').fontSize(11).fillColor('#333333').text(`Prepared by Voltcrib on ${mailDay(todayIso(now))}. Months and weeks are counted in UTC.`);
+  doc
+    .font('bold')
+    .fontSize(20)
+    .text(`Safety summary, ${MONTH_WORDS.format(from)}`);
+  doc
+    .font('regular')
+    .fontSize(11)
+    .fillColor('#333333')
+    .text(`Prepared by Voltcrib on ${mailDay(todayIso(now))}. Months and weeks are counted in UTC.`);
 
   heading('Incidents and near misses');
   line('Reported this month', summary.incidents.total);
@@ -118,7 +131,14 @@ export async function safetySummaryPdf(summary: SafetySummary, now = new Date())
   line('Overdue', summary.inspections.overdue);
   line('Never inspected', summary.inspections.never);
 
-  doc.moveDown(1.2).font('regular').fontSize(9).fillColor('#333333').text('Severities: ' + INCIDENT_SEVERITIES.map((s) => `${incidentSeverityWords[s].label}: ${incidentSeverityWords[s].definition}`).join(' '), { width: 480 });
+  doc
+    .moveDown(1.2)
+    .font('regular')
+    .fontSize(9)
+    .fillColor('#333333')
+    .text('Severities: ' + INCIDENT_SEVERITIES.map((s) => `${incidentSeverityWords[s].label}: ${incidentSeverityWords[s].definition}`).join(' '), {
+      width: 480,
+    });
   doc.end();
   return done;
 }

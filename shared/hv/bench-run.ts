@@ -58,7 +58,14 @@ export function deriveBenchRun(run: BenchRunReadings, ionMobilityM2PerVs: number
   };
 }
 
-export const BENCH_FLAG_CODES = ['above-plan-kv', 'above-plan-current', 'above-supply-rating', 'thrust-above-ehd-bound', 'momentum-mismatch', 'near-sparkover'] as const;
+export const BENCH_FLAG_CODES = [
+  'above-plan-kv',
+  'above-plan-current',
+  'above-supply-rating',
+  'thrust-above-ehd-bound',
+  'momentum-mismatch',
+  'near-sparkover',
+] as const;
 export type BenchFlagCode = (typeof BENCH_FLAG_CODES)[number];
 export interface BenchFlag {
   readonly code: BenchFlagCode;

@@ -116,13 +116,22 @@ export function paschenBreakdown(input: PaschenInput): PaschenResult {
   const denominator = Math.log(a / lnTerm) + Math.log(pdTorrCm);
   const note = 'Paschen fit: educational only, do not use for safety decisions (use the 3 kV/mm rule and the sparkover check).';
   if (denominator <= 0) {
-    return { breakdownV: null, pdTorrCm, doNotUseForSafety: true, note: `${note} p·d is below the fit's asymptote: no breakdown solution.`, source: PASCHEN_SOURCE };
+    return {
+      breakdownV: null,
+      pdTorrCm,
+      doNotUseForSafety: true,
+      note: `${note} p·d is below the fit's asymptote: no breakdown solution.`,
+      source: PASCHEN_SOURCE,
+    };
   }
   return { breakdownV: requireFiniteResult((b * pdTorrCm) / denominator, 'pressurePa'), pdTorrCm, doNotUseForSafety: true, note, source: PASCHEN_SOURCE };
 }
 
 /** Minimum of the Paschen fit: pd = e·ln(1 + 1/γ)/A, V = (B/A)·e·ln(1 + 1/γ). About 305 V at 0.84 Torr·cm for air. */
-export function paschenMinimum(input: Pick<PaschenInput, 'aPerCmTorr' | 'bVPerCmTorr' | 'secondaryEmission'> = {}): { readonly pdTorrCm: number; readonly breakdownV: number } {
+export function paschenMinimum(input: Pick<PaschenInput, 'aPerCmTorr' | 'bVPerCmTorr' | 'secondaryEmission'> = {}): {
+  readonly pdTorrCm: number;
+  readonly breakdownV: number;
+} {
   const { a, b, lnTerm } = paschenConstants(input);
   return {
     pdTorrCm: requireFiniteResult((Math.E * lnTerm) / a, 'aPerCmTorr'),
@@ -145,7 +154,13 @@ export function airDensityFactor({ pressureCmHg, temperatureC }: { readonly pres
  * g_v = g₀·δ·(1 + c/√(δr)), g₀ = 30 kV/cm, c = 0.301 cm^½, r in cm. The surface factor m_v
  * enters the onset voltage, as in Peek's formula, not this gradient.
  */
-export function peekOnsetGradientKvPerCm({ wireRadiusM, airDensityFactor: delta }: { readonly wireRadiusM: number; readonly airDensityFactor: number }): number {
+export function peekOnsetGradientKvPerCm({
+  wireRadiusM,
+  airDensityFactor: delta,
+}: {
+  readonly wireRadiusM: number;
+  readonly airDensityFactor: number;
+}): number {
   const rCm = requirePositive(wireRadiusM, 'wireRadiusM') * CM_PER_M;
   const d = requireDensityFactor(delta);
   return requireFiniteResult(AIR.peekG0KvPerCm.value * d * (1 + AIR.peekCSqrtCm.value / Math.sqrt(d * rCm)), 'wireRadiusM');
@@ -158,7 +173,12 @@ function requireSurfaceFactor(value: unknown): number {
 }
 
 /** Wire inside a coaxial tube: V = m_v·g_v·r·ln(R/r). */
-export function coaxialOnsetV(input: { readonly wireRadiusM: number; readonly outerRadiusM: number; readonly onsetGradientKvPerCm: number; readonly surfaceFactor?: number }): number {
+export function coaxialOnsetV(input: {
+  readonly wireRadiusM: number;
+  readonly outerRadiusM: number;
+  readonly onsetGradientKvPerCm: number;
+  readonly surfaceFactor?: number;
+}): number {
   const r = requirePositive(input.wireRadiusM, 'wireRadiusM');
   const outer = requirePositive(input.outerRadiusM, 'outerRadiusM');
   if (outer <= r) throw new HvInputError('outerRadiusM', 'outerRadiusM must be larger than wireRadiusM');
@@ -168,7 +188,12 @@ export function coaxialOnsetV(input: { readonly wireRadiusM: number; readonly ou
 }
 
 /** Two parallel wires, centre spacing S: e_v = m_v·g_v·r·ln(S/r) (Peek). */
-export function parallelWireOnsetV(input: { readonly wireRadiusM: number; readonly spacingM: number; readonly onsetGradientKvPerCm: number; readonly surfaceFactor?: number }): number {
+export function parallelWireOnsetV(input: {
+  readonly wireRadiusM: number;
+  readonly spacingM: number;
+  readonly onsetGradientKvPerCm: number;
+  readonly surfaceFactor?: number;
+}): number {
   const r = requirePositive(input.wireRadiusM, 'wireRadiusM');
   const s = requirePositive(input.spacingM, 'spacingM');
   if (s <= r) throw new HvInputError('spacingM', 'spacingM must be larger than wireRadiusM');

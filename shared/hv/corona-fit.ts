@@ -62,7 +62,10 @@ export function fitCoronaCurrent(points: readonly CoronaPoint[]): CoronaFit | nu
   if (above.length < CORONA_FIT_MIN_POINTS) return null;
   const xs = above.map((p) => p.voltageV);
   if (new Set(xs).size < 2) return null;
-  const line = linearLeastSquares(xs, above.map((p) => p.currentA / p.voltageV));
+  const line = linearLeastSquares(
+    xs,
+    above.map((p) => p.currentA / p.voltageV),
+  );
   // A flat or falling I/V is no corona characteristic: no positive C, no onset to report.
   if (!(line.slope > 0)) return null;
   const c = line.slope;

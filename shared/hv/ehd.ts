@@ -63,7 +63,15 @@ export function ehdThrustPerPowerBoundNPerW({ voltageV, gapM, ionMobilityM2PerVs
  * Mean jet velocity that carries the thrust as momentum flux through the outlet, T = ρ·A·v²,
  * so v = √(T/(ρ·A)) (momentum balance on a uniform jet; textbook fluid mechanics).
  */
-export function momentumFluxVelocityMps({ thrustN, airDensityKgPerM3, outletAreaM2 }: { readonly thrustN: number; readonly airDensityKgPerM3: number; readonly outletAreaM2: number }): number {
+export function momentumFluxVelocityMps({
+  thrustN,
+  airDensityKgPerM3,
+  outletAreaM2,
+}: {
+  readonly thrustN: number;
+  readonly airDensityKgPerM3: number;
+  readonly outletAreaM2: number;
+}): number {
   const t = requireNonNegative(thrustN, 'thrustN');
   const rho = requirePositive(airDensityKgPerM3, 'airDensityKgPerM3');
   const a = requirePositive(outletAreaM2, 'outletAreaM2');

@@ -3,7 +3,10 @@ import { requireFinite, requireNonNegative } from './validate';
 // Display conversions only: every calculation works in SI. A converter takes one number and
 // carries both units in its name, so a single positional argument cannot be misread.
 
-const scale = (factor: number, field: string) => (value: number): number => requireFinite(value, field) * factor;
+const scale =
+  (factor: number, field: string) =>
+  (value: number): number =>
+    requireFinite(value, field) * factor;
 
 export const voltsToKv = scale(1e-3, 'voltageV');
 export const kvToVolts = scale(1e3, 'voltageKv');

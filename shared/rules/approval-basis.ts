@@ -43,7 +43,12 @@ export interface BasisBooking {
 export function approvalBasisOf(booking: BasisBooking, items: readonly AssessedItem[], assessment: Assessment): ApprovalBasis {
   const sorted = [...items].sort((a, b) => a.id - b.id);
   return {
-    plan: { plannedKv: booking.plan.plannedKv, polarity: booking.plan.polarity, maxCurrentMa: booking.plan.maxCurrentMa, peoplePresent: booking.plan.peoplePresent },
+    plan: {
+      plannedKv: booking.plan.plannedKv,
+      polarity: booking.plan.polarity,
+      maxCurrentMa: booking.plan.maxCurrentMa,
+      peoplePresent: booking.plan.peoplePresent,
+    },
     startsAt: new Date(booking.startsAt).toISOString(),
     endsAt: new Date(booking.endsAt).toISOString(),
     location: booking.location,
@@ -59,7 +64,6 @@ export function approvalBasisOf(booking: BasisBooking, items: readonly AssessedI
     },
   };
 }
-
 
 /**
  * Computed figures may differ in the last bits when recomputed; a part in a billion is not a
@@ -95,7 +99,8 @@ export function basisChanges(approved: ApprovalBasis, now: ApprovalBasis): strin
   }
   const fa = approved.figures;
   const fb = now.figures;
-  if (!sameFigure(fa.storedEnergyJ, fb.storedEnergyJ)) changes.push(`Stored energy ${fa.storedEnergyJ.toPrecision(3)} J → ${fb.storedEnergyJ.toPrecision(3)} J.`);
+  if (!sameFigure(fa.storedEnergyJ, fb.storedEnergyJ))
+    changes.push(`Stored energy ${fa.storedEnergyJ.toPrecision(3)} J → ${fb.storedEnergyJ.toPrecision(3)} J.`);
   if (!sameFigure(fa.sourcePeakKv, fb.sourcePeakKv)) changes.push(`Highest source voltage ${kv(fa.sourcePeakKv)} → ${kv(fb.sourcePeakKv)}.`);
   if (!sameFigure(fa.outputCapacitanceF, fb.outputCapacitanceF)) changes.push('The output capacitance of the set changed.');
   if (fa.hazardous !== fb.hazardous || fa.hazardCriterion !== fb.hazardCriterion) changes.push('The hazardous-live class changed.');

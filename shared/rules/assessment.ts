@@ -1,7 +1,15 @@
 // The setup assessment: what a planned test with a set of gear means in volts, joules, seconds and
 // metres, and whether a safety officer must approve it. Pure: the app runs it as the member types;
 // the server runs the same code and stores the result with the booking.
-import { approachBoundaries, classifyHazardousLive, dischargePlan, HvInputError, multiplierOutput, ratingMargin, storedEnergyJ as capacitorEnergyJ } from '../hv';
+import {
+  approachBoundaries,
+  classifyHazardousLive,
+  dischargePlan,
+  HvInputError,
+  multiplierOutput,
+  ratingMargin,
+  storedEnergyJ as capacitorEnergyJ,
+} from '../hv';
 import type { AssessedItem, Assessment, ItemCheck, QualificationState, Reason } from '../schemas/assessment';
 import type { LabRules, TestPlan } from '../schemas/bookings';
 import type { ItemKind, Polarity } from '../schemas/items';
@@ -18,7 +26,13 @@ function qualificationReason(plannedKv: number, qualification: QualificationStat
   return null;
 }
 
-export function assessSetup(input: { items: AssessedItem[]; plan: TestPlan; rules: LabRules; qualification: QualificationState | null; today: string }): Assessment {
+export function assessSetup(input: {
+  items: AssessedItem[];
+  plan: TestPlan;
+  rules: LabRules;
+  qualification: QualificationState | null;
+  today: string;
+}): Assessment {
   const { items, plan, rules, today } = input;
   const plannedV = plan.plannedKv * 1000;
   // One comparison for every rating in the set, with the margin and tolerance of shared/hv.
@@ -36,22 +50,40 @@ export function assessSetup(input: { items: AssessedItem[]; plan: TestPlan; rule
       const margin = marginFor(item.ratedKv);
       ratingOk = margin.ok;
       marginKv = margin.marginKv;
-      if (!margin.ok) notes.push(`Rated ${item.ratedKv} kV; the plan needs at least ${margin.requiredKv.toFixed(1)} kV with the lab's ${rules.ratingMarginPct} % margin.`);
+      if (!margin.ok)
+        notes.push(`Rated ${item.ratedKv} kV; the plan needs at least ${margin.requiredKv.toFixed(1)} kV with the lab's ${rules.ratingMarginPct} % margin.`);
     }
     const inService = item.status === 'in-service';
     if (!inService) notes.push(item.status === 'retired' ? 'Retired.' : 'Tagged out of service.');
     const inspectionCurrent = item.inspectionState === 'current' || item.inspectionState === 'due-soon';
     if (!inspectionCurrent) notes.push(item.inspectionState === 'never' ? 'Never inspected.' : 'Inspection overdue.');
-    return { itemId: item.id, tag: item.tag, name: item.name, kind: item.kind, ratedKv: item.ratedKv, requiredKv, marginKv, ratingOk, inService, inspectionCurrent, notes };
+    return {
+      itemId: item.id,
+      tag: item.tag,
+      name: item.name,
+      kind: item.kind,
+      ratedKv: item.ratedKv,
+      requiredKv,
+      marginKv,
+      ratingOk,
+      inService,
+      inspectionCurrent,
+      notes,
+    };
   });
 
   // Companions the set must carry, rated for the plan with the margin.
   const ratedFor = (kind: ItemKind) => items.some((i) => i.kind === kind && i.ratedKv !== null && marginFor(i.ratedKv).ok);
   const missingCompanions: Reason[] = [];
-  if (!ratedFor('grounding-stick')) missingCompanions.push({ code: 'grounding-stick', message: `Add a grounding stick rated for at least ${requiredKv.toFixed(1)} kV.` });
-  if (!ratedFor('isolation-stand')) missingCompanions.push({ code: 'isolation-stand', message: `Add an isolation stand rated for at least ${requiredKv.toFixed(1)} kV.` });
+  if (!ratedFor('grounding-stick'))
+    missingCompanions.push({ code: 'grounding-stick', message: `Add a grounding stick rated for at least ${requiredKv.toFixed(1)} kV.` });
+  if (!ratedFor('isolation-stand'))
+    missingCompanions.push({ code: 'isolation-stand', message: `Add an isolation stand rated for at least ${requiredKv.toFixed(1)} kV.` });
   if (plan.plannedKv > rules.interlockKv && !ratedFor('interlock')) {
-    missingCompanions.push({ code: 'interlock', message: `Above ${rules.interlockKv} kV the lab requires an interlocked enclosure or barrier rated for at least ${requiredKv.toFixed(1)} kV.` });
+    missingCompanions.push({
+      code: 'interlock',
+      message: `Above ${rules.interlockKv} kV the lab requires an interlocked enclosure or barrier rated for at least ${requiredKv.toFixed(1)} kV.`,
+    });
   }
 
   const polaritySources = items
@@ -88,7 +120,13 @@ export function assessSetup(input: { items: AssessedItem[]; plan: TestPlan; rule
       sourceWithoutBleeder = true; // a bare stack bleeds only through its load; ground it
       if (stageC > 0 && frequency > 0) {
         const drivePeakInputV = plannedV / (2 * stages);
-        const out = multiplierOutput({ stages, peakInputV: drivePeakInputV, frequencyHz: frequency, stageCapacitanceF: stageC, loadCurrentA: plan.maxCurrentMa / 1000 });
+        const out = multiplierOutput({
+          stages,
+          peakInputV: drivePeakInputV,
+          frequencyHz: frequency,
+          stageCapacitanceF: stageC,
+          loadCurrentA: plan.maxCurrentMa / 1000,
+        });
         storedEnergyJ += out.stackEnergyJ;
         outputCapacitanceF += out.outputCapacitanceF;
         multipliers.push({
@@ -121,7 +159,15 @@ export function assessSetup(input: { items: AssessedItem[]; plan: TestPlan; rule
   } else {
     const resistanceOhm = 1 / bleedersOhm.reduce((sum, r) => sum + 1 / r, 0);
     const d = dischargePlan({ resistanceOhm, capacitanceF: outputCapacitanceF, initialV: plannedV, safeV: rules.safeResidualV });
-    bleedDown = { resistanceOhm, timeS: d.timeS, timeConstants: d.timeConstants, residualAfter5TauV: d.residualAfter5TauV, fiveTauIsEnough: d.fiveTauIsEnough, note: d.note, source: d.source };
+    bleedDown = {
+      resistanceOhm,
+      timeS: d.timeS,
+      timeConstants: d.timeConstants,
+      residualAfter5TauV: d.residualAfter5TauV,
+      fiveTauIsEnough: d.fiveTauIsEnough,
+      note: d.note,
+      source: d.source,
+    };
     bleedDownNote = `Through the bleeder the output falls below ${rules.safeResidualV} V in ${d.timeS.toFixed(1)} s. Ground it anyway before touching.`;
   }
 
@@ -146,16 +192,21 @@ export function assessSetup(input: { items: AssessedItem[]; plan: TestPlan; rule
   }
 
   const approvalReasons: Reason[] = [];
-  if (plan.plannedKv > rules.approvalKv) approvalReasons.push({ code: 'planned-kv', message: `The plan (${plan.plannedKv} kV) is above the lab's approval voltage (${rules.approvalKv} kV).` });
+  if (plan.plannedKv > rules.approvalKv)
+    approvalReasons.push({ code: 'planned-kv', message: `The plan (${plan.plannedKv} kV) is above the lab's approval voltage (${rules.approvalKv} kV).` });
   if (storedEnergyJ > rules.energyThresholdJ) {
-    approvalReasons.push({ code: 'stored-energy', message: `Stored energy ${storedEnergyJ.toFixed(3)} J is above the lab's threshold (${rules.energyThresholdJ} J).` });
+    approvalReasons.push({
+      code: 'stored-energy',
+      message: `Stored energy ${storedEnergyJ.toFixed(3)} J is above the lab's threshold (${rules.energyThresholdJ} J).`,
+    });
   }
   const qualification = qualificationReason(plan.plannedKv, input.qualification, today);
   if (qualification) approvalReasons.push(qualification);
 
   if (hazard.hazardous) cautions.push('Hazardous live: treat every ungrounded terminal as energised and ground it before touching.');
   if (sourcePeakKv > plan.plannedKv) cautions.push(`Barriers follow the highest voltage the sources can reach (${sourcePeakKv} kV), not the setpoint.`);
-  if (bleedDown && !bleedDown.fiveTauIsEnough) cautions.push('Waiting five time constants is not enough at this voltage; wait the computed bleed-down time and then ground.');
+  if (bleedDown && !bleedDown.fiveTauIsEnough)
+    cautions.push('Waiting five time constants is not enough at this voltage; wait the computed bleed-down time and then ground.');
   if (plan.peoplePresent < 2 && plan.plannedKv > 1) cautions.push('Do not work alone on a high-voltage test: a second person should be present.');
 
   return {

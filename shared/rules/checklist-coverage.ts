@@ -47,7 +47,11 @@ export function checklistCoverage(entries: readonly ChecklistEntry[], answers: r
     const answer = answers.find((a) => a.id === entry.id);
     if (!answer || !sameLine(entry, answer)) {
       complete = false;
-      gaps.push(answer ? `“${entry.text}” changed after the checklist was answered: answer it again.` : `“${entry.text}” was added after the checklist was answered: answer it.`);
+      gaps.push(
+        answer
+          ? `“${entry.text}” changed after the checklist was answered: answer it again.`
+          : `“${entry.text}” was added after the checklist was answered: answer it.`,
+      );
       continue;
     }
     if (entry.required && !isAnswered(answer)) {

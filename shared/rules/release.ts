@@ -33,7 +33,6 @@ export const RETURN_RULES = {
 } as const;
 export type ReturnRule = keyof typeof RETURN_RULES;
 
-
 /** The latest officer decision on a booking, as stored. */
 export interface ApprovalRecord {
   decision: 'approve' | 'refuse';
@@ -101,7 +100,16 @@ export function gearFailures(a: Assessment, clashingTags: readonly string[]): Ru
 }
 
 /** The rules gearFailures checks: a release-check failure on one of these means the booking must change first. */
-export const GEAR_RULES: readonly ReleaseRule[] = ['clash', 'in-service', 'inspection', 'rating', 'grounding-stick', 'isolation-stand', 'interlock', 'polarity'];
+export const GEAR_RULES: readonly ReleaseRule[] = [
+  'clash',
+  'in-service',
+  'inspection',
+  'rating',
+  'grounding-stick',
+  'isolation-stand',
+  'interlock',
+  'polarity',
+];
 
 export function releaseFailures(ctx: ReleaseContext): RuleFailure<ReleaseRule>[] {
   const failures: RuleFailure<ReleaseRule>[] = [];
@@ -147,7 +155,8 @@ export interface ReturnContext {
 
 export function returnFailures(ctx: ReturnContext): RuleFailure<ReturnRule>[] {
   if (ctx.status !== 'released') return [{ rule: 'status', message: `${RETURN_RULES.status} This booking is ${ctx.status}.` }];
-  if (!ctx.checklist || ctx.checklist.planVersion !== ctx.planVersion) return [{ rule: 'make-safe-checklist', message: 'Complete the make-safe checklist first.' }];
+  if (!ctx.checklist || ctx.checklist.planVersion !== ctx.planVersion)
+    return [{ rule: 'make-safe-checklist', message: 'Complete the make-safe checklist first.' }];
   const coverage = checklistCoverage(ctx.checklistEntries, ctx.checklist.answers);
   if (coverage.complete && coverage.withinLimits) return [];
   const detail = coverage.withinLimits ? '' : ' Ground the output again and measure.';

@@ -49,10 +49,40 @@ export interface Assessment {
   storedEnergyJ: number;
   outputCapacitanceF: number;
   hazard: { hazardous: boolean; criterion: string; explanation: string; source: string };
-  bleedDown: { resistanceOhm: number; timeS: number; timeConstants: number; residualAfter5TauV: number; fiveTauIsEnough: boolean; note: string; source: string } | null;
+  bleedDown: {
+    resistanceOhm: number;
+    timeS: number;
+    timeConstants: number;
+    residualAfter5TauV: number;
+    fiveTauIsEnough: boolean;
+    note: string;
+    source: string;
+  } | null;
   bleedDownNote: string;
-  boundaries: { limitedMovableM: number | null; limitedFixedM: number | null; restrictedM: number | null; limitedFixedImperial: string; restrictedImperial: string; limitedMovableImperial: string; rowLabel: string; edition: string; marker: string; source: string } | null;
-  multipliers: { itemId: number; tag: string; stages: number; drivePeakInputV: number; noLoadV: number; dropV: number; rippleV: number; loadedV: number; optimumStages: number | null; overRating: boolean }[];
+  boundaries: {
+    limitedMovableM: number | null;
+    limitedFixedM: number | null;
+    restrictedM: number | null;
+    limitedFixedImperial: string;
+    restrictedImperial: string;
+    limitedMovableImperial: string;
+    rowLabel: string;
+    edition: string;
+    marker: string;
+    source: string;
+  } | null;
+  multipliers: {
+    itemId: number;
+    tag: string;
+    stages: number;
+    drivePeakInputV: number;
+    noLoadV: number;
+    dropV: number;
+    rippleV: number;
+    loadedV: number;
+    optimumStages: number | null;
+    overRating: boolean;
+  }[];
   approvalRequired: boolean;
   approvalReasons: Reason[];
   cautions: string[];

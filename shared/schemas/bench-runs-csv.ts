@@ -42,7 +42,11 @@ export function parseCsv(text: string): ParsedCsv {
   };
 }
 
-const squash = (s: string) => s.toLowerCase().replace(/µ/g, 'u').replace(/[^a-z0-9%²]/g, '');
+const squash = (s: string) =>
+  s
+    .toLowerCase()
+    .replace(/µ/g, 'u')
+    .replace(/[^a-z0-9%²]/g, '');
 
 // Words bench loggers commonly use for a column (common practice, no source).
 const ALIASES: Partial<Record<CsvField, string[]>> = {
@@ -121,7 +125,7 @@ export function csvRowsToRuns(parsed: ParsedCsv, mapping: Partial<Record<CsvFiel
     if (!result.success) {
       for (const issue of result.error.issues) {
         const field = issue.path[0] as CsvField | undefined;
-        errors.push(`${field && field in CSV_HEADERS ? CSV_HEADERS[field] : field ?? 'row'}: ${issue.message}`);
+        errors.push(`${field && field in CSV_HEADERS ? CSV_HEADERS[field] : (field ?? 'row')}: ${issue.message}`);
       }
     }
     return { line: i + 2, input: errors.length === 0 && result.success ? result.data : null, errors };
@@ -139,5 +143,8 @@ export function csvSafeText(value: string): string {
 }
 
 export function toCsv(headers: readonly string[], rows: readonly (readonly (string | number | null)[])[]): string {
-  return Papa.unparse({ fields: [...headers], data: rows.map((r) => r.map((c) => (c === null ? '' : typeof c === 'string' ? csvSafeText(c) : c))) }, { newline: '\r\n' });
+  return Papa.unparse(
+    { fields: [...headers], data: rows.map((r) => r.map((c) => (c === null ? '' : typeof c === 'string' ? csvSafeText(c) : c))) },
+    { newline: '\r\n' },
+  );
 }

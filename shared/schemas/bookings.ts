@@ -12,7 +12,9 @@ import { polaritySchema, type ItemSummary } from './items';
  * round, so a value is stored exactly as it was assessed (15.004 kV is not silently 15 kV).
  */
 export const decimalNumber = (places: number) =>
-  z.number().refine((v) => Number(v.toFixed(places)) === v, { message: places === 0 ? 'Use a whole number' : `Use at most ${places} decimal place${places === 1 ? '' : 's'}` });
+  z.number().refine((v) => Number(v.toFixed(places)) === v, {
+    message: places === 0 ? 'Use a whole number' : `Use at most ${places} decimal place${places === 1 ? '' : 's'}`,
+  });
 
 export const BOOKING_STATUSES = ['requested', 'awaiting-approval', 'approved', 'refused', 'released', 'returned', 'cancelled'] as const;
 export type BookingStatus = (typeof BOOKING_STATUSES)[number];
@@ -84,9 +86,7 @@ export const bookingListQuerySchema = z
   })
   .strict();
 
-export const assessmentRequestSchema = z
-  .object({ itemIds, plan: testPlanSchema, personId: z.number().int().positive().optional() })
-  .strict();
+export const assessmentRequestSchema = z.object({ itemIds, plan: testPlanSchema, personId: z.number().int().positive().optional() }).strict();
 
 export const approvalDecisionSchema = z
   .object({
@@ -140,8 +140,16 @@ export const labRulesSchema = z
     ratingMarginPct: decimalNumber(2).min(0).max(200),
     interlockKv: decimalNumber(2).min(0).max(300),
     safeResidualV: decimalNumber(2).min(1).max(1000),
-    earlyPickupMin: z.number().int().min(0).max(24 * 60),
-    overdueGraceMin: z.number().int().min(0).max(7 * 24 * 60),
+    earlyPickupMin: z
+      .number()
+      .int()
+      .min(0)
+      .max(24 * 60),
+    overdueGraceMin: z
+      .number()
+      .int()
+      .min(0)
+      .max(7 * 24 * 60),
   })
   .strict();
 export type LabRules = z.infer<typeof labRulesSchema>;

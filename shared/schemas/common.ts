@@ -9,7 +9,10 @@ export const idListSchema = z
   .string()
   .max(4000)
   .transform((value, ctx) => {
-    const ids = value.split(',').filter((p) => p.trim() !== '').map((p) => Number(p.trim()));
+    const ids = value
+      .split(',')
+      .filter((p) => p.trim() !== '')
+      .map((p) => Number(p.trim()));
     if (ids.length === 0 || ids.some((n) => !Number.isInteger(n) || n <= 0 || n > 2_147_483_647)) {
       ctx.addIssue({ code: 'custom', message: 'Give a comma-separated list of item ids' });
       return z.NEVER;

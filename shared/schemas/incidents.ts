@@ -27,7 +27,10 @@ export const incidentSeverityWords: Record<IncidentSeverity, { label: string; de
   low: { label: 'Low', definition: 'No injury and no lasting damage; a reminder or a small fix is enough.' },
   moderate: { label: 'Moderate', definition: 'First aid only, or gear damaged but repairable; work can go on once it is put right.' },
   serious: { label: 'Serious', definition: 'Medical treatment needed, or gear destroyed, or a protective measure (barrier, interlock, grounding) failed.' },
-  severe: { label: 'Severe', definition: 'Hospital admission, lost consciousness, a shock through the body, or a fire; stop the work until the officer has reviewed it.' },
+  severe: {
+    label: 'Severe',
+    definition: 'Hospital admission, lost consciousness, a shock through the body, or a fire; stop the work until the officer has reviewed it.',
+  },
 };
 
 export const incidentStatusWords: Record<IncidentStatus, string> = {

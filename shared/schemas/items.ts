@@ -144,11 +144,7 @@ export function ratedKvOf(item: ItemRatings): number | null {
 }
 
 export const TAG_PATTERN = /^[A-Z0-9][A-Z0-9-]{1,30}[A-Z0-9]$/;
-export const tagSchema = z
-  .string()
-  .trim()
-  .toUpperCase()
-  .regex(TAG_PATTERN, 'Tags use capital letters, digits and dashes (3–32 characters)');
+export const tagSchema = z.string().trim().toUpperCase().regex(TAG_PATTERN, 'Tags use capital letters, digits and dashes (3–32 characters)');
 
 const text = (max: number) => z.string().trim().max(max);
 
@@ -163,8 +159,7 @@ const itemCommonFields = {
 };
 
 const createFields = { tag: tagSchema.optional(), ...itemCommonFields };
-const createVariant = <K extends ItemKind, R extends z.ZodType>(kind: K, ratings: R) =>
-  z.object({ ...createFields, kind: z.literal(kind), ratings }).strict();
+const createVariant = <K extends ItemKind, R extends z.ZodType>(kind: K, ratings: R) => z.object({ ...createFields, kind: z.literal(kind), ratings }).strict();
 
 export const itemCreateSchema = z.discriminatedUnion('kind', [
   createVariant('multiplier', multiplierRatingsSchema),

@@ -86,11 +86,14 @@ export async function counterLoop(who: Who, kit: { ids: number[]; tags: string[]
     if (res.status >= 500) lastFailure = `${res.status} ${path} ${res.text.slice(0, 300)}`;
     return res.status === 200;
   };
-  for (const tag of kit.tags) if (!(await step(`/api/bookings/${booking.id}/scans`, { tag }))) return { statuses, bookingId: booking.id, released: false, returned: false };
-  if (!(await step(`/api/bookings/${booking.id}/checklist`, { phase: 'pre', answers: answersFor(booking.checklist.pre) }))) return { statuses, bookingId: booking.id, released: false, returned: false };
+  for (const tag of kit.tags)
+    if (!(await step(`/api/bookings/${booking.id}/scans`, { tag }))) return { statuses, bookingId: booking.id, released: false, returned: false };
+  if (!(await step(`/api/bookings/${booking.id}/checklist`, { phase: 'pre', answers: answersFor(booking.checklist.pre) })))
+    return { statuses, bookingId: booking.id, released: false, returned: false };
   const released = await step(`/api/bookings/${booking.id}/release`, {});
   if (!released || options.returnIt === false) return { statuses, bookingId: booking.id, released, returned: false };
-  if (!(await step(`/api/bookings/${booking.id}/checklist`, { phase: 'return', answers: answersFor(booking.checklist.return) }))) return { statuses, bookingId: booking.id, released, returned: false };
+  if (!(await step(`/api/bookings/${booking.id}/checklist`, { phase: 'return', answers: answersFor(booking.checklist.return) })))
+    return { statuses, bookingId: booking.id, released, returned: false };
   const returned = await step(`/api/bookings/${booking.id}/return`, {});
   return { statuses, bookingId: booking.id, released, returned };
 }

@@ -5,7 +5,17 @@
 import { existsSync, readFileSync } from 'node:fs';
 import { killNode, nodeInstances, restartNode } from '../../scripts/lib/galera';
 import { nodeDb } from '../../scripts/lib/cluster-run';
-import { counterLoad, lastFailure, expectAcknowledgedWrites, expectConsistent, kitIds, qualifiedMember, sleep, startTestCluster, type ClusterContext } from './cluster-helpers';
+import {
+  counterLoad,
+  lastFailure,
+  expectAcknowledgedWrites,
+  expectConsistent,
+  kitIds,
+  qualifiedMember,
+  sleep,
+  startTestCluster,
+  type ClusterContext,
+} from './cluster-helpers';
 
 let ctx: ClusterContext;
 beforeAll(async () => {
@@ -26,7 +36,9 @@ it('a node killed mid-load: answers go on, acknowledged writes stay, the node re
   await load.stop();
   const records = load.records;
   const failures = records.flatMap((r) => r.statuses).filter((s) => s >= 500 || s === 0);
-  console.log(`node loss: ${records.length} loops, ${records.filter((r) => r.returned).length} complete, ${failures.length} failed requests (${JSON.stringify(failures)}); last: ${lastFailure}`);
+  console.log(
+    `node loss: ${records.length} loops, ${records.filter((r) => r.returned).length} complete, ${failures.length} failed requests (${JSON.stringify(failures)}); last: ${lastFailure}`,
+  );
   // Loops that began two seconds after the kill all went through.
   const late = records.filter((r) => r.startedAt > killedAt + 2000);
   expect(late.length).toBeGreaterThan(0);

@@ -19,7 +19,10 @@ it('overdue bookings: each reminder reaches each recipient exactly once with two
     bookingIds.push(loop.bookingId!);
   }
   // Out past the end and the officers' grace (the lab's default is 30 minutes).
-  await ctx.db('bookings').whereIn('id', bookingIds).update({ ends_at: new Date(Date.now() - 3 * 3600_000) });
+  await ctx
+    .db('bookings')
+    .whereIn('id', bookingIds)
+    .update({ ends_at: new Date(Date.now() - 3 * 3600_000) });
   const expected = new Map<string, number>();
   for (const m of members) expected.set(m.person.email, 1);
   for (const o of officers) expected.set(o.person.email, bookingIds.length);

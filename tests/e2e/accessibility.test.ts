@@ -12,11 +12,18 @@ import { e2eSuite, expectAccessible, newPage, PHONE, SCREENSHOT_DIR, signInThrou
 const suite = e2eSuite();
 // Each screen is checked four times (two viewports, two schemes) and screenshot four times.
 jest.setTimeout(300_000);
-const MAIL = { get publicUrl() { return suite.server.baseUrl; } };
+const MAIL = {
+  get publicUrl() {
+    return suite.server.baseUrl;
+  },
+};
 
 async function shootAll(page: Page, name: string): Promise<void> {
   const own = page.viewportSize();
-  for (const [vp, size] of [['phone', PHONE], ['wide', WIDE]] as const) {
+  for (const [vp, size] of [
+    ['phone', PHONE],
+    ['wide', WIDE],
+  ] as const) {
     await page.setViewportSize(size);
     for (const scheme of ['light', 'dark'] as const) {
       await page.emulateMedia({ colorScheme: scheme });
@@ -33,7 +40,9 @@ async function visit(page: Page, url: string, screenTestId: string, name: string
   await page.goto(`${suite.server.baseUrl}${url}`, { waitUntil: 'load' });
   await page.getByTestId(screenTestId).waitFor({ timeout: 20_000 });
   // Data screens show a loading state first: wait until it has gone.
-  await page.waitForFunction(() => !document.querySelector('[data-testid$="-loading"], [aria-busy="true"]'), undefined, { timeout: 15_000 }).catch(() => undefined);
+  await page
+    .waitForFunction(() => !document.querySelector('[data-testid$="-loading"], [aria-busy="true"]'), undefined, { timeout: 15_000 })
+    .catch(() => undefined);
   await shootAll(page, name);
   await expectAccessible(page, name);
 }
@@ -50,11 +59,35 @@ beforeAll(async () => {
   itemId = kit.supply.id;
   const actor = { id: member.id, email: member.email, name: member.name, role: 'member' as const };
   const start = new Date(Date.now() + 30 * 86400_000);
-  const waiting = await createBooking(db, actor, { itemIds: kit.all.map((i) => i.id), startsAt: start.toISOString(), endsAt: new Date(start.getTime() + 2 * 3600_000).toISOString(), location: 'Bay 3', purpose: 'Corona onset, needle to plane', plan: { plannedKv: 25, polarity: 'negative', maxCurrentMa: 0.5, peoplePresent: 2 } }, MAIL);
+  const waiting = await createBooking(
+    db,
+    actor,
+    {
+      itemIds: kit.all.map((i) => i.id),
+      startsAt: start.toISOString(),
+      endsAt: new Date(start.getTime() + 2 * 3600_000).toISOString(),
+      location: 'Bay 3',
+      purpose: 'Corona onset, needle to plane',
+      plan: { plannedKv: 25, polarity: 'negative', maxCurrentMa: 0.5, peoplePresent: 2 },
+    },
+    MAIL,
+  );
   bookingId = waiting.id;
   const kit2 = await insertKit(db);
   const now = new Date();
-  const running = await createBooking(db, actor, { itemIds: kit2.all.map((i) => i.id), startsAt: now.toISOString(), endsAt: new Date(now.getTime() + 2 * 3600_000).toISOString(), location: 'Bay 4', purpose: 'Ionic wind demo', plan: { plannedKv: 8, polarity: 'positive', maxCurrentMa: 0.5, peoplePresent: 2 } }, MAIL);
+  const running = await createBooking(
+    db,
+    actor,
+    {
+      itemIds: kit2.all.map((i) => i.id),
+      startsAt: now.toISOString(),
+      endsAt: new Date(now.getTime() + 2 * 3600_000).toISOString(),
+      location: 'Bay 4',
+      purpose: 'Ionic wind demo',
+      plan: { plannedKv: 8, polarity: 'positive', maxCurrentMa: 0.5, peoplePresent: 2 },
+    },
+    MAIL,
+  );
   // Test data only: put the booking straight into "released" so the return screen has one to show.
   await db('bookings').where({ id: running.id }).update({ status: 'released', released_at: now });
   releasedId = running.id;

@@ -64,131 +64,139 @@ async function signInExpectingFailure(page: Page, email: string, password: strin
 }
 
 describe('an invitation', () => {
-  it('is sent from People, sets a password through its link, and the new person signs in', async () => {
-    const email = uniqueEmail('invitee');
-    const managerView = await newPage(suite.browser.browser, PHONE);
-    try {
-      const page = managerView.page;
-      await signInThroughUi(page, suite.server.baseUrl, manager.email, manager.password);
-      await page.goto(`${suite.server.baseUrl}/people`, { waitUntil: 'load' });
-      await page.getByTestId('people-invite-open').click();
-      await page.getByTestId('people-invite-submit').click();
-      // The shared invitation schema speaks before anything is sent.
-      await expect(page.getByTestId('invite-email-error').textContent()).resolves.toBe('Enter a valid e-mail address');
-      await page.getByTestId('invite-name').fill('Odile Varga');
-      await page.getByTestId('invite-email').fill(email);
-      await page.getByTestId('invite-role-member').click();
-      await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'people-invite-phone.png') });
-      await page.getByTestId('people-invite-submit').click();
-      await expect(page.getByTestId('people-invite-sent').textContent()).resolves.toContain(email);
-      const invited = await suite.server.db('people').where({ email }).first('id', 'role', 'password_hash');
-      expect(invited).toMatchObject({ role: 'member', password_hash: null });
+  it(
+    'is sent from People, sets a password through its link, and the new person signs in',
+    async () => {
+      const email = uniqueEmail('invitee');
+      const managerView = await newPage(suite.browser.browser, PHONE);
+      try {
+        const page = managerView.page;
+        await signInThroughUi(page, suite.server.baseUrl, manager.email, manager.password);
+        await page.goto(`${suite.server.baseUrl}/people`, { waitUntil: 'load' });
+        await page.getByTestId('people-invite-open').click();
+        await page.getByTestId('people-invite-submit').click();
+        // The shared invitation schema speaks before anything is sent.
+        await expect(page.getByTestId('invite-email-error').textContent()).resolves.toBe('Enter a valid e-mail address');
+        await page.getByTestId('invite-name').fill('Odile Varga');
+        await page.getByTestId('invite-email').fill(email);
+        await page.getByTestId('invite-role-member').click();
+        await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'people-invite-phone.png') });
+        await page.getByTestId('people-invite-submit').click();
+        await expect(page.getByTestId('people-invite-sent').textContent()).resolves.toContain(email);
+        const invited = await suite.server.db('people').where({ email }).first('id', 'role', 'password_hash');
+        expect(invited).toMatchObject({ role: 'member', password_hash: null });
 
-      // Inviting the same e-mail again is refused on the e-mail field.
-      await page.getByTestId('people-invite-sent-dismiss').click();
-      await page.getByTestId('people-invite-open').click();
-      await page.getByTestId('invite-name').fill('Odile Varga');
-      await page.getByTestId('invite-email').fill(email);
-      await page.getByTestId('people-invite-submit').click();
-      await expect(page.getByTestId('invite-email-error').textContent()).resolves.toContain('already in Voltcrib');
-    } finally {
-      await managerView.context.close();
-    }
+        // Inviting the same e-mail again is refused on the e-mail field.
+        await page.getByTestId('people-invite-sent-dismiss').click();
+        await page.getByTestId('people-invite-open').click();
+        await page.getByTestId('invite-name').fill('Odile Varga');
+        await page.getByTestId('invite-email').fill(email);
+        await page.getByTestId('people-invite-submit').click();
+        await expect(page.getByTestId('invite-email-error').textContent()).resolves.toContain('already in Voltcrib');
+      } finally {
+        await managerView.context.close();
+      }
 
-    const link = linkIn(await mailTo(email, 'You are invited to Voltcrib'), 'invitation');
-    const { context, page } = await newPage(suite.browser.browser, PHONE);
-    try {
-      await page.goto(link, { waitUntil: 'load' });
-      await page.getByTestId('invitation-screen').waitFor();
-      await expectAccessible(page, 'invitation');
-      await page.getByTestId('invitation-password').fill('kestrel hall bench four');
-      await page.getByTestId('invitation-confirm').fill('kestrel hall bench for');
-      await page.getByTestId('invitation-submit').click();
-      await expect(page.getByTestId('invitation-confirm-error').textContent()).resolves.toBe('The two passwords differ');
-      await page.getByTestId('invitation-confirm').fill('kestrel hall bench four');
-      await page.getByTestId('invitation-submit').click();
-      await page.getByTestId('invitation-done').waitFor({ timeout: 15_000 });
-      await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'invitation-done-phone.png') });
-      await page.getByTestId('invitation-done-sign-in').click();
-      await page.getByTestId('sign-in-email').fill(email);
-      await page.getByTestId('sign-in-password').fill('kestrel hall bench four');
-      await page.getByTestId('sign-in-submit').click();
-      await page.getByTestId('today-screen').waitFor({ timeout: 20_000 });
-      await expectAccessible(page, 'today');
-    } finally {
-      await context.close();
-    }
+      const link = linkIn(await mailTo(email, 'You are invited to Voltcrib'), 'invitation');
+      const { context, page } = await newPage(suite.browser.browser, PHONE);
+      try {
+        await page.goto(link, { waitUntil: 'load' });
+        await page.getByTestId('invitation-screen').waitFor();
+        await expectAccessible(page, 'invitation');
+        await page.getByTestId('invitation-password').fill('kestrel hall bench four');
+        await page.getByTestId('invitation-confirm').fill('kestrel hall bench for');
+        await page.getByTestId('invitation-submit').click();
+        await expect(page.getByTestId('invitation-confirm-error').textContent()).resolves.toBe('The two passwords differ');
+        await page.getByTestId('invitation-confirm').fill('kestrel hall bench four');
+        await page.getByTestId('invitation-submit').click();
+        await page.getByTestId('invitation-done').waitFor({ timeout: 15_000 });
+        await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'invitation-done-phone.png') });
+        await page.getByTestId('invitation-done-sign-in').click();
+        await page.getByTestId('sign-in-email').fill(email);
+        await page.getByTestId('sign-in-password').fill('kestrel hall bench four');
+        await page.getByTestId('sign-in-submit').click();
+        await page.getByTestId('today-screen').waitFor({ timeout: 20_000 });
+        await expectAccessible(page, 'today');
+      } finally {
+        await context.close();
+      }
 
-    // The link worked once.
-    const again = await newPage(suite.browser.browser, PHONE);
-    try {
-      await again.page.goto(link, { waitUntil: 'load' });
-      await again.page.getByTestId('invitation-password').fill('another long password');
-      await again.page.getByTestId('invitation-confirm').fill('another long password');
-      await again.page.getByTestId('invitation-submit').click();
-      await expect(again.page.getByTestId('invitation-expired').textContent()).resolves.toContain('used or has expired');
-    } finally {
-      await again.context.close();
-    }
-  }, MAIL_TEST_TIMEOUT_MS);
+      // The link worked once.
+      const again = await newPage(suite.browser.browser, PHONE);
+      try {
+        await again.page.goto(link, { waitUntil: 'load' });
+        await again.page.getByTestId('invitation-password').fill('another long password');
+        await again.page.getByTestId('invitation-confirm').fill('another long password');
+        await again.page.getByTestId('invitation-submit').click();
+        await expect(again.page.getByTestId('invitation-expired').textContent()).resolves.toContain('used or has expired');
+      } finally {
+        await again.context.close();
+      }
+    },
+    MAIL_TEST_TIMEOUT_MS,
+  );
 });
 
 describe('a forgotten password', () => {
-  it('is reset through the e-mailed link; the link then reads as used, with a way to ask again', async () => {
-    const person = await createPerson(suite.server.db, { role: 'member', name: 'Teodor Lund' });
-    const { context, page } = await newPage(suite.browser.browser, PHONE);
-    try {
-      await page.goto(`${suite.server.baseUrl}/`, { waitUntil: 'load' });
-      await page.getByTestId('sign-in-forgot').click();
-      await page.getByTestId('forgot-password-screen').waitFor();
-      await expectAccessible(page, 'forgot-password');
-      await page.getByTestId('forgot-password-email').fill('nobody-here@test.voltcrib.example');
-      await page.getByTestId('forgot-password-submit').click();
-      const unknownAnswer = await page.getByTestId('forgot-password-sent').textContent({ timeout: 15_000 });
+  it(
+    'is reset through the e-mailed link; the link then reads as used, with a way to ask again',
+    async () => {
+      const person = await createPerson(suite.server.db, { role: 'member', name: 'Teodor Lund' });
+      const { context, page } = await newPage(suite.browser.browser, PHONE);
+      try {
+        await page.goto(`${suite.server.baseUrl}/`, { waitUntil: 'load' });
+        await page.getByTestId('sign-in-forgot').click();
+        await page.getByTestId('forgot-password-screen').waitFor();
+        await expectAccessible(page, 'forgot-password');
+        await page.getByTestId('forgot-password-email').fill('nobody-here@test.voltcrib.example');
+        await page.getByTestId('forgot-password-submit').click();
+        const unknownAnswer = await page.getByTestId('forgot-password-sent').textContent({ timeout: 15_000 });
 
-      await page.goto(`${suite.server.baseUrl}/forgot-password`, { waitUntil: 'load' });
-      await page.getByTestId('forgot-password-email').fill(person.email);
-      await page.getByTestId('forgot-password-submit').click();
-      // The same words whether or not the e-mail has an account.
-      await expect(page.getByTestId('forgot-password-sent').textContent({ timeout: 15_000 })).resolves.toBe(unknownAnswer);
-      expect(unknownAnswer).toContain('If that e-mail belongs to an account');
-      await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'forgot-password-sent-phone.png') });
+        await page.goto(`${suite.server.baseUrl}/forgot-password`, { waitUntil: 'load' });
+        await page.getByTestId('forgot-password-email').fill(person.email);
+        await page.getByTestId('forgot-password-submit').click();
+        // The same words whether or not the e-mail has an account.
+        await expect(page.getByTestId('forgot-password-sent').textContent({ timeout: 15_000 })).resolves.toBe(unknownAnswer);
+        expect(unknownAnswer).toContain('If that e-mail belongs to an account');
+        await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'forgot-password-sent-phone.png') });
 
-      const link = linkIn(await mailTo(person.email, 'Reset your Voltcrib password'), 'reset-password');
-      await page.goto(link, { waitUntil: 'load' });
-      await page.getByTestId('reset-password-password').fill('short');
-      await page.getByTestId('reset-password-confirm').fill('short');
-      await page.getByTestId('reset-password-submit').click();
-      await expect(page.getByTestId('reset-password-password-error').textContent()).resolves.toBe('Use at least 10 characters');
-      await page.getByTestId('reset-password-password').fill('orrin polytechnic ladder');
-      await page.getByTestId('reset-password-confirm').fill('orrin polytechnic ladder');
-      await page.getByTestId('reset-password-submit').click();
-      await page.getByTestId('reset-password-done').waitFor({ timeout: 15_000 });
-      await page.getByTestId('reset-password-done-sign-in').click();
-      await signInExpectingFailure(page, person.email, person.password);
-      await page.getByTestId('sign-in-password').fill('orrin polytechnic ladder');
-      await page.getByTestId('sign-in-submit').click();
-      await page.getByTestId('today-screen').waitFor({ timeout: 20_000 });
-      await expectAccessible(page, 'today');
-    } finally {
-      await context.close();
-    }
+        const link = linkIn(await mailTo(person.email, 'Reset your Voltcrib password'), 'reset-password');
+        await page.goto(link, { waitUntil: 'load' });
+        await page.getByTestId('reset-password-password').fill('short');
+        await page.getByTestId('reset-password-confirm').fill('short');
+        await page.getByTestId('reset-password-submit').click();
+        await expect(page.getByTestId('reset-password-password-error').textContent()).resolves.toBe('Use at least 10 characters');
+        await page.getByTestId('reset-password-password').fill('orrin polytechnic ladder');
+        await page.getByTestId('reset-password-confirm').fill('orrin polytechnic ladder');
+        await page.getByTestId('reset-password-submit').click();
+        await page.getByTestId('reset-password-done').waitFor({ timeout: 15_000 });
+        await page.getByTestId('reset-password-done-sign-in').click();
+        await signInExpectingFailure(page, person.email, person.password);
+        await page.getByTestId('sign-in-password').fill('orrin polytechnic ladder');
+        await page.getByTestId('sign-in-submit').click();
+        await page.getByTestId('today-screen').waitFor({ timeout: 20_000 });
+        await expectAccessible(page, 'today');
+      } finally {
+        await context.close();
+      }
 
-    const { context: later, page: laterPage } = await newPage(suite.browser.browser, PHONE);
-    try {
-      const link = linkIn(await mailTo(person.email, 'Reset your Voltcrib password'), 'reset-password');
-      await laterPage.goto(link, { waitUntil: 'load' });
-      await laterPage.getByTestId('reset-password-password').fill('yet another long one');
-      await laterPage.getByTestId('reset-password-confirm').fill('yet another long one');
-      await laterPage.getByTestId('reset-password-submit').click();
-      await expect(laterPage.getByTestId('reset-password-expired').textContent()).resolves.toMatch(/used or expired/i);
-      await laterPage.screenshot({ path: path.join(SCREENSHOT_DIR, 'reset-password-expired-phone.png') });
-      await laterPage.getByTestId('reset-password-expired-retry').click();
-      await laterPage.getByTestId('forgot-password-email').waitFor();
-    } finally {
-      await later.close();
-    }
-  }, MAIL_TEST_TIMEOUT_MS);
+      const { context: later, page: laterPage } = await newPage(suite.browser.browser, PHONE);
+      try {
+        const link = linkIn(await mailTo(person.email, 'Reset your Voltcrib password'), 'reset-password');
+        await laterPage.goto(link, { waitUntil: 'load' });
+        await laterPage.getByTestId('reset-password-password').fill('yet another long one');
+        await laterPage.getByTestId('reset-password-confirm').fill('yet another long one');
+        await laterPage.getByTestId('reset-password-submit').click();
+        await expect(laterPage.getByTestId('reset-password-expired').textContent()).resolves.toMatch(/used or expired/i);
+        await laterPage.screenshot({ path: path.join(SCREENSHOT_DIR, 'reset-password-expired-phone.png') });
+        await laterPage.getByTestId('reset-password-expired-retry').click();
+        await laterPage.getByTestId('forgot-password-email').waitFor();
+      } finally {
+        await later.close();
+      }
+    },
+    MAIL_TEST_TIMEOUT_MS,
+  );
 
   it('treats a link that was never issued as used or expired', async () => {
     const { context, page } = await newPage(suite.browser.browser, PHONE);
@@ -333,8 +341,21 @@ describe('a manager on Reports', () => {
       approval_required: false,
     };
     // A three-hour test two days ago, and one whose gear is two hours overdue now.
-    await suite.server.db('bookings').insert({ ...booking, status: 'returned', starts_at: new Date(now - 50 * hour), ends_at: new Date(now - 47 * hour), released_at: new Date(now - 50 * hour), returned_at: new Date(now - 47 * hour) });
-    const [overdueId] = (await suite.server.db('bookings').insert({ ...booking, status: 'released', starts_at: new Date(now - 5 * hour), ends_at: new Date(now - 2 * hour), released_at: new Date(now - 5 * hour) })) as [number];
+    await suite.server.db('bookings').insert({
+      ...booking,
+      status: 'returned',
+      starts_at: new Date(now - 50 * hour),
+      ends_at: new Date(now - 47 * hour),
+      released_at: new Date(now - 50 * hour),
+      returned_at: new Date(now - 47 * hour),
+    });
+    const [overdueId] = (await suite.server.db('bookings').insert({
+      ...booking,
+      status: 'released',
+      starts_at: new Date(now - 5 * hour),
+      ends_at: new Date(now - 2 * hour),
+      released_at: new Date(now - 5 * hour),
+    })) as [number];
     const dueItem = await insertItem(suite.server.db, 'probe', { nextDue: addDaysIso(todayIso(), -1) });
 
     const { context, page } = await newPage(suite.browser.browser, PHONE);
@@ -347,8 +368,17 @@ describe('a manager on Reports', () => {
 
       // Never inspected first, then soonest, at most 50: an item a day overdue is listed unless 50
       // never-inspected or older ones exist.
-      await page.getByTestId('reports-inspections').getByText(/Never inspected|Overdue|Due soon/).first().waitFor({ timeout: 15_000 });
-      const older = await suite.server.db('items').whereNot('status', 'retired').andWhere((w) => w.whereNull('next_inspection_due').orWhere('next_inspection_due', '<', addDaysIso(todayIso(), -1))).count({ n: '*' }).first();
+      await page
+        .getByTestId('reports-inspections')
+        .getByText(/Never inspected|Overdue|Due soon/)
+        .first()
+        .waitFor({ timeout: 15_000 });
+      const older = await suite.server
+        .db('items')
+        .whereNot('status', 'retired')
+        .andWhere((w) => w.whereNull('next_inspection_due').orWhere('next_inspection_due', '<', addDaysIso(todayIso(), -1)))
+        .count({ n: '*' })
+        .first();
       if (Number(older?.n) < 50) await page.getByTestId(`reports-inspection-${dueItem.id}`).waitFor();
       await expect(page.getByTestId('reports-inspections-csv').getAttribute('href')).resolves.toBe('/api/reports/inspections.csv');
 

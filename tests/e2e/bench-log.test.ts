@@ -16,14 +16,27 @@ import { e2eSuite, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, WIDE } from 
 const suite = e2eSuite();
 
 function answers(entries: ChecklistEntry[]) {
-  return entries.filter((e) => e.required).map((e) => (e.kind === 'reading' ? { itemId: e.id, value: e.min ?? e.max ?? 0 } : { itemId: e.id, confirmed: true }));
+  return entries
+    .filter((e) => e.required)
+    .map((e) => (e.kind === 'reading' ? { itemId: e.id, value: e.min ?? e.max ?? 0 } : { itemId: e.id, confirmed: true }));
 }
 
 async function releasedFor(member: { id: number; email: string; name: string }) {
   const who = { id: member.id, email: member.email, name: member.name, role: 'member' as const };
   const kit = await insertKit(suite.server.db);
   const mail = { publicUrl: suite.server.baseUrl };
-  let booking = await createBooking(suite.server.db, who, { itemIds: kit.all.map((i) => i.id), ...windowFromNow(), location: 'Kestrel Hall, bay 2', purpose: 'Wire-to-mesh sweep', plan: plan(10, { maxCurrentMa: 0.5 }) } as never, mail);
+  let booking = await createBooking(
+    suite.server.db,
+    who,
+    {
+      itemIds: kit.all.map((i) => i.id),
+      ...windowFromNow(),
+      location: 'Kestrel Hall, bay 2',
+      purpose: 'Wire-to-mesh sweep',
+      plan: plan(10, { maxCurrentMa: 0.5 }),
+    } as never,
+    mail,
+  );
   for (const item of booking.items) booking = await recordScan(suite.server.db, who, booking.id, item.tag);
   booking = await submitChecklist(suite.server.db, who, booking.id, { phase: 'pre', answers: answers(booking.checklist.pre) });
   return releaseBooking(suite.server.db, who, booking.id);
@@ -59,7 +72,9 @@ it('records runs from the booking page, flags them in words, and imports a logge
     // One tap at a time: each waits for the field to show its step before the next.
     for (const kv of ['9', '10', '11']) {
       await page.getByTestId('bench-run-form-kv-up').click();
-      await page.waitForFunction((want) => (document.querySelector('[data-testid="bench-run-form-kv"]') as HTMLInputElement | null)?.value === want, kv, { timeout: 5_000 });
+      await page.waitForFunction((want) => (document.querySelector('[data-testid="bench-run-form-kv"]') as HTMLInputElement | null)?.value === want, kv, {
+        timeout: 5_000,
+      });
     }
     await expect(page.getByTestId('bench-run-form-kv').inputValue()).resolves.toBe('11');
     await page.getByTestId('bench-run-form-unit-ua').click();
@@ -81,7 +96,11 @@ it('records runs from the booking page, flags them in words, and imports a logge
     // The run names its photo, shown on the run; the next point starts without one.
     await page.getByTestId('bench-run-2-photo').waitFor();
     await expect(page.getByTestId('bench-run-form-photo-attached').count()).resolves.toBe(0);
-    const stored = await suite.server.db('bench_runs').where({ booking_id: booking.id }).orderBy('number').select('current_ma', 'current_unit', 'temperature_c', 'photo_file_id');
+    const stored = await suite.server
+      .db('bench_runs')
+      .where({ booking_id: booking.id })
+      .orderBy('number')
+      .select('current_ma', 'current_unit', 'temperature_c', 'photo_file_id');
     const [photoRow] = await suite.server.db('item_files').where({ booking_id: booking.id, file_name: 'mesh-gap-30.png' }).select('id');
     expect(photoRow).toBeDefined();
     expect(stored).toEqual([

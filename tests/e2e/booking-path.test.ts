@@ -36,7 +36,13 @@ it('books above the approval voltage, gets approved, releases at the counter and
   await qualify(suite.server.db, member.id, 20);
   const kit = await insertKit(suite.server.db);
   const stray = await insertItem(suite.server.db, 'probe');
-  const items = (await suite.server.db('items').whereIn('id', kit.all.map((i) => i.id)).select('id', 'tag', 'name')) as { id: number; tag: string; name: string }[];
+  const items = (await suite.server
+    .db('items')
+    .whereIn(
+      'id',
+      kit.all.map((i) => i.id),
+    )
+    .select('id', 'tag', 'name')) as { id: number; tag: string; name: string }[];
 
   const { context, page } = await newPage(suite.browser.browser, PHONE);
   try {

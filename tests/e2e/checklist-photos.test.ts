@@ -52,7 +52,10 @@ async function attachPhoto(page: Page, lineTestId: string, name: string): Promis
   await page.getByTestId(`${lineTestId}-photo`).click();
   const opened = await chooser;
   // The phone's camera opens from the same input: an image chooser asking for the rear camera.
-  expect(await opened.element().evaluate((el) => [(el as Element).getAttribute('accept'), (el as Element).getAttribute('capture')])).toEqual(['image/*', 'environment']);
+  expect(await opened.element().evaluate((el) => [(el as Element).getAttribute('accept'), (el as Element).getAttribute('capture')])).toEqual([
+    'image/*',
+    'environment',
+  ]);
   await opened.setFiles({ name, mimeType: 'image/png', buffer: barrierPng() });
   // Once stored, the line names the file it holds (a replacement's name replaces the first one).
   await page.getByTestId(`${lineTestId}-file-name`).filter({ hasText: name }).waitFor({ timeout: 15_000 });
@@ -70,7 +73,13 @@ it('completes an officer-added required photo line by attaching a PNG, then rele
     const booking = await createBooking(
       suite.server.db,
       { id: member.id, email: member.email, name: 'Ines Kestrel', role: 'member' },
-      { itemIds: [...kit.all.map((i) => i.id), rig.id], ...windowFromNow(), location: 'Bay 4', purpose: 'Surface flashover on the stand', plan: plan(10) } as never,
+      {
+        itemIds: [...kit.all.map((i) => i.id), rig.id],
+        ...windowFromNow(),
+        location: 'Bay 4',
+        purpose: 'Surface flashover on the stand',
+        plan: plan(10),
+      } as never,
       { publicUrl: suite.server.baseUrl },
     );
     expect(booking.checklist.pre.some((e) => e.id === lineId && e.required && e.kind === 'photo')).toBe(true);
@@ -96,7 +105,9 @@ it('completes an officer-added required photo line by attaching a PNG, then rele
       expect(await suite.server.db('checklist_runs').where({ booking_id: booking.id })).toHaveLength(0);
 
       // Every photo line on this checklist gets one (a parallel suite may have added its own).
-      const photoLines = await page.locator('[data-testid^="checklist-pre-"][data-testid$="-photo"]').evaluateAll((els: Element[]) => els.map((el) => el.getAttribute('data-testid')!.replace(/-photo$/, '')));
+      const photoLines = await page
+        .locator('[data-testid^="checklist-pre-"][data-testid$="-photo"]')
+        .evaluateAll((els: Element[]) => els.map((el) => el.getAttribute('data-testid')!.replace(/-photo$/, '')));
       expect(photoLines).toContain(line);
       for (const id of photoLines) await attachPhoto(page, id, 'barrier-first.png');
       // Answering the line the server named takes its message (and the summary) away.

@@ -40,7 +40,14 @@ it('the audit trail reads in sentences, links to the item and is searched by tag
     const item = await insertItem(suite.server.db, 'probe');
     const csrf = await page.evaluate(async () => (await (await fetch('/api/session')).json()).csrfToken as string);
     const retired = await page.evaluate(
-      async ([id, token]) => (await fetch(`/api/items/${id}`, { method: 'PATCH', headers: { 'content-type': 'application/json', 'x-csrf-token': token }, body: JSON.stringify({ status: 'retired', statusReason: 'Cracked probe body' }) })).status,
+      async ([id, token]) =>
+        (
+          await fetch(`/api/items/${id}`, {
+            method: 'PATCH',
+            headers: { 'content-type': 'application/json', 'x-csrf-token': token },
+            body: JSON.stringify({ status: 'retired', statusReason: 'Cracked probe body' }),
+          })
+        ).status,
       [item.id, csrf] as const,
     );
     expect(retired).toBe(200);
@@ -123,10 +130,12 @@ it('keeps dark colours when chosen on More, whatever the system says, and goes b
   const { context, page } = await newPage(suite.browser.browser, PHONE, 'light');
   const background = () => page.getByTestId('more-screen').evaluate((el) => getComputedStyle(el).backgroundColor);
   const settlesOn = (want: (colour: string) => boolean) =>
-    page.waitForFunction(() => getComputedStyle(document.querySelector('[data-testid="more-screen"]')!).backgroundColor).then(async () => {
-      for (let i = 0; i < 50 && !want(await background()); i += 1) await page.waitForTimeout(100);
-      return background();
-    });
+    page
+      .waitForFunction(() => getComputedStyle(document.querySelector('[data-testid="more-screen"]')!).backgroundColor)
+      .then(async () => {
+        for (let i = 0; i < 50 && !want(await background()); i += 1) await page.waitForTimeout(100);
+        return background();
+      });
   try {
     await signInThroughUi(page, suite.server.baseUrl, member.email, member.password);
     await page.getByTestId('nav-more').click();

@@ -12,7 +12,11 @@ import { createPerson } from '../helpers/test-app';
 import { e2eSuite, expectAccessible, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi } from '../helpers/e2e';
 
 const suite = e2eSuite();
-const MAIL = { get publicUrl() { return suite.server.baseUrl; } };
+const MAIL = {
+  get publicUrl() {
+    return suite.server.baseUrl;
+  },
+};
 /** The app scrolls inside its own view: bring the part under test into the picture first. */
 async function shot(page: Page, name: string, testId: string) {
   await page.getByTestId(testId).scrollIntoViewIfNeeded();
@@ -39,7 +43,14 @@ it('names an out-of-limit reading with its line, value and limits, and clears it
   const booking = await createBooking(
     suite.server.db,
     actor,
-    { itemIds: kit.all.map((i) => i.id), startsAt: now.toISOString(), endsAt: new Date(now.getTime() + 2 * 3600_000).toISOString(), location: 'Bay 2', purpose: 'Bleeder check', plan: { plannedKv: 8, polarity: 'negative', maxCurrentMa: 0.5, peoplePresent: 2 } },
+    {
+      itemIds: kit.all.map((i) => i.id),
+      startsAt: now.toISOString(),
+      endsAt: new Date(now.getTime() + 2 * 3600_000).toISOString(),
+      location: 'Bay 2',
+      purpose: 'Bleeder check',
+      plan: { plannedKv: 8, polarity: 'negative', maxCurrentMa: 0.5, peoplePresent: 2 },
+    },
     MAIL,
   );
   const { context, page } = await newPage(suite.browser.browser, PHONE);
@@ -57,7 +68,9 @@ it('names an out-of-limit reading with its line, value and limits, and clears it
     await page.getByTestId('release-scanner-typed-input').fill(first.tag);
     await page.getByTestId('release-scanner-typed-submit').click();
     // (The badge's text starts with its icon's glyph.)
-    await expect(page.getByTestId('release-scan-ok').textContent({ timeout: 15_000 })).resolves.toMatch(new RegExp(`${first.tag} was already ticked off\\. ${kit.all.length - 1} still to scan\\.$`));
+    await expect(page.getByTestId('release-scan-ok').textContent({ timeout: 15_000 })).resolves.toMatch(
+      new RegExp(`${first.tag} was already ticked off\\. ${kit.all.length - 1} still to scan\\.$`),
+    );
     const field = await page.getByTestId('release-scanner-typed-input').boundingBox();
     const answer = await page.getByTestId('release-scan-ok').boundingBox();
     expect(answer!.y).toBeGreaterThan(field!.y);
@@ -99,7 +112,14 @@ it('locks a booking for tomorrow with "Opens at" on the lab clock, and offers ne
   const booking = await createBooking(
     suite.server.db,
     actor,
-    { itemIds: kit.all.map((i) => i.id), startsAt: start.toISOString(), endsAt: new Date(start.getTime() + 2 * 3600_000).toISOString(), location: 'Bay 2', purpose: 'Tomorrow', plan: { plannedKv: 8, polarity: 'negative', maxCurrentMa: 0.5, peoplePresent: 2 } },
+    {
+      itemIds: kit.all.map((i) => i.id),
+      startsAt: start.toISOString(),
+      endsAt: new Date(start.getTime() + 2 * 3600_000).toISOString(),
+      location: 'Bay 2',
+      purpose: 'Tomorrow',
+      plan: { plannedKv: 8, polarity: 'negative', maxCurrentMa: 0.5, peoplePresent: 2 },
+    },
     MAIL,
   );
   const { context, page } = await newPage(suite.browser.browser, PHONE);
@@ -120,7 +140,9 @@ it('locks a booking for tomorrow with "Opens at" on the lab clock, and offers ne
     await shot(page, 'locked', 'release-locked');
     // The booking's page says when the counter opens it, on the same clock.
     await page.goto(`${suite.server.baseUrl}/bookings/${booking.id}`, { waitUntil: 'load' });
-    await page.waitForFunction(() => /opens it at/.test(document.querySelector('[data-testid="booking-next-step-text"]')?.textContent ?? ''), undefined, { timeout: 20_000 });
+    await page.waitForFunction(() => /opens it at/.test(document.querySelector('[data-testid="booking-next-step-text"]')?.textContent ?? ''), undefined, {
+      timeout: 20_000,
+    });
     expect(await page.getByTestId('booking-next-step-text').textContent()).toMatch(/opens it at \d{2}:\d{2} on .+ time\)\.$/);
   } finally {
     await context.close();
@@ -131,8 +153,17 @@ it('says why a set can never be released above "Request booking", and its page o
   const { person } = await member();
   const kit = await insertKit(suite.server.db);
   // The supply's inspection ran out yesterday; it is negative only and the plan will be positive.
-  await suite.server.db('items').where({ id: kit.supply.id }).update({ next_inspection_due: addDaysIso(todayIso(), -1) });
-  const items = (await suite.server.db('items').whereIn('id', kit.all.map((i) => i.id)).select('id', 'tag', 'name')) as { id: number; tag: string; name: string }[];
+  await suite.server
+    .db('items')
+    .where({ id: kit.supply.id })
+    .update({ next_inspection_due: addDaysIso(todayIso(), -1) });
+  const items = (await suite.server
+    .db('items')
+    .whereIn(
+      'id',
+      kit.all.map((i) => i.id),
+    )
+    .select('id', 'tag', 'name')) as { id: number; tag: string; name: string }[];
   const { context, page } = await newPage(suite.browser.browser, PHONE);
   try {
     await signInThroughUi(page, suite.server.baseUrl, person.email, person.password);

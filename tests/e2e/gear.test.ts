@@ -113,8 +113,13 @@ it('a manager registers a multiplier, finds it, fails its inspection and sees it
     await expect(shown(page, 'item-inspections').textContent()).resolves.toContain('Insulation resistance, top stage: 12 MΩ');
     // The history shows the tag-out with its reason.
     // In the audit trail's words: who, which item, what happened.
-    await shown(page, 'item-history').getByText(/recorded a failed inspection of .+; it is out of service until repaired\./).waitFor({ timeout: 15_000 });
-    await shown(page, 'item-history').getByText(/tagged .+ out of service\./).first().waitFor();
+    await shown(page, 'item-history')
+      .getByText(/recorded a failed inspection of .+; it is out of service until repaired\./)
+      .waitFor({ timeout: 15_000 });
+    await shown(page, 'item-history')
+      .getByText(/tagged .+ out of service\./)
+      .first()
+      .waitFor();
     await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'gear-item-tagged-out-phone.png'), fullPage: true });
 
     // The list shows it out of service too.
@@ -258,7 +263,9 @@ describe('a manager on an item page', () => {
       await expect(shown(page, 'item-upload-done').textContent({ timeout: 15_000 })).resolves.toBe('Added stand-top.png.');
       await shown(page, 'item-photo').waitFor({ timeout: 15_000 });
       await expect(shown(page, 'item-files').textContent()).resolves.toContain('stand-top.png');
-      await shown(page, 'item-history').getByText(/added the file “stand-top\.png” to /).waitFor({ timeout: 15_000 });
+      await shown(page, 'item-history')
+        .getByText(/added the file “stand-top\.png” to /)
+        .waitFor({ timeout: 15_000 });
     } finally {
       await context.close();
     }

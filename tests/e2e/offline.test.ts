@@ -73,6 +73,10 @@ it('serves the service worker and index.html for revalidation, hashed files for 
     const font = await fetch(`${suite.server.baseUrl}${href}`);
     expect(font.headers.get('content-type')).toBe('font/woff2');
     expect(font.headers.get('cache-control')).toBe('public, max-age=31536000, immutable');
-    expect(Buffer.from(await font.arrayBuffer()).subarray(0, 4).toString('latin1')).toBe('wOF2');
+    expect(
+      Buffer.from(await font.arrayBuffer())
+        .subarray(0, 4)
+        .toString('latin1'),
+    ).toBe('wOF2');
   }
 });

@@ -94,7 +94,9 @@ describe('the Planner on a phone', () => {
       await expect(result(page, 'restricted').textContent()).resolves.toBe('0.3 m');
       // The member reads which table and edition, and that their own copy is the authority; how far
       // each row was confirmed stays in shared/hv/data and its README.
-      await expect(page.getByTestId('planner-source-boundaries').textContent()).resolves.toBe('Source: NFPA 70E-2021 Table 130.4(E)(b); check against your copy of the standard');
+      await expect(page.getByTestId('planner-source-boundaries').textContent()).resolves.toBe(
+        'Source: NFPA 70E-2021 Table 130.4(E)(b); check against your copy of the standard',
+      );
 
       await page.getByTestId('planner-choice-display-imperial').click();
       await expect(result(page, 'limited-fixed').textContent()).resolves.toBe('3 ft 6 in');

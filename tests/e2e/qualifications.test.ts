@@ -17,7 +17,12 @@ it('records a qualification that the release rules then read', async () => {
     await page.getByTestId(`qualification-person-${member.id}`).click();
     // On a phone the form opens in view, under the person, with a way out.
     await page.getByTestId('qualification-form').waitFor();
-    expect(await page.getByTestId('qualification-kv').evaluate((el) => { const r = el.getBoundingClientRect(); return r.top >= 0 && r.bottom <= innerHeight; })).toBe(true);
+    expect(
+      await page.getByTestId('qualification-kv').evaluate((el) => {
+        const r = el.getBoundingClientRect();
+        return r.top >= 0 && r.bottom <= innerHeight;
+      }),
+    ).toBe(true);
     await page.getByTestId('qualification-cancel').click();
     await page.getByTestId('qualification-form').waitFor({ state: 'detached' });
     await page.getByTestId(`qualification-person-${member.id}`).click();

@@ -5,7 +5,17 @@ import path from 'node:path';
 import { writeQrVideo } from '../helpers/fake-camera';
 import { insertItem } from '../helpers/gear';
 import { createPerson } from '../helpers/test-app';
-import { launchBrowser, newPage, PHONE, SCREENSHOT_DIR, signInThroughUi, startE2eServer, type BrowserHandle, type E2eServer, expectAccessible } from '../helpers/e2e';
+import {
+  launchBrowser,
+  newPage,
+  PHONE,
+  SCREENSHOT_DIR,
+  signInThroughUi,
+  startE2eServer,
+  type BrowserHandle,
+  type E2eServer,
+  expectAccessible,
+} from '../helpers/e2e';
 
 let server: E2eServer;
 /** Chromium whose camera shows the label of `scanned`. */

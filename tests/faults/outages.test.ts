@@ -21,7 +21,13 @@ import { createPerson } from '../helpers/test-app';
 const ROOT = path.resolve(__dirname, '../..');
 // Two above the test instance's port unless set, so parallel checkouts never share an instance.
 const FAULTS_PORT = Number(process.env.FAULTS_DB_PORT ?? Number(process.env.VOLTCRIB_TEST_DB_PORT ?? 3308) + 2);
-const INSTANCE: InstanceOptions = { name: FAULTS_PORT === 3310 ? 'faults' : `faults-${FAULTS_PORT}`, port: FAULTS_PORT, database: 'voltcrib_faults', user: 'voltcrib', password: 'voltcrib-local-only' };
+const INSTANCE: InstanceOptions = {
+  name: FAULTS_PORT === 3310 ? 'faults' : `faults-${FAULTS_PORT}`,
+  port: FAULTS_PORT,
+  database: 'voltcrib_faults',
+  user: 'voltcrib',
+  password: 'voltcrib-local-only',
+};
 const MAIL_FROM = 'Voltcrib <voltcrib@faults.voltcrib.example>';
 /** Short, so a send that could not be marked would be claimed again within the outage. */
 const LEASE_MS = 1500;
@@ -101,7 +107,11 @@ async function signIn(base: string, email: string, password: string): Promise<Cl
   const first = await fetch(`${base}/api/session`);
   const csrfCookie = cookieOf(first, 'voltcrib.csrf') ?? '';
   const { csrfToken } = (await first.json()) as { csrfToken: string };
-  const res = await fetch(`${base}/api/session`, { method: 'POST', headers: { cookie: csrfCookie, 'content-type': 'application/json', 'x-csrf-token': csrfToken }, body: JSON.stringify({ email, password }) });
+  const res = await fetch(`${base}/api/session`, {
+    method: 'POST',
+    headers: { cookie: csrfCookie, 'content-type': 'application/json', 'x-csrf-token': csrfToken },
+    body: JSON.stringify({ email, password }),
+  });
   if (res.status !== 200) throw new Error(`sign-in ${res.status}`);
   return { cookie: cookieOf(res, 'voltcrib.sid')!, csrf: ((await res.json()) as { csrfToken: string }).csrfToken };
 }
@@ -226,16 +236,50 @@ describe.each(TRANSPORTS)('over $transport', ({ transport, overSocket }) => {
         record('read session', await call(base, client, 'GET', '/api/session'));
         record('read list', await call(base, client, 'GET', '/api/bookings?mine=1'));
         const start = new Date(Date.now() + ((w * 1000 + round) % 50000) * 60_000);
-        const res = record('book', await call(base, client, 'POST', '/api/bookings', bookingBody(kit.all.map((i) => i.id), start, 30_000, 'Fault load')));
+        const res = record(
+          'book',
+          await call(
+            base,
+            client,
+            'POST',
+            '/api/bookings',
+            bookingBody(
+              kit.all.map((i) => i.id),
+              start,
+              30_000,
+              'Fault load',
+            ),
+          ),
+        );
         if (res.status === 201) acknowledgedBookings.set((res.json.booking as { id: number }).id, kit.all.length);
         // Release path on a booking that starts now.
         const now = new Date(Date.now() - 30_000);
-        const b = record('book now', await call(base, client, 'POST', '/api/bookings', bookingBody(kit.all.map((i) => i.id), now, 60_000 + w, 'Fault release')));
+        const b = record(
+          'book now',
+          await call(
+            base,
+            client,
+            'POST',
+            '/api/bookings',
+            bookingBody(
+              kit.all.map((i) => i.id),
+              now,
+              60_000 + w,
+              'Fault release',
+            ),
+          ),
+        );
         if (b.status !== 201) continue;
-        const booking = b.json.booking as { id: number; items: { tag: string }[]; checklist: { pre: { id: number; kind: string; required: boolean; min?: number }[] } };
+        const booking = b.json.booking as {
+          id: number;
+          items: { tag: string }[];
+          checklist: { pre: { id: number; kind: string; required: boolean; min?: number }[] };
+        };
         acknowledgedBookings.set(booking.id, kit.all.length);
         for (const item of booking.items) record('scan', await call(base, client, 'POST', `/api/bookings/${booking.id}/scans`, { tag: item.tag }));
-        const answers = booking.checklist.pre.filter((e) => e.required).map((e) => (e.kind === 'reading' ? { itemId: e.id, value: (e.min ?? 0) + 1 } : { itemId: e.id, confirmed: true }));
+        const answers = booking.checklist.pre
+          .filter((e) => e.required)
+          .map((e) => (e.kind === 'reading' ? { itemId: e.id, value: (e.min ?? 0) + 1 } : { itemId: e.id, confirmed: true }));
         record('checklist', await call(base, client, 'POST', `/api/bookings/${booking.id}/checklist`, { phase: 'pre', answers }));
         const r = record('release', await call(base, client, 'POST', `/api/bookings/${booking.id}/release`));
         if (r.status === 200) acknowledgedReleases.add(booking.id);
@@ -319,7 +363,9 @@ describe.each(TRANSPORTS)('over $transport', ({ transport, overSocket }) => {
     }
     for (const id of acknowledgedReleases) {
       const run = await db('checklist_runs').where({ booking_id: id, phase: 'pre' }).first('id');
-      const audit = await db('audit_events').where({ entity: 'booking', entity_id: String(id), action: 'booking.released' }).first('id');
+      const audit = await db('audit_events')
+        .where({ entity: 'booking', entity_id: String(id), action: 'booking.released' })
+        .first('id');
       expect({ id, run: Boolean(run), audit: Boolean(audit) }).toEqual({ id, run: true, audit: true });
     }
     const orphans = await db('bookings as b').leftJoin('booking_items as bi', 'bi.booking_id', 'b.id').whereNull('bi.booking_id').count({ n: '*' }).first();
@@ -352,7 +398,15 @@ describe.each(TRANSPORTS)('over $transport', ({ transport, overSocket }) => {
       }
     };
     try {
-      const [id] = await db('outbox').insert({ dedupe_key: `fault-overdue:${transport}`, kind: 'overdue-member', to_address: 'late@test.voltcrib.example', subject, text_body: 'Return the gear.', html_body: '<p>Return the gear.</p>', next_attempt_at: new Date() });
+      const [id] = await db('outbox').insert({
+        dedupe_key: `fault-overdue:${transport}`,
+        kind: 'overdue-member',
+        to_address: 'late@test.voltcrib.example',
+        subject,
+        text_body: 'Return the gear.',
+        html_body: '<p>Return the gear.</p>',
+        next_attempt_at: new Date(),
+      });
       // The worker is still retrying the outage test's mail with back-off: give it time.
       const deadline = Date.now() + 60_000;
       while (killedAt === 0) {
@@ -375,7 +429,9 @@ describe.each(TRANSPORTS)('over $transport', ({ transport, overSocket }) => {
       expect(row.state).toBe('sent');
       expect(copies[0]!.messageId).toBe(messageIdOf(row, MAIL_FROM));
       expect(server.exited()).toBeNull();
-      figures.push(`over ${transport}: database killed right after a reminder's send, down ${LEASE_MS * 2} ms (lease ${LEASE_MS} ms): ${copies.length} delivery, duplicates ${copies.length - 1}, row ${row.state} after ${row.attempts} claim(s)`);
+      figures.push(
+        `over ${transport}: database killed right after a reminder's send, down ${LEASE_MS * 2} ms (lease ${LEASE_MS} ms): ${copies.length} delivery, duplicates ${copies.length - 1}, row ${row.state} after ${row.attempts} claim(s)`,
+      );
     } finally {
       onMessage = undefined;
     }
@@ -385,7 +441,14 @@ describe.each(TRANSPORTS)('over $transport', ({ transport, overSocket }) => {
     it('keeps the mail in the outbox while the SMTP server is away and sends it when it is back', async () => {
       await smtp.close();
       await setAsideQueuedMail(db);
-      const [id] = await db('outbox').insert({ kind: 'fault', to_address: 'fault@test.voltcrib.example', subject: 'Sent after the outage', text_body: 'x', html_body: '<p>x</p>', next_attempt_at: new Date() });
+      const [id] = await db('outbox').insert({
+        kind: 'fault',
+        to_address: 'fault@test.voltcrib.example',
+        subject: 'Sent after the outage',
+        text_body: 'x',
+        html_body: '<p>x</p>',
+        next_attempt_at: new Date(),
+      });
       const deadline = Date.now() + 15_000;
       let row = await db('outbox').where({ id }).first();
       // Until the failed attempt is recorded: the row is 'sending' while the worker tries.
@@ -414,7 +477,12 @@ describe.each(TRANSPORTS)('over $transport', ({ transport, overSocket }) => {
       const upload = async () => {
         const form = new FormData();
         form.append('file', new Blob([new Uint8Array(bytes)], { type: 'image/png' }), 'photo.png');
-        const res = await fetch(`${server.base}/api/items/${kit.probe.id}/files`, { method: 'POST', headers: { cookie: client.cookie, 'x-csrf-token': client.csrf }, body: form, signal: AbortSignal.timeout(20_000) });
+        const res = await fetch(`${server.base}/api/items/${kit.probe.id}/files`, {
+          method: 'POST',
+          headers: { cookie: client.cookie, 'x-csrf-token': client.csrf },
+          body: form,
+          signal: AbortSignal.timeout(20_000),
+        });
         return { status: res.status, json: (await res.json()) as { error?: { code: string } } };
       };
       await s3.close();

@@ -5,8 +5,16 @@ import type { signedInAs } from './test-app';
 type Who = Awaited<ReturnType<typeof signedInAs>>;
 type Entry = { id: number; kind: string; min?: number; max?: number; required: boolean };
 
-export const post = (who: Who, path: string, body: unknown = {}) => who.agent.post(path).set('x-csrf-token', who.csrf()).send(body as object);
-export const put = (who: Who, path: string, body: unknown = {}) => who.agent.put(path).set('x-csrf-token', who.csrf()).send(body as object);
+export const post = (who: Who, path: string, body: unknown = {}) =>
+  who.agent
+    .post(path)
+    .set('x-csrf-token', who.csrf())
+    .send(body as object);
+export const put = (who: Who, path: string, body: unknown = {}) =>
+  who.agent
+    .put(path)
+    .set('x-csrf-token', who.csrf())
+    .send(body as object);
 
 /**
  * Answers every required line; readings get the middle of their limits unless overridden. A

@@ -81,7 +81,11 @@ export async function launchBrowser(options: { fakeVideo?: string } = {}): Promi
   };
 }
 
-export async function newPage(browser: Browser, viewport: { width: number; height: number }, colorScheme: 'light' | 'dark' = 'light'): Promise<{ context: BrowserContext; page: Page }> {
+export async function newPage(
+  browser: Browser,
+  viewport: { width: number; height: number },
+  colorScheme: 'light' | 'dark' = 'light',
+): Promise<{ context: BrowserContext; page: Page }> {
   const context = await browser.newContext({ viewport, colorScheme });
   const page = await context.newPage();
   return { context, page };
@@ -152,7 +156,12 @@ interface AxeViolation {
 
 declare global {
   interface Window {
-    axe?: { run(context: Document, options: Record<string, unknown>): Promise<{ violations: { id: string; help: string; impact: string | null; nodes: { target: unknown[] }[] }[] }> };
+    axe?: {
+      run(
+        context: Document,
+        options: Record<string, unknown>,
+      ): Promise<{ violations: { id: string; help: string; impact: string | null; nodes: { target: unknown[] }[] }[] }>;
+    };
   }
 }
 
@@ -167,7 +176,12 @@ async function axeViolations(page: Page): Promise<AxeViolation[]> {
   if (!(await page.evaluate(() => typeof window.axe !== 'undefined'))) await page.evaluate(AXE_SOURCE);
   return page.evaluate(async () => {
     const result = await window.axe!.run(document, { resultTypes: ['violations'] });
-    return result.violations.map((v) => ({ id: v.id, help: v.help, impact: v.impact, targets: v.nodes.slice(0, 4).map((n) => n.target.map(String).join(' ')) }));
+    return result.violations.map((v) => ({
+      id: v.id,
+      help: v.help,
+      impact: v.impact,
+      targets: v.nodes.slice(0, 4).map((n) => n.target.map(String).join(' ')),
+    }));
   });
 }
 
@@ -191,7 +205,10 @@ export async function expectAccessible(page: Page, screen: string): Promise<void
         await page.emulateMedia({ colorScheme: scheme });
         await settle(page);
         const violations = await axeViolations(page);
-        appendFileSync(A11Y_LOG, `${JSON.stringify({ screen, viewport: viewport.name, scheme, violations: violations.map((v) => v.id), targets: violations.map((v) => `${v.id}: ${v.targets.join(' | ')}`) })}\n`);
+        appendFileSync(
+          A11Y_LOG,
+          `${JSON.stringify({ screen, viewport: viewport.name, scheme, violations: violations.map((v) => v.id), targets: violations.map((v) => `${v.id}: ${v.targets.join(' | ')}`) })}\n`,
+        );
         for (const v of violations) problems.push(`${viewport.name}/${scheme} ${v.id} (${v.impact ?? 'n/a'}): ${v.help}\n      ${v.targets.join('\n      ')}`);
       }
     }
@@ -200,5 +217,6 @@ export async function expectAccessible(page: Page, screen: string): Promise<void
     await page.emulateMedia({ colorScheme: ownScheme });
     await settle(page);
   }
-  if (problems.length > 0 && !process.env.AXE_REPORT_ONLY) throw new Error(`axe-core found ${problems.length} violation(s) on ${screen}:\n  ${problems.join('\n  ')}`);
+  if (problems.length > 0 && !process.env.AXE_REPORT_ONLY)
+    throw new Error(`axe-core found ${problems.length} violation(s) on ${screen}:\n  ${problems.join('\n  ')}`);
 }

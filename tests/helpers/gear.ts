@@ -40,12 +40,19 @@ export async function insertItem(
 /** Renames test gear in place and rewrites its search words, as an edit through the API would. */
 export async function renameItem(db: Db, id: number, name: string): Promise<void> {
   await db('items').where({ id }).update({ name });
-  await writeItemTerms(db, await db('items').where({ id }).first(...TERM_SOURCE_COLUMNS));
+  await writeItemTerms(
+    db,
+    await db('items')
+      .where({ id })
+      .first(...TERM_SOURCE_COLUMNS),
+  );
 }
 
 /** A complete 30 kV kit: supply with bleeder, grounding stick, stand, interlock and probe. */
 export async function insertKit(db: Db) {
-  const supply = await insertItem(db, 'hv-supply', { ratings: { maxKv: 30, maxMa: 2, polarity: 'negative', outputCapacitanceNf: 5, bleederMohm: 300, hasInterlockInput: true } });
+  const supply = await insertItem(db, 'hv-supply', {
+    ratings: { maxKv: 30, maxMa: 2, polarity: 'negative', outputCapacitanceNf: 5, bleederMohm: 300, hasInterlockInput: true },
+  });
   const stick = await insertItem(db, 'grounding-stick', { ratings: { ratedKv: 100, hookResistanceMohm: 10, cableLengthM: 3 } });
   const stand = await insertItem(db, 'isolation-stand', { ratings: { withstandKv: 100 } });
   const interlock = await insertItem(db, 'interlock', { ratings: { ratedKv: 60 } });

@@ -243,7 +243,10 @@ export class World {
   }
 
   private async post(who: Caller, path: string, body: unknown = {}) {
-    const res = await who.agent.post(path).set('x-csrf-token', who.csrf()).send(body as object);
+    const res = await who.agent
+      .post(path)
+      .set('x-csrf-token', who.csrf())
+      .send(body as object);
     if (res.status >= 300) throw new Error(`fixture step POST ${path} failed: ${res.status} ${JSON.stringify(res.body)}`);
     return res.body as { booking: BookingView };
   }
@@ -293,7 +296,11 @@ export class World {
   async storedFileId(): Promise<number> {
     if (this.fileId !== null) return this.fileId;
     const item = await this.item('probe');
-    const res = await send(this.staff, 'POST /api/items/:id/files', { params: { id: item.id }, upload: { fileName: 'security-photo.png', bytes: pngBytes() }, status: 201 });
+    const res = await send(this.staff, 'POST /api/items/:id/files', {
+      params: { id: item.id },
+      upload: { fileName: 'security-photo.png', bytes: pngBytes() },
+      status: 201,
+    });
     if (res.status !== 201) throw new Error(`fixture upload failed: ${res.status} ${JSON.stringify(res.body)}`);
     this.fileId = res.body.file.id as number;
     return this.fileId;
@@ -342,7 +349,9 @@ const MANAGER: readonly Role[] = ['manager'];
 const OFFICER: readonly Role[] = ['officer'];
 const STAFF: readonly Role[] = ['officer', 'manager'];
 
-const ok = (status = 200) => async (): Promise<RouteRequest> => ({ status });
+const ok =
+  (status = 200) =>
+  async (): Promise<RouteRequest> => ({ status });
 const calc = (body: Record<string, unknown>): RouteFixture => ({ access: 'signed-in', build: async () => ({ body, status: 200 }) });
 const onItem = (access: Access, extra: Partial<RouteRequest> = {}): RouteFixture => ({
   access,
@@ -378,7 +387,11 @@ export const ROUTES: Record<string, RouteFixture> = {
   },
   'PUT /api/people/:id/qualification': {
     access: OFFICER,
-    build: async (world) => ({ params: { id: (await world.person('member')).id }, body: { authorisedKv: 20, expiresOn: addDaysIso(todayIso(), 365), notes: 'Security suite' }, status: 200 }),
+    build: async (world) => ({
+      params: { id: (await world.person('member')).id },
+      body: { authorisedKv: 20, expiresOn: addDaysIso(todayIso(), 365), notes: 'Security suite' },
+      status: 200,
+    }),
   },
 
   'GET /api/groups': { access: 'signed-in', build: ok() },
@@ -398,7 +411,9 @@ export const ROUTES: Record<string, RouteFixture> = {
   'PATCH /api/items/:id': onItem(MANAGER, { body: { notes: 'Checked by the security suite' } }),
   'GET /api/items/:id/history': onItem('signed-in'),
   'GET /api/items/:id/clearance': onItem('signed-in'),
-  'GET /api/items/:id/availability': onItem('signed-in', { query: { from: new Date().toISOString(), to: new Date(Date.now() + 7 * 24 * 3600_000).toISOString() } }),
+  'GET /api/items/:id/availability': onItem('signed-in', {
+    query: { from: new Date().toISOString(), to: new Date(Date.now() + 7 * 24 * 3600_000).toISOString() },
+  }),
   'GET /api/items/:id/bookings': onItem('signed-in'),
   'GET /api/items/:id/inspections': onItem('signed-in'),
   'POST /api/items/:id/inspections': onItem(STAFF, { body: { result: 'pass', notes: 'Security suite inspection' }, status: 201 }),
@@ -408,7 +423,10 @@ export const ROUTES: Record<string, RouteFixture> = {
   'GET /api/items/:id/label.pdf': onItem(STAFF),
 
   'GET /api/files/:id': { access: 'signed-in', build: async (world) => ({ params: { id: await world.storedFileId() }, status: 200 }) },
-  'GET /api/labels.pdf': { access: STAFF, build: async (world) => ({ query: { items: `${(await world.item()).id},${(await world.item()).id}` }, status: 200 }) },
+  'GET /api/labels.pdf': {
+    access: STAFF,
+    build: async (world) => ({ query: { items: `${(await world.item()).id},${(await world.item()).id}` }, status: 200 }),
+  },
 
   'POST /api/assessments': {
     access: 'signed-in',
@@ -425,7 +443,10 @@ export const ROUTES: Record<string, RouteFixture> = {
     access: 'signed-in',
     build: async (world, caller) => ({ params: { id: (await world.booking(caller)).id }, body: { purpose: 'Changed by the security suite' }, status: 200 }),
   },
-  'GET /api/bookings/:id/release-check': { access: 'signed-in', build: async (world, caller) => ({ params: { id: (await world.booking(caller)).id }, status: 200 }) },
+  'GET /api/bookings/:id/release-check': {
+    access: 'signed-in',
+    build: async (world, caller) => ({ params: { id: (await world.booking(caller)).id }, status: 200 }),
+  },
   'POST /api/bookings/:id/cancel': { access: 'signed-in', build: async (world, caller) => ({ params: { id: (await world.booking(caller)).id }, status: 200 }) },
   'POST /api/bookings/:id/approval': {
     access: OFFICER,
@@ -454,16 +475,38 @@ export const ROUTES: Record<string, RouteFixture> = {
       return { params: { id: booking.id }, body: { phase: 'pre', answers: answersFor(booking.checklist.pre) }, status: 200 };
     },
   },
-  'GET /api/bookings/:id/checklist-runs': { access: 'signed-in', build: async (world, caller) => ({ params: { id: (await world.booking(caller)).id }, status: 200 }) },
-  'POST /api/bookings/:id/release': { access: 'signed-in', build: async (world, caller) => ({ params: { id: (await world.readyBooking(caller)).id }, status: 200 }) },
-  'POST /api/bookings/:id/return': { access: 'signed-in', build: async (world, caller) => ({ params: { id: (await world.returnableBooking(caller)).id }, body: {}, status: 200 }) },
+  'GET /api/bookings/:id/checklist-runs': {
+    access: 'signed-in',
+    build: async (world, caller) => ({ params: { id: (await world.booking(caller)).id }, status: 200 }),
+  },
+  'POST /api/bookings/:id/release': {
+    access: 'signed-in',
+    build: async (world, caller) => ({ params: { id: (await world.readyBooking(caller)).id }, status: 200 }),
+  },
+  'POST /api/bookings/:id/return': {
+    access: 'signed-in',
+    build: async (world, caller) => ({ params: { id: (await world.returnableBooking(caller)).id }, body: {}, status: 200 }),
+  },
 
-  'GET /api/bookings/:id/runs': { access: 'signed-in', build: async (world, caller) => ({ params: { id: (await world.benchRun(caller)).bookingId }, status: 200 }) },
-  'GET /api/bookings/:id/runs.csv': { access: 'signed-in', build: async (world, caller) => ({ params: { id: (await world.benchRun(caller)).bookingId }, status: 200 }) },
-  'POST /api/bookings/:id/runs': { access: 'signed-in', build: async (world, caller) => ({ params: { id: (await world.releasedBooking(caller)).id }, body: BENCH_RUN, status: 201 }) },
+  'GET /api/bookings/:id/runs': {
+    access: 'signed-in',
+    build: async (world, caller) => ({ params: { id: (await world.benchRun(caller)).bookingId }, status: 200 }),
+  },
+  'GET /api/bookings/:id/runs.csv': {
+    access: 'signed-in',
+    build: async (world, caller) => ({ params: { id: (await world.benchRun(caller)).bookingId }, status: 200 }),
+  },
+  'POST /api/bookings/:id/runs': {
+    access: 'signed-in',
+    build: async (world, caller) => ({ params: { id: (await world.releasedBooking(caller)).id }, body: BENCH_RUN, status: 201 }),
+  },
   'POST /api/bookings/:id/runs/import': {
     access: 'signed-in',
-    build: async (world, caller) => ({ params: { id: (await world.releasedBooking(caller)).id }, body: { csv: 'kV,mA,mm\n8,0.1,30\n', mapping: { appliedKv: 'kV', currentMa: 'mA', gapMm: 'mm' } }, status: 201 }),
+    build: async (world, caller) => ({
+      params: { id: (await world.releasedBooking(caller)).id },
+      body: { csv: 'kV,mA,mm\n8,0.1,30\n', mapping: { appliedKv: 'kV', currentMa: 'mA', gapMm: 'mm' } },
+      status: 201,
+    }),
   },
   'PUT /api/bookings/:id/runs/:runId': {
     access: 'signed-in',
@@ -499,7 +542,10 @@ export const ROUTES: Record<string, RouteFixture> = {
     // A change by another officer waits for confirmation; the rules themselves stay as they are.
     build: async (world) => {
       const editor = await world.person('officer');
-      await world.db('lab_rules').where({ id: 1 }).update({ pending_editors: JSON.stringify([editor.id]) });
+      await world
+        .db('lab_rules')
+        .where({ id: 1 })
+        .update({ pending_editors: JSON.stringify([editor.id]) });
       return { status: 200 };
     },
   },
@@ -515,10 +561,19 @@ export const ROUTES: Record<string, RouteFixture> = {
   'GET /api/audit': { access: STAFF, build: async () => ({ query: { entity: 'item', limit: '5' }, status: 200 }) },
   'GET /api/audit/verify': { access: STAFF, build: ok() },
 
-  'POST /api/invitations': { access: MANAGER, build: async () => ({ body: { email: uniqueEmail('invitee'), name: 'Invited by security suite', role: 'member' }, status: 201 }) },
-  'POST /api/invitations/:token': { access: 'public', build: async (world) => ({ params: { token: await world.token('invitation') }, body: { password: 'a long enough new password' }, status: 200 }) },
+  'POST /api/invitations': {
+    access: MANAGER,
+    build: async () => ({ body: { email: uniqueEmail('invitee'), name: 'Invited by security suite', role: 'member' }, status: 201 }),
+  },
+  'POST /api/invitations/:token': {
+    access: 'public',
+    build: async (world) => ({ params: { token: await world.token('invitation') }, body: { password: 'a long enough new password' }, status: 200 }),
+  },
   'POST /api/password-resets': { access: 'public', build: async () => ({ body: { email: uniqueEmail('nobody') }, status: 202 }) },
-  'POST /api/password-resets/:token': { access: 'public', build: async (world) => ({ params: { token: await world.token('password-reset') }, body: { password: 'a long enough new password' }, status: 200 }) },
+  'POST /api/password-resets/:token': {
+    access: 'public',
+    build: async (world) => ({ params: { token: await world.token('password-reset') }, body: { password: 'a long enough new password' }, status: 200 }),
+  },
 
   'GET /api/mailbox': { access: MANAGER, build: ok() },
 

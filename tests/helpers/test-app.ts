@@ -77,10 +77,7 @@ export async function anonymousAgent(app: Express): Promise<{ agent: Agent; csrf
 
 export async function signedInAgent(app: Express, person: { email: string; password: string }) {
   const session = await anonymousAgent(app);
-  const res = await session.agent
-    .post('/api/session')
-    .set('x-csrf-token', session.csrf())
-    .send({ email: person.email, password: person.password });
+  const res = await session.agent.post('/api/session').set('x-csrf-token', session.csrf()).send({ email: person.email, password: person.password });
   if (res.status !== 200) throw new Error(`sign-in failed: ${res.status} ${JSON.stringify(res.body)}`);
   await session.refresh();
   return session;
@@ -104,7 +101,16 @@ export function itemBody(kind: string, word: string, overrides: Record<string, u
     meter: { maxKv: null },
     other: { maxKv: 5 },
   };
-  return { kind, name: `${word} ${kind} unit`, location: 'Bay 2, cabinet B', make: 'Orrin Works', model: 'T-1', serial: `SN-${word}`, ratings: ratings[kind], ...overrides };
+  return {
+    kind,
+    name: `${word} ${kind} unit`,
+    location: 'Bay 2, cabinet B',
+    make: 'Orrin Works',
+    model: 'T-1',
+    serial: `SN-${word}`,
+    ratings: ratings[kind],
+    ...overrides,
+  };
 }
 
 export function uniqueWord(): string {

@@ -62,7 +62,15 @@ export const boundariesCalculator: CalculatorDef = {
     const system: VoltageSystem = state.choices.system === 'ac' ? 'ac' : 'dc';
     const display: LengthDisplay = state.choices.display === 'imperial' ? 'imperial' : 'metric';
     const table = system === 'dc' ? NFPA70E_DC_TABLE : NFPA70E_AC_TABLE;
-    const section: ResultSection = { key: 'boundaries', title: system === 'dc' ? 'DC boundaries' : 'AC boundaries', waiting: null, lines: [], notices: [], source: null, facts: [] };
+    const section: ResultSection = {
+      key: 'boundaries',
+      title: system === 'dc' ? 'DC boundaries' : 'AC boundaries',
+      waiting: null,
+      lines: [],
+      notices: [],
+      source: null,
+      facts: [],
+    };
 
     const read = readFields(FIELDS, state, ['voltage']);
     Object.assign(errors, read.errors);
@@ -106,7 +114,15 @@ export const boundariesCalculator: CalculatorDef = {
     }
     return {
       errors,
-      sections: [{ ...section, lines, notices, source: boundarySourceWords(b), facts: display === 'imperial' ? ['Feet and inches as the table prints them (not conversions of the metric values).'] : [] }],
+      sections: [
+        {
+          ...section,
+          lines,
+          notices,
+          source: boundarySourceWords(b),
+          facts: display === 'imperial' ? ['Feet and inches as the table prints them (not conversions of the metric values).'] : [],
+        },
+      ],
     };
   },
 };

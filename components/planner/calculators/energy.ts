@@ -13,7 +13,14 @@ const ALT = SAFE_RESIDUAL_VOLTAGE.alternative;
 
 const FIELDS: readonly FieldSpec[] = [
   { key: 'capacitance', label: 'Capacitance', noun: 'the capacitance', units: CAPACITANCE_UNITS, defaultUnit: 'nF' },
-  { key: 'voltage', label: 'Charged to', noun: 'the voltage', units: VOLTAGE_UNITS, defaultUnit: 'kV', hint: 'The peak (no-load) voltage, whatever the polarity.' },
+  {
+    key: 'voltage',
+    label: 'Charged to',
+    noun: 'the voltage',
+    units: VOLTAGE_UNITS,
+    defaultUnit: 'kV',
+    hint: 'The peak (no-load) voltage, whatever the polarity.',
+  },
   { key: 'bleeder', label: 'Bleeder resistance', noun: 'the bleeder resistance', units: RESISTANCE_UNITS, defaultUnit: 'Mohm' },
   {
     key: 'safe',
@@ -33,7 +40,13 @@ function storedEnergySection(state: CalcState, errors: Record<string, string>): 
   if (Object.keys(read.errors).length > 0) return { ...section, waiting: 'Correct the marked fields to see the stored energy.' };
   if (read.missing.length > 0) return { ...section, waiting: waitingFor(read.missing, 'the stored energy') };
 
-  const outcome = runCalculation(energyBodySchema, { capacitanceF: read.si.capacitance, voltageV: read.si.voltage }, { capacitanceF: 'capacitance', voltageV: 'voltage' }, FIELDS, capacitorEnergy);
+  const outcome = runCalculation(
+    energyBodySchema,
+    { capacitanceF: read.si.capacitance, voltageV: read.si.voltage },
+    { capacitanceF: 'capacitance', voltageV: 'voltage' },
+    FIELDS,
+    capacitorEnergy,
+  );
   if (!outcome.ok) {
     Object.assign(errors, outcome.errors);
     return { ...section, waiting: 'Correct the marked fields to see the stored energy.' };
@@ -76,7 +89,12 @@ function dischargeSection(state: CalcState, errors: Record<string, string>): Res
       { key: 'time-constants', label: 'Time constants needed', value: `${plan.timeConstants.toFixed(2)} τ`, formula: 'N = ln(V₀/V_safe)' },
       { key: 'tau', label: 'Time constant', value: duration(plan.tauS), formula: 'τ = RC' },
       { key: 'residual-5tau', label: `Left after ${fiveTau}τ`, value: quantity(plan.residualAfter5TauV, 'V'), formula: `V₀·e^−${fiveTau}` },
-      { key: 'five-tau-limit', label: `${fiveTau}τ reaches ${safeText} only from up to`, value: quantity(plan.fiveTauLimitV, 'V'), formula: `V_safe·e^${fiveTau}` },
+      {
+        key: 'five-tau-limit',
+        label: `${fiveTau}τ reaches ${safeText} only from up to`,
+        value: quantity(plan.fiveTauLimitV, 'V'),
+        formula: `V_safe·e^${fiveTau}`,
+      },
       { key: 'bleeder-power', label: 'Bleeder dissipation while charged', value: quantity(bleederW, 'W'), formula: 'P = V²/R' },
     ],
     notices: [

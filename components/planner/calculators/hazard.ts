@@ -11,7 +11,14 @@ import { CAPACITANCE_UNITS, CURRENT_UNITS, VOLTAGE_UNITS } from './units';
 const L = HAZARDOUS_LIVE_LEVELS;
 
 const FIELDS: readonly FieldSpec[] = [
-  { key: 'voltage', label: 'Voltage (DC peak)', noun: 'the voltage', units: VOLTAGE_UNITS, defaultUnit: 'kV', hint: 'For a supply or multiplier, its no-load maximum.' },
+  {
+    key: 'voltage',
+    label: 'Voltage (DC peak)',
+    noun: 'the voltage',
+    units: VOLTAGE_UNITS,
+    defaultUnit: 'kV',
+    hint: 'For a supply or multiplier, its no-load maximum.',
+  },
   {
     key: 'current',
     label: 'Current available',
@@ -54,7 +61,8 @@ export const hazardCalculator: CalculatorDef = {
       FIELDS,
       classifyHazardousLive,
     );
-    if (!outcome.ok) return { errors: { ...errors, ...outcome.errors }, sections: [{ ...section, waiting: 'Correct the marked fields to classify the node.' }] };
+    if (!outcome.ok)
+      return { errors: { ...errors, ...outcome.errors }, sections: [{ ...section, waiting: 'Correct the marked fields to classify the node.' }] };
 
     const c = outcome.value;
     const aboveVoltageLevel = read.si.voltage! > L.voltageDcV.value;
@@ -71,7 +79,10 @@ export const hazardCalculator: CalculatorDef = {
             {
               key: 'max-capacitance',
               label: 'Largest capacitance not hazardous here',
-              value: c.maxNonHazardousCapacitanceF === null ? `No limit at or below ${quantity(L.voltageDcV.value, 'V')}` : quantity(c.maxNonHazardousCapacitanceF, 'F'),
+              value:
+                c.maxNonHazardousCapacitanceF === null
+                  ? `No limit at or below ${quantity(L.voltageDcV.value, 'V')}`
+                  : quantity(c.maxNonHazardousCapacitanceF, 'F'),
               formula: `${quantity(L.chargeLimitC.value, 'C')}/V up to ${quantity(L.lineSwitchV.value, 'V')}; 2·${quantity(L.energyLimitJ.value, 'J')}/V² above`,
             },
           ],

@@ -9,10 +9,31 @@ import type { CalculatorDef, CalcState, CalcView, FieldSpec, Notice, ResultSecti
 import { CAPACITANCE_UNITS, CURRENT_UNITS, FREQUENCY_UNITS, unitless, VOLTAGE_UNITS } from './units';
 
 const FIELDS: readonly FieldSpec[] = [
-  { key: 'stages', label: 'Stages (n)', noun: 'the number of stages', units: unitless(''), defaultUnit: 'one', hint: 'Each stage: two capacitors and two diodes.' },
-  { key: 'peakInput', label: 'Peak input voltage', noun: 'the peak input voltage', units: VOLTAGE_UNITS, defaultUnit: 'kV', hint: 'Peak, not rms, of the transformer or driver.' },
+  {
+    key: 'stages',
+    label: 'Stages (n)',
+    noun: 'the number of stages',
+    units: unitless(''),
+    defaultUnit: 'one',
+    hint: 'Each stage: two capacitors and two diodes.',
+  },
+  {
+    key: 'peakInput',
+    label: 'Peak input voltage',
+    noun: 'the peak input voltage',
+    units: VOLTAGE_UNITS,
+    defaultUnit: 'kV',
+    hint: 'Peak, not rms, of the transformer or driver.',
+  },
   { key: 'frequency', label: 'Drive frequency', noun: 'the drive frequency', units: FREQUENCY_UNITS, defaultUnit: 'kHz' },
-  { key: 'stageCapacitance', label: 'Stage capacitance', noun: 'the stage capacitance', units: CAPACITANCE_UNITS, defaultUnit: 'nF', hint: 'Each stage capacitor, all assumed equal.' },
+  {
+    key: 'stageCapacitance',
+    label: 'Stage capacitance',
+    noun: 'the stage capacitance',
+    units: CAPACITANCE_UNITS,
+    defaultUnit: 'nF',
+    hint: 'Each stage capacitor, all assumed equal.',
+  },
   { key: 'load', label: 'Load current', noun: 'the load current', units: CURRENT_UNITS, defaultUnit: 'mA', hint: '0 for no load.' },
 ];
 
@@ -33,7 +54,13 @@ export const multiplierCalculator: CalculatorDef = {
     if (Object.keys(read.errors).length > 0) return { errors, sections: [{ ...section, waiting: 'Correct the marked fields to see the output.' }] };
     if (read.missing.length > 0) return { errors, sections: [{ ...section, waiting: waitingFor(read.missing, 'the output') }] };
 
-    const body = { stages: read.si.stages, peakInputV: read.si.peakInput, frequencyHz: read.si.frequency, stageCapacitanceF: read.si.stageCapacitance, loadCurrentA: read.si.load };
+    const body = {
+      stages: read.si.stages,
+      peakInputV: read.si.peakInput,
+      frequencyHz: read.si.frequency,
+      stageCapacitanceF: read.si.stageCapacitance,
+      loadCurrentA: read.si.load,
+    };
     const outcome = runCalculation(multiplierBodySchema, body, MAP, FIELDS, (input) => {
       const output = multiplierOutput(input);
       // After switch-off the source drives nothing: the output node is judged on its charge alone.

@@ -79,7 +79,10 @@ export function runCalculation<S extends z.ZodType, T>(
     for (const issue of parsed.error.issues) {
       const siField = String(issue.path[0] ?? '');
       const key = fields[siField] ?? fallbackKey;
-      errors[key] ??= describeIssue(issue, specs.find((s) => s.key === key));
+      errors[key] ??= describeIssue(
+        issue,
+        specs.find((s) => s.key === key),
+      );
     }
     return { ok: false, errors };
   }

@@ -75,7 +75,6 @@ export interface CalcView {
   sections: ResultSection[];
 }
 
-
 export interface CalculatorDef {
   name: CalculatorName;
   /** Short label for the tab. */

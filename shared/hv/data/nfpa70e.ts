@@ -268,8 +268,7 @@ export const NFPA70E_AC_TABLE: ApproachBoundaryTable = {
       restrictedImperial: '1 ft 0 in',
       marker: 'confirmed',
       imperialMarker: 'confirmed',
-      source:
-        'NFPA 70E Table 130.4(E)(a); 208 V worked example (fixed LAB 3 ft 6 in, RAB 1 ft) and a 480 V clearance calculator',
+      source: 'NFPA 70E Table 130.4(E)(a); 208 V worked example (fixed LAB 3 ft 6 in, RAB 1 ft) and a 480 V clearance calculator',
       edition: 'NFPA 70E (130.4(E) numbering, 2021 onward)',
       notSpecified: false,
       outsideToolScope: false,

@@ -19,10 +19,20 @@ beforeAll(async () => {
   await qualify(ctx.db, person.id, 40);
   kit = await insertKit(ctx.db);
   const start = new Date(Date.now() + 120 * 86400_000);
-  const res = await post(member, '/api/bookings', { itemIds: kit.all.map((i) => i.id), startsAt: start.toISOString(), endsAt: new Date(start.getTime() + 3600_000).toISOString(), location: 'Bay 2', purpose: 'Audit search test', plan: plan(5) });
+  const res = await post(member, '/api/bookings', {
+    itemIds: kit.all.map((i) => i.id),
+    startsAt: start.toISOString(),
+    endsAt: new Date(start.getTime() + 3600_000).toISOString(),
+    location: 'Bay 2',
+    purpose: 'Audit search test',
+    plan: plan(5),
+  });
   expect(res.status).toBe(201);
   bookingId = res.body.booking.id;
-  const tagOut = await manager.agent.patch(`/api/items/${kit.stick.id}`).set('x-csrf-token', manager.csrf()).send({ status: 'out-of-service', statusReason: 'Hook cracked' });
+  const tagOut = await manager.agent
+    .patch(`/api/items/${kit.stick.id}`)
+    .set('x-csrf-token', manager.csrf())
+    .send({ status: 'out-of-service', statusReason: 'Hook cracked' });
   expect(tagOut.status).toBe(200);
 });
 afterAll(() => ctx.close());
@@ -64,7 +74,9 @@ describe('GET /api/audit', () => {
   describe('searched by a time span', () => {
     it('keeps entries inside the span only', async () => {
       const now = Date.now();
-      const inside = await officer.agent.get(`/api/audit?tag=${kit.stick.tag}&from=${new Date(now - 3600_000).toISOString()}&to=${new Date(now + 60_000).toISOString()}`).expect(200);
+      const inside = await officer.agent
+        .get(`/api/audit?tag=${kit.stick.tag}&from=${new Date(now - 3600_000).toISOString()}&to=${new Date(now + 60_000).toISOString()}`)
+        .expect(200);
       expect(inside.body.events).toHaveLength(2);
       const before = await officer.agent.get(`/api/audit?tag=${kit.stick.tag}&to=${new Date(now - 3600_000).toISOString()}`).expect(200);
       expect(before.body.events).toHaveLength(0);
@@ -91,7 +103,11 @@ describe('GET /api/audit', () => {
 
   it('item history carries the subject too, for the item page’s sentences', async () => {
     const probe = await insertItem(ctx.db, 'probe');
-    await manager.agent.patch(`/api/items/${probe.id}`).set('x-csrf-token', manager.csrf()).send({ status: 'retired', statusReason: 'Cracked body' }).expect(200);
+    await manager.agent
+      .patch(`/api/items/${probe.id}`)
+      .set('x-csrf-token', manager.csrf())
+      .send({ status: 'retired', statusReason: 'Cracked body' })
+      .expect(200);
     const res = await member.agent.get(`/api/items/${probe.id}/history`).expect(200);
     expect(res.body.events[0]).toMatchObject({ action: 'item.retired', subject: { tag: probe.tag } });
   });

@@ -24,7 +24,10 @@ type Entry = { id: number; kind: string; unit?: string; min?: number; max?: numb
 
 async function returned(bookingId: number, checklist: { return: Entry[] }) {
   const residual = checklist.return.find((e) => e.unit === 'V');
-  const done = await post(member, `/api/bookings/${bookingId}/checklist`, { phase: 'return', answers: answersFor(checklist.return, residual ? { [residual.id]: 3 } : {}) });
+  const done = await post(member, `/api/bookings/${bookingId}/checklist`, {
+    phase: 'return',
+    answers: answersFor(checklist.return, residual ? { [residual.id]: 3 } : {}),
+  });
   expect(done.status).toBe(200);
   const back = await post(member, `/api/bookings/${bookingId}/return`, {});
   expect(back.status).toBe(200);
@@ -59,7 +62,13 @@ describe('when runs may be written', () => {
   it('not before release: 409 BENCH_LOG_CLOSED, nothing stored; reading works and says the log is closed', async () => {
     await qualify(ctx.db, member.person.id, 40);
     const kit = await insertKit(ctx.db);
-    const made = await post(member, '/api/bookings', { itemIds: kit.all.map((i) => i.id), ...windowFromNow(), location: 'Bay 2', purpose: 'Not yet released', plan: plan(10, { polarity: 'positive' }) });
+    const made = await post(member, '/api/bookings', {
+      itemIds: kit.all.map((i) => i.id),
+      ...windowFromNow(),
+      location: 'Bay 2',
+      purpose: 'Not yet released',
+      plan: plan(10, { polarity: 'positive' }),
+    });
     const res = await post(member, `/api/bookings/${made.body.booking.id}/runs`, RUN);
     expect(res.status).toBe(409);
     expect(res.body.error.code).toBe('BENCH_LOG_CLOSED');
@@ -72,7 +81,10 @@ describe('when runs may be written', () => {
     await returned(booking.id, booking.checklist);
     expect((await post(member, `/api/bookings/${booking.id}/runs`, RUN)).status).toBe(201);
     // As if the gear came back 25 hours ago.
-    await ctx.db('bookings').where({ id: booking.id }).update({ returned_at: new Date(Date.now() - 25 * 3600_000) });
+    await ctx
+      .db('bookings')
+      .where({ id: booking.id })
+      .update({ returned_at: new Date(Date.now() - 25 * 3600_000) });
     const late = await post(member, `/api/bookings/${booking.id}/runs`, RUN);
     expect(late.status).toBe(409);
     expect(late.body.error.message).toMatch(/more than 24 h ago/);

@@ -28,10 +28,21 @@ describe('GET /api/bookings/:id/runs fits', () => {
     const { booking } = await releasedBooking(ctx, member, { maxCurrentMa: 1 });
     const sent: Record<number, { voltageV: number; currentA: number }[]> = {};
     for (const [i, s] of SWEEPS.entries()) {
-      const points = coronaSweep({ ...s, voltagesV: [4000, 6000, 7000, 7500, 8000, 8500, 9000, 9500, 10000].filter((v) => v > s.onsetV - 2500), noise: 0.02, seed: 11 + i });
+      const points = coronaSweep({
+        ...s,
+        voltagesV: [4000, 6000, 7000, 7500, 8000, 8500, 9000, 9500, 10000].filter((v) => v > s.onsetV - 2500),
+        noise: 0.02,
+        seed: 11 + i,
+      });
       sent[s.gapMm] = points;
       for (const p of points) {
-        const res = await post(member, `/api/bookings/${booking.id}/runs`, { appliedKv: p.voltageV / 1e3, currentMa: p.currentA * 1e3, gapMm: s.gapMm, wireRadiusMm: 0.1, collectorRadiusMm: 25.4 });
+        const res = await post(member, `/api/bookings/${booking.id}/runs`, {
+          appliedKv: p.voltageV / 1e3,
+          currentMa: p.currentA * 1e3,
+          gapMm: s.gapMm,
+          wireRadiusMm: 0.1,
+          collectorRadiusMm: 25.4,
+        });
         expect(res.status).toBe(201);
       }
     }
@@ -44,16 +55,25 @@ describe('GET /api/bookings/:id/runs fits', () => {
     expect(fit).toBeNull(); // the latest run's gap (40 mm) has only three runs
     for (const s of SWEEPS) {
       const f = fits.find((x: { gapMm: number }) => x.gapMm === s.gapMm);
-      expect(f).toMatchObject({ polarity: 'positive', n: expect.any(Number), onsetKv: expect.any(Number), onsetKvStdErr: expect.any(Number), c: expect.any(Number), r2: expect.any(Number) });
+      expect(f).toMatchObject({
+        polarity: 'positive',
+        n: expect.any(Number),
+        onsetKv: expect.any(Number),
+        onsetKvStdErr: expect.any(Number),
+        c: expect.any(Number),
+        r2: expect.any(Number),
+      });
       expectWithin(f.c, s.cAPerV2 * 1e9, 0.1);
       expectWithin(f.onsetKv, s.onsetV / 1e3, 0.05);
       const pts = sent[s.gapMm]!.filter((p) => p.currentA > 0);
-      const { m, b } = linearRegression(pts.map((p) => [p.voltageV / 1e3, p.currentA * 1e3 / (p.voltageV / 1e3)]));
+      const { m, b } = linearRegression(pts.map((p) => [p.voltageV / 1e3, (p.currentA * 1e3) / (p.voltageV / 1e3)]));
       expectWithin(f.c, m, 1e-6); // mA/kV² straight from a regression in the bench units
       expectWithin(f.onsetKv, -b / m, 1e-6);
       // Peek's coaxial onset for r = 0.1 mm in a 25.4 mm tube at δ = 1: 6.66 kV (domain brief §9 #21).
       expectWithin(f.peekOnsetKv, 6.66, 0.005);
-      console.log(`API fit at ${s.gapMm} mm: n = ${f.n}, C = ${f.c.toPrecision(4)} ± ${f.cStdErr.toPrecision(2)} mA/kV² (true ${s.cAPerV2 * 1e9}), V₀ = ${f.onsetKv.toFixed(3)} ± ${f.onsetKvStdErr.toFixed(3)} kV (true ${s.onsetV / 1e3}), R² = ${f.r2.toFixed(4)}`);
+      console.log(
+        `API fit at ${s.gapMm} mm: n = ${f.n}, C = ${f.c.toPrecision(4)} ± ${f.cStdErr.toPrecision(2)} mA/kV² (true ${s.cAPerV2 * 1e9}), V₀ = ${f.onsetKv.toFixed(3)} ± ${f.onsetKvStdErr.toFixed(3)} kV (true ${s.onsetV / 1e3}), R² = ${f.r2.toFixed(4)}`,
+      );
     }
   });
 });
@@ -68,7 +88,18 @@ describe('GET /api/bookings/:id/runs.csv', () => {
     expect(res.headers['content-type']).toMatch(/^text\/csv/);
     expect(res.headers['content-disposition']).toMatch(/attachment; filename="?booking-\d+-runs\.csv"?/);
     const parsed = Papa.parse<Record<string, string>>(res.text.replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: true });
-    expect(parsed.meta.fields).toEqual(expect.arrayContaining(['applied voltage (kV)', 'current (mA)', 'gap (mm)', 'thrust (mN)', 'power (W)', '1-D thrust bound (mN)', 'air density (kg/m³)', 'flags']));
+    expect(parsed.meta.fields).toEqual(
+      expect.arrayContaining([
+        'applied voltage (kV)',
+        'current (mA)',
+        'gap (mm)',
+        'thrust (mN)',
+        'power (W)',
+        '1-D thrust bound (mN)',
+        'air density (kg/m³)',
+        'flags',
+      ]),
+    );
     expect(parsed.data).toHaveLength(2);
     expect(parsed.data[0]!['power (W)']).toBe('2.5');
     // A text cell that a spreadsheet would run as a formula is quoted.
@@ -78,8 +109,21 @@ describe('GET /api/bookings/:id/runs.csv', () => {
 });
 
 describe('POST /api/bookings/:id/runs/import', () => {
-  const LOGGER = ['Time,HV (kV),I (uA),Gap,Thrust (g),T (C),P (kPa),RH', '10:01,7.0,40,30,0.3,21.5,100.9,45', '10:02,8.0,95,30,0.7,21.5,100.9,45', '10:03,9.0,160,30,1.2,21.6,100.9,44'].join('\n');
-  const MAPPING = { appliedKv: 'HV (kV)', currentUa: 'I (uA)', gapMm: 'Gap', thrustGf: 'Thrust (g)', temperatureC: 'T (C)', pressureKpa: 'P (kPa)', humidityPct: 'RH' };
+  const LOGGER = [
+    'Time,HV (kV),I (uA),Gap,Thrust (g),T (C),P (kPa),RH',
+    '10:01,7.0,40,30,0.3,21.5,100.9,45',
+    '10:02,8.0,95,30,0.7,21.5,100.9,45',
+    '10:03,9.0,160,30,1.2,21.6,100.9,44',
+  ].join('\n');
+  const MAPPING = {
+    appliedKv: 'HV (kV)',
+    currentUa: 'I (uA)',
+    gapMm: 'Gap',
+    thrustGf: 'Thrust (g)',
+    temperatureC: 'T (C)',
+    pressureKpa: 'P (kPa)',
+    humidityPct: 'RH',
+  };
 
   it('imports every row of a mapped logger file in order, converting µA and grams-force', async () => {
     const { booking } = await releasedBooking(ctx, member);
@@ -92,7 +136,10 @@ describe('POST /api/bookings/:id/runs/import', () => {
       [3, 0.16, 'µA'],
     ]);
     expectWithin(res.body.runs[2].thrustMn, 1.2 * 9.80665);
-    const audit = await ctx.db('audit_events').where({ entity: 'booking', entity_id: String(booking.id), action: 'bench-run.imported' }).first();
+    const audit = await ctx
+      .db('audit_events')
+      .where({ entity: 'booking', entity_id: String(booking.id), action: 'bench-run.imported' })
+      .first();
     expect(audit).toBeDefined();
   });
 

@@ -16,7 +16,12 @@ beforeAll(async () => {
 });
 afterAll(async () => ctx.close());
 
-const auditActions = async (bookingId: number) => (await ctx.db('audit_events').where({ entity: 'booking', entity_id: String(bookingId) }).orderBy('id').pluck('action')) as string[];
+const auditActions = async (bookingId: number) =>
+  (await ctx
+    .db('audit_events')
+    .where({ entity: 'booking', entity_id: String(bookingId) })
+    .orderBy('id')
+    .pluck('action')) as string[];
 
 describe('POST /api/bookings/:id/runs', () => {
   describe('on a released booking, by its booker', () => {
@@ -25,8 +30,28 @@ describe('POST /api/bookings/:id/runs', () => {
       const res = await post(member, `/api/bookings/${booking.id}/runs`, { ...RUN, stages: 1, notes: 'first point' });
       expect(res.status).toBe(201);
       const run = res.body.run;
-      expect(run).toMatchObject({ bookingId: booking.id, number: 1, revision: 1, appliedKv: 10, currentMa: 0.25, currentUnit: 'mA', gapMm: 30, polarity: 'positive', stages: 1, notes: 'first point', flags: [] });
-      expect(Object.keys(run.derived).sort()).toEqual(['airDensityKgM3', 'ehdThrustBoundMn', 'momentumVelocityMps', 'powerW', 'thrustPerPowerMnPerW', 'thrustToWeightPct', 'wattsPerGramForce']);
+      expect(run).toMatchObject({
+        bookingId: booking.id,
+        number: 1,
+        revision: 1,
+        appliedKv: 10,
+        currentMa: 0.25,
+        currentUnit: 'mA',
+        gapMm: 30,
+        polarity: 'positive',
+        stages: 1,
+        notes: 'first point',
+        flags: [],
+      });
+      expect(Object.keys(run.derived).sort()).toEqual([
+        'airDensityKgM3',
+        'ehdThrustBoundMn',
+        'momentumVelocityMps',
+        'powerW',
+        'thrustPerPowerMnPerW',
+        'thrustToWeightPct',
+        'wattsPerGramForce',
+      ]);
       expectWithin(run.derived.powerW, 2.5); // P = V·I
       expectWithin(run.derived.ehdThrustBoundMn, 37.5); // I·d/μ, μ = 2e-4
       expectWithin(run.derived.airDensityKgM3, 1.204, 0.001); // dry air, 20 °C, 101.325 kPa (handbook)
@@ -47,7 +72,14 @@ describe('POST /api/bookings/:id/runs', () => {
       await post(member, `/api/bookings/${booking.id}/runs`, { appliedKv: 8, currentMa: 0.1, gapMm: 30 });
       const first = (await ctx.db('bench_runs').where({ booking_id: booking.id }).first()) as { temperature_c: number | null };
       expect(first.temperature_c).toBeNull();
-      await post(member, `/api/bookings/${booking.id}/runs`, { appliedKv: 9, currentMa: 0.15, gapMm: 30, temperatureC: 22, pressureKpa: 99.8, humidityPct: 40 });
+      await post(member, `/api/bookings/${booking.id}/runs`, {
+        appliedKv: 9,
+        currentMa: 0.15,
+        gapMm: 30,
+        temperatureC: 22,
+        pressureKpa: 99.8,
+        humidityPct: 40,
+      });
       const third = await post(member, `/api/bookings/${booking.id}/runs`, { appliedKv: 10, currentMa: 0.2, gapMm: 30 });
       expect(third.body.run).toMatchObject({ number: 3, temperatureC: 22, pressureKpa: 99.8, humidityPct: 40 });
       expect(third.body.run.derived).toMatchObject({ thrustPerPowerMnPerW: null, thrustToWeightPct: null, wattsPerGramForce: null, momentumVelocityMps: null });
@@ -128,7 +160,9 @@ describe('PUT /api/bookings/:id/runs/:runId and DELETE', () => {
     expect(fixed.status).toBe(200);
     expect(fixed.body.run).toMatchObject({ id: run.id, revision: 2, currentMa: 0.26 });
     const history = await member.agent.get(`/api/bookings/${booking.id}/runs/${run.id}/revisions`);
-    expect(history.body.revisions).toEqual([expect.objectContaining({ revision: 1, action: 'edited', reason: 'Misread the meter', before: expect.objectContaining({ current_ma: 0.25 }) })]);
+    expect(history.body.revisions).toEqual([
+      expect.objectContaining({ revision: 1, action: 'edited', reason: 'Misread the meter', before: expect.objectContaining({ current_ma: 0.25 }) }),
+    ]);
     expect(await auditActions(booking.id)).toContain('bench-run.edited');
   });
 
@@ -139,7 +173,10 @@ describe('PUT /api/bookings/:id/runs/:runId and DELETE', () => {
     expect(byMember.status).toBe(403);
     const noReason = await officer.agent.delete(`/api/bookings/${booking.id}/runs/${run.id}`).set('x-csrf-token', officer.csrf()).send({});
     expect(noReason.status).toBe(400);
-    const byOfficer = await officer.agent.delete(`/api/bookings/${booking.id}/runs/${run.id}`).set('x-csrf-token', officer.csrf()).send({ reason: 'Duplicate of run 1' });
+    const byOfficer = await officer.agent
+      .delete(`/api/bookings/${booking.id}/runs/${run.id}`)
+      .set('x-csrf-token', officer.csrf())
+      .send({ reason: 'Duplicate of run 1' });
     expect(byOfficer.status).toBe(204);
     expect((await member.agent.get(`/api/bookings/${booking.id}/runs`)).body.runs).toEqual([]);
     const history = await officer.agent.get(`/api/bookings/${booking.id}/runs/${run.id}/revisions`);

@@ -22,8 +22,25 @@ export async function releasedBooking(ctx: TestContext, who: Who, extra: Partial
   await completePre(who, booking);
   const released = await post(who, `/api/bookings/${booking.id}/release`);
   if (released.status !== 200) throw new Error(`release failed: ${released.status} ${JSON.stringify(released.body)}`);
-  return { booking: released.body.booking as { id: number; checklist: { return: { id: number; kind: string; unit?: string; min?: number; max?: number; required: boolean }[] } }, kit };
+  return {
+    booking: released.body.booking as {
+      id: number;
+      checklist: { return: { id: number; kind: string; unit?: string; min?: number; max?: number; required: boolean }[] };
+    },
+    kit,
+  };
 }
 
 /** A plausible run at 30 mm: 10 kV, 0.25 mA, 15 mN (well under the 37.5 mN 1-D bound). */
-export const RUN = { appliedKv: 10, currentMa: 0.25, gapMm: 30, thrustMn: 15, massG: 40, outletAreaCm2: 100, velocityMps: 1.2, temperatureC: 20, pressureKpa: 101.325, humidityPct: 0 };
+export const RUN = {
+  appliedKv: 10,
+  currentMa: 0.25,
+  gapMm: 30,
+  thrustMn: 15,
+  massG: 40,
+  outletAreaCm2: 100,
+  velocityMps: 1.2,
+  temperatureC: 20,
+  pressureKpa: 101.325,
+  humidityPct: 0,
+};

@@ -27,7 +27,11 @@ beforeAll(async () => {
 });
 afterAll(() => ctx.close());
 
-const patch = (who: Who, path: string, body: unknown) => who.agent.patch(path).set('x-csrf-token', who.csrf()).send(body as object);
+const patch = (who: Who, path: string, body: unknown) =>
+  who.agent
+    .patch(path)
+    .set('x-csrf-token', who.csrf())
+    .send(body as object);
 
 async function book(who: Who, itemIds: number[], plannedKv: number, window = windowFromNow(), extra: Record<string, unknown> = {}) {
   const res = await post(who, '/api/bookings', { itemIds, ...window, location: 'Bay 1', purpose: 'Gate integrity check', plan: plan(plannedKv), ...extra });
@@ -78,12 +82,21 @@ describe('no item in two overlapping live bookings, whichever write moves it', (
   it('release refuses when another live booking holds the item in the window (a row written behind the service)', async () => {
     const kit = await insertKit(ctx.db);
     const window = windowFromNow(-5, 2);
-    const booking = await book(member, kit.all.map((i) => i.id), 10, window);
+    const booking = await book(
+      member,
+      kit.all.map((i) => i.id),
+      10,
+      window,
+    );
     await scanAll(member, booking);
     await completePre(member, booking);
     // A second live hold on the stick, as a bug elsewhere or a manual database edit would leave it.
-    const [intruder] = await ctx.db('bookings').insert({ ...(await ctx.db('bookings').where({ id: booking.id }).first()), id: undefined, person_id: other.person.id, status: 'released' });
-    await ctx.db('booking_items').insert({ booking_id: intruder, item_id: kit.stick.id, starts_at: new Date(window.startsAt), ends_at: new Date(window.endsAt), live: true });
+    const [intruder] = await ctx
+      .db('bookings')
+      .insert({ ...(await ctx.db('bookings').where({ id: booking.id }).first()), id: undefined, person_id: other.person.id, status: 'released' });
+    await ctx
+      .db('booking_items')
+      .insert({ booking_id: intruder, item_id: kit.stick.id, starts_at: new Date(window.startsAt), ends_at: new Date(window.endsAt), live: true });
     const res = await post(member, `/api/bookings/${booking.id}/release`);
     expect(res.status).toBe(409);
     expect(res.body.error.failures.map((f: { rule: string }) => f.rule)).toEqual(['clash']);
@@ -94,7 +107,11 @@ describe('no item in two overlapping live bookings, whichever write moves it', (
 describe('an approval binds to what the officer reviewed', () => {
   it('POST /api/bookings/:id/approval needs the planVersion on screen; a stale one answers 409 PLAN_CHANGED and changes nothing', async () => {
     const kit = await insertKit(ctx.db);
-    const booking = await book(member, kit.all.map((i) => i.id), 25);
+    const booking = await book(
+      member,
+      kit.all.map((i) => i.id),
+      25,
+    );
     expect(booking.status).toBe('awaiting-approval');
     const missing = await post(officer, `/api/bookings/${booking.id}/approval`, { decision: 'approve' });
     expect(missing.status).toBe(400);
@@ -113,11 +130,17 @@ describe('an approval binds to what the officer reviewed', () => {
 
   it('a manager raising an item’s output capacitance voids the approval, re-queues the booking, tells the officers once, and release refuses until re-approved', async () => {
     const kit = await insertKit(ctx.db);
-    let booking = await book(member, kit.all.map((i) => i.id), 25);
+    let booking = await book(
+      member,
+      kit.all.map((i) => i.id),
+      25,
+    );
     booking = (await post(officer, `/api/bookings/${booking.id}/approval`, { decision: 'approve', planVersion: booking.planVersion }).expect(200)).body.booking;
     expect(booking.status).toBe('approved');
     const item = (await manager.agent.get(`/api/items/${kit.supply.id}`)).body.item;
-    const raised = await patch(manager, `/api/items/${kit.supply.id}`, { ratings: { ...item.ratings, outputCapacitanceNf: item.ratings.outputCapacitanceNf * 100 } });
+    const raised = await patch(manager, `/api/items/${kit.supply.id}`, {
+      ratings: { ...item.ratings, outputCapacitanceNf: item.ratings.outputCapacitanceNf * 100 },
+    });
     expect(raised.status).toBe(200);
     const after = (await member.agent.get(`/api/bookings/${booking.id}`)).body.booking;
     expect(after.status).toBe('awaiting-approval');
@@ -128,7 +151,10 @@ describe('an approval binds to what the officer reviewed', () => {
     expect(voided).toHaveLength(1);
     const requests = await ctx.db('outbox').where({ kind: 'approval-requested' }).andWhere('dedupe_key', 'like', `approval-requested:${booking.id}:%`);
     const toOfficer = requests.filter((r) => r.to_address === officer.person.email);
-    expect(toOfficer.map((r) => r.dedupe_key).sort()).toEqual([`approval-requested:${booking.id}:1:${officer.person.id}`, `approval-requested:${booking.id}:2:${officer.person.id}`]);
+    expect(toOfficer.map((r) => r.dedupe_key).sort()).toEqual([
+      `approval-requested:${booking.id}:1:${officer.person.id}`,
+      `approval-requested:${booking.id}:2:${officer.person.id}`,
+    ]);
     await scanAll(member, after);
     await completePre(member, after);
     const refused = await post(member, `/api/bookings/${booking.id}/release`);
@@ -140,7 +166,11 @@ describe('an approval binds to what the officer reviewed', () => {
 
   it('an item edit that does not touch ratings keeps the approval', async () => {
     const kit = await insertKit(ctx.db);
-    const booking = await book(member, kit.all.map((i) => i.id), 25);
+    const booking = await book(
+      member,
+      kit.all.map((i) => i.id),
+      25,
+    );
     await post(officer, `/api/bookings/${booking.id}/approval`, { decision: 'approve', planVersion: booking.planVersion }).expect(200);
     await patch(manager, `/api/items/${kit.supply.id}`, { notes: 'Label re-printed' }).expect(200);
     const after = (await member.agent.get(`/api/bookings/${booking.id}`)).body.booking;
@@ -187,7 +217,11 @@ describe('nobody approves their own test by other means', () => {
     const rulesBefore = (await officer.agent.get('/api/lab-rules')).body;
     const kit = await insertKit(ctx.db);
     await qualify(ctx.db, officer.person.id, 50);
-    const own = await book(officer, kit.all.map((i) => i.id), 25);
+    const own = await book(
+      officer,
+      kit.all.map((i) => i.id),
+      25,
+    );
     expect(own.status).toBe('awaiting-approval');
     // The rules row is shared by every suite: hold it for the few requests of this check.
     try {
@@ -213,7 +247,10 @@ describe('nobody approves their own test by other means', () => {
       expect(afterConfirm.body.assessment.approvalRequired).toBe(false);
     } finally {
       await put(secondOfficer, '/api/lab-rules', rulesBefore).expect(200);
-      await ctx.db('lab_rules').where({ id: 1 }).update({ pending_editors: '[]', confirmed_rules: JSON.stringify(rulesBefore) });
+      await ctx
+        .db('lab_rules')
+        .where({ id: 1 })
+        .update({ pending_editors: '[]', confirmed_rules: JSON.stringify(rulesBefore) });
     }
   });
 });
@@ -224,11 +261,21 @@ describe('deactivating a person', () => {
     await qualify(ctx.db, person.person.id, 40);
     const kitA = await insertKit(ctx.db);
     const kitB = await insertKit(ctx.db);
-    const out = await book(person, kitA.all.map((i) => i.id), 10, windowFromNow(-5, 2));
+    const out = await book(
+      person,
+      kitA.all.map((i) => i.id),
+      10,
+      windowFromNow(-5, 2),
+    );
     await scanAll(person, out);
     await completePre(person, out);
     await post(person, `/api/bookings/${out.id}/release`).expect(200);
-    const later = await book(person, kitB.all.map((i) => i.id), 10, windowFromNow(60 * 24, 2));
+    const later = await book(
+      person,
+      kitB.all.map((i) => i.id),
+      10,
+      windowFromNow(60 * 24, 2),
+    );
     const res = await patch(manager, `/api/people/${person.person.id}`, { active: false });
     expect(res.status).toBe(200);
     const cancelled = (await manager.agent.get(`/api/bookings/${later.id}`)).body.booking;
@@ -239,7 +286,10 @@ describe('deactivating a person', () => {
     expect(still.bookerActive).toBe(false);
     expect(still.needsReturn).toBe(true);
     expect(await ctx.db('audit_events').where({ entity: 'booking', entity_id: String(later.id), action: 'booking.cancelled-on-deactivation' })).toHaveLength(1);
-    const told = await ctx.db('outbox').where({ kind: 'bookings-cancelled', to_address: officer.person.email }).andWhere('dedupe_key', 'like', `deactivated:${person.person.id}:%`);
+    const told = await ctx
+      .db('outbox')
+      .where({ kind: 'bookings-cancelled', to_address: officer.person.email })
+      .andWhere('dedupe_key', 'like', `deactivated:${person.person.id}:%`);
     expect(told).toHaveLength(1);
   });
 
@@ -247,7 +297,12 @@ describe('deactivating a person', () => {
     const person = await signedInAs(ctx, 'member');
     await qualify(ctx.db, person.person.id, 40);
     const kit = await insertKit(ctx.db);
-    const booking = await book(person, kit.all.map((i) => i.id), 10, windowFromNow(-5, 2));
+    const booking = await book(
+      person,
+      kit.all.map((i) => i.id),
+      10,
+      windowFromNow(-5, 2),
+    );
     await scanAll(officer, booking);
     await completePre(officer, booking);
     // Deactivated behind the service (a directory sync, say): the gate still sees it.
@@ -263,7 +318,13 @@ describe('a change validates exactly as a new booking does', () => {
     ['an end date in year 9999', () => ({ endsAt: '9999-12-31T00:00:00.000Z' })],
     ['a start in the past', () => ({ startsAt: new Date(Date.now() - 3600_000).toISOString() })],
     ['a window longer than 14 days', () => ({ endsAt: new Date(Date.now() + 20 * 24 * 3600_000).toISOString() })],
-    ['a start past the one-year horizon', () => ({ startsAt: new Date(Date.now() + 400 * 24 * 3600_000).toISOString(), endsAt: new Date(Date.now() + 400 * 24 * 3600_000 + 3600_000).toISOString() })],
+    [
+      'a start past the one-year horizon',
+      () => ({
+        startsAt: new Date(Date.now() + 400 * 24 * 3600_000).toISOString(),
+        endsAt: new Date(Date.now() + 400 * 24 * 3600_000 + 3600_000).toISOString(),
+      }),
+    ],
     ['a 15.004 kV plan', () => ({ plan: plan(15.004) })],
     ['a purpose of 501 characters', () => ({ purpose: 'x'.repeat(501) })],
   ])('refuses %s with 400 and changes nothing', async (_case, change) => {
@@ -278,7 +339,13 @@ describe('a change validates exactly as a new booking does', () => {
 
   it('a 15.004 kV plan is refused at creation too, so what is assessed is what is stored', async () => {
     const kit = await insertKit(ctx.db);
-    const res = await post(member, '/api/bookings', { itemIds: kit.all.map((i) => i.id), ...windowFromNow(), location: 'Bay 1', purpose: 'Precision', plan: plan(15.004) });
+    const res = await post(member, '/api/bookings', {
+      itemIds: kit.all.map((i) => i.id),
+      ...windowFromNow(),
+      location: 'Bay 1',
+      purpose: 'Precision',
+      plan: plan(15.004),
+    });
     expect(res.status).toBe(400);
     expect(res.body.error.fieldErrors['plan.plannedKv']).toBeDefined();
   });
@@ -288,14 +355,29 @@ describe('clearing a tag-out', () => {
   it('needs a passing inspection carried out on or after the tag-out, not an old one entered late, nor one in the future', async () => {
     const item = await insertItem(ctx.db, 'probe');
     await patch(manager, `/api/items/${item.id}`, { status: 'out-of-service', statusReason: 'Cracked housing' }).expect(200);
-    const old = await post(manager, `/api/items/${item.id}/inspections`, { result: 'pass', inspectedOn: addDaysIso(todayIso(), -900), readings: [], notes: 'Old paper record' });
+    const old = await post(manager, `/api/items/${item.id}/inspections`, {
+      result: 'pass',
+      inspectedOn: addDaysIso(todayIso(), -900),
+      readings: [],
+      notes: 'Old paper record',
+    });
     expect(old.status).toBe(201);
     const refused = await patch(manager, `/api/items/${item.id}`, { status: 'in-service' });
     expect(refused.status).toBe(409);
     expect(refused.body.error.code).toBe('INSPECTION_REQUIRED');
-    const future = await post(manager, `/api/items/${item.id}/inspections`, { result: 'pass', inspectedOn: addDaysIso(todayIso(), 1), readings: [], notes: 'Tomorrow' });
+    const future = await post(manager, `/api/items/${item.id}/inspections`, {
+      result: 'pass',
+      inspectedOn: addDaysIso(todayIso(), 1),
+      readings: [],
+      notes: 'Tomorrow',
+    });
     expect(future.status).toBe(400);
-    await post(manager, `/api/items/${item.id}/inspections`, { result: 'pass', inspectedOn: todayIso(), readings: [], notes: 'Housing replaced, hipot passed' }).expect(201);
+    await post(manager, `/api/items/${item.id}/inspections`, {
+      result: 'pass',
+      inspectedOn: todayIso(),
+      readings: [],
+      notes: 'Housing replaced, hipot passed',
+    }).expect(201);
     expect((await patch(manager, `/api/items/${item.id}`, { status: 'in-service' })).status).toBe(200);
   });
 });

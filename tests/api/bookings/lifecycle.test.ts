@@ -14,12 +14,26 @@ beforeAll(async () => {
 afterAll(() => ctx.close());
 
 type Who = typeof member;
-const book = (who: Who, body: unknown) => who.agent.post('/api/bookings').set('x-csrf-token', who.csrf()).send(body as object);
-const post = (who: Who, path: string, body: unknown = {}) => who.agent.post(path).set('x-csrf-token', who.csrf()).send(body as object);
+const book = (who: Who, body: unknown) =>
+  who.agent
+    .post('/api/bookings')
+    .set('x-csrf-token', who.csrf())
+    .send(body as object);
+const post = (who: Who, path: string, body: unknown = {}) =>
+  who.agent
+    .post(path)
+    .set('x-csrf-token', who.csrf())
+    .send(body as object);
 
 async function newBooking(plannedKv: number, who: Who = member) {
   const kit = await insertKit(ctx.db);
-  const res = await book(who, { itemIds: kit.all.map((i) => i.id), ...windowFromNow(), location: 'Bay 1', purpose: 'Corona onset sweep', plan: plan(plannedKv) });
+  const res = await book(who, {
+    itemIds: kit.all.map((i) => i.id),
+    ...windowFromNow(),
+    location: 'Bay 1',
+    purpose: 'Corona onset sweep',
+    plan: plan(plannedKv),
+  });
   expect(res.status).toBe(201);
   return { kit, booking: res.body.booking };
 }
@@ -35,7 +49,14 @@ describe('POST /api/bookings', () => {
     expect(booking.assessment.boundaries.limitedFixedM).toBe(2.5);
     expect(booking.assessment.bleedDown.timeS).toBeGreaterThan(0);
     expect(booking.checklist.pre.length).toBeGreaterThan(3);
-    expect(booking.checklist.pre[0]).toEqual(expect.objectContaining({ id: expect.any(Number), kind: expect.stringMatching(/confirm|reading|photo/), text: expect.any(String), required: expect.any(Boolean) }));
+    expect(booking.checklist.pre[0]).toEqual(
+      expect.objectContaining({
+        id: expect.any(Number),
+        kind: expect.stringMatching(/confirm|reading|photo/),
+        text: expect.any(String),
+        required: expect.any(Boolean),
+      }),
+    );
     expect(booking.checklist.return.some((e: { unit?: string; max?: number }) => e.unit === 'V' && e.max === 50)).toBe(true);
     expect(booking.scannedItemIds).toEqual([]);
   });
@@ -84,7 +105,11 @@ describe('POST /api/bookings', () => {
 describe('approval', () => {
   it('an officer approves with conditions; the booking becomes approved', async () => {
     const { booking } = await newBooking(25);
-    const res = await post(officer, `/api/bookings/${booking.id}/approval`, { decision: 'approve', planVersion: booking.planVersion, conditions: 'Observer from the Corona group present' });
+    const res = await post(officer, `/api/bookings/${booking.id}/approval`, {
+      decision: 'approve',
+      planVersion: booking.planVersion,
+      conditions: 'Observer from the Corona group present',
+    });
     expect(res.status).toBe(200);
     expect(res.body.booking.status).toBe('approved');
     expect(res.body.booking.approval).toMatchObject({ decision: 'approve', conditions: 'Observer from the Corona group present', current: true });
@@ -102,7 +127,10 @@ describe('approval', () => {
   it('changing the plan after approval voids it and puts the booking back to awaiting approval', async () => {
     const { booking } = await newBooking(25);
     await post(officer, `/api/bookings/${booking.id}/approval`, { decision: 'approve', planVersion: booking.planVersion }).expect(200);
-    const res = await member.agent.patch(`/api/bookings/${booking.id}`).set('x-csrf-token', member.csrf()).send({ plan: plan(28) });
+    const res = await member.agent
+      .patch(`/api/bookings/${booking.id}`)
+      .set('x-csrf-token', member.csrf())
+      .send({ plan: plan(28) });
     expect(res.status).toBe(200);
     expect(res.body.booking.status).toBe('awaiting-approval');
     expect(res.body.booking.planVersion).toBe(2);
@@ -159,7 +187,11 @@ describe('cancel, list and visibility', () => {
     expect(mine.body.bookings[0].itemTags).toEqual(booking.items.map((i: { tag: string }) => i.tag).sort());
     // The list's tags follow a change of items (the row keeps its own copy of them).
     const kept = booking.items.filter((i: { kind: string }) => i.kind !== 'probe');
-    await member.agent.patch(`/api/bookings/${booking.id}`).set('x-csrf-token', member.csrf()).send({ itemIds: kept.map((i: { id: number }) => i.id) }).expect(200);
+    await member.agent
+      .patch(`/api/bookings/${booking.id}`)
+      .set('x-csrf-token', member.csrf())
+      .send({ itemIds: kept.map((i: { id: number }) => i.id) })
+      .expect(200);
     const after = await member.agent.get('/api/bookings?mine=1&limit=5').expect(200);
     expect(after.body.bookings[0].itemTags).toEqual(kept.map((i: { tag: string }) => i.tag).sort());
     const other = await signedInAs(ctx, 'member');

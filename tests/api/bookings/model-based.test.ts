@@ -65,9 +65,27 @@ interface Actor {
   /** The booking as this person last read it: what they approve, scan and answer from. */
   seen: Map<number, BookingView>;
 }
-interface Entry { id: number; kind: string; min?: number; max?: number; required: boolean }
-interface BookingView { id: number; personId: number; status: string; startsAt: string; planVersion: number; items: { id: number; tag: string }[]; checklist: { pre: Entry[]; return: Entry[] } }
-interface ModelItem { id: number; tag: string; kind: ItemKind }
+interface Entry {
+  id: number;
+  kind: string;
+  min?: number;
+  max?: number;
+  required: boolean;
+}
+interface BookingView {
+  id: number;
+  personId: number;
+  status: string;
+  startsAt: string;
+  planVersion: number;
+  items: { id: number; tag: string }[];
+  checklist: { pre: Entry[]; return: Entry[] };
+}
+interface ModelItem {
+  id: number;
+  tag: string;
+  kind: ItemKind;
+}
 
 let ctx: TestContext;
 let app: Express;
@@ -92,7 +110,11 @@ async function actor(name: string, role: 'member' | 'officer' | 'manager'): Prom
 }
 
 const who = (a: Actor) => ({ agent: a.session.agent, csrf: a.session.csrf, person: a.person }) as unknown as Parameters<typeof post>[0];
-const patch = (a: Actor, path: string, body: unknown) => a.session.agent.patch(path).set('x-csrf-token', a.session.csrf()).send(body as object);
+const patch = (a: Actor, path: string, body: unknown) =>
+  a.session.agent
+    .patch(path)
+    .set('x-csrf-token', a.session.csrf())
+    .send(body as object);
 
 beforeAll(async () => {
   ctx = TARGET_URL ? clusterTarget() : createTestContext({ DB_NAME: MODEL_TEST_DATABASE, DB_POOL_MAX: '30', LOGIN_RATE_LIMIT: '1000' });
@@ -116,7 +138,12 @@ beforeAll(async () => {
     );
   }
   items.push(await make('probe', { maxKv: 40, ratio: 1000, inputResistanceMohm: 1000 }));
-  initialItems = (await ctx.db('items').whereIn('id', items.map((i) => i.id))).map((row) => ({ id: row.id, kind: row.kind, ratings: parse(row.ratings), status: row.status }));
+  initialItems = (
+    await ctx.db('items').whereIn(
+      'id',
+      items.map((i) => i.id),
+    )
+  ).map((row) => ({ id: row.id, kind: row.kind, ratings: parse(row.ratings), status: row.status }));
 }, 60_000);
 afterAll(() => ctx.close());
 
@@ -175,7 +202,12 @@ const anyBooking = () => (bookings.length > 0 ? random.pick(bookings) : null);
 const PRE_RELEASE = ['requested', 'awaiting-approval', 'approved'];
 /** One of the person's bookings that may still be released now, if any; else any of theirs. */
 const releasable = (a: Actor) => {
-  const open = bookings.filter((id) => owners.get(id) === a.person.id && PRE_RELEASE.includes(lastSeen.get(id)?.status ?? 'requested') && lastSeen.get(id)?.startsAt === new Date(SLOTS[0]!.startsAt).toISOString());
+  const open = bookings.filter(
+    (id) =>
+      owners.get(id) === a.person.id &&
+      PRE_RELEASE.includes(lastSeen.get(id)?.status ?? 'requested') &&
+      lastSeen.get(id)?.startsAt === new Date(SLOTS[0]!.startsAt).toISOString(),
+  );
   return open.length > 0 ? random.pick(open) : ownBooking(a);
 };
 /** Mostly a booking last seen waiting for an officer. */
@@ -198,8 +230,17 @@ function nextOp(band?: readonly [number, number]): Op {
     const m = aMember();
     // Mostly a complete kit (supply, stick, stand, interlock), sometimes any handful of gear.
     const kitOf = (kind: ItemKind) => random.pick(items.filter((i) => i.kind === kind)).id;
-    const chosen = random.next() < 0.7 ? [kitOf('hv-supply'), kitOf('grounding-stick'), kitOf('isolation-stand'), kitOf('interlock')] : random.some(items, 2, 6).map((i) => i.id);
-    const body = { itemIds: chosen, ...(random.next() < 0.6 ? SLOTS[0]! : random.pick(SLOTS)), location: random.pick(['Bay 1', 'Bay 2']), purpose: 'Model run', plan: plan(random.pick(KVS)) };
+    const chosen =
+      random.next() < 0.7
+        ? [kitOf('hv-supply'), kitOf('grounding-stick'), kitOf('isolation-stand'), kitOf('interlock')]
+        : random.some(items, 2, 6).map((i) => i.id);
+    const body = {
+      itemIds: chosen,
+      ...(random.next() < 0.6 ? SLOTS[0]! : random.pick(SLOTS)),
+      location: random.pick(['Bay 1', 'Bay 2']),
+      purpose: 'Model run',
+      plan: plan(random.pick(KVS)),
+    };
     return {
       name: 'create',
       run: async () => {
@@ -244,7 +285,9 @@ function nextOp(band?: readonly [number, number]): Op {
         const view = (stale && o.seen.get(id)) || (await read(o, id));
         if (!view) return 0;
         const refuse = random.next() < 0.15;
-        const body = refuse ? { decision: 'refuse', planVersion: view.planVersion, reason: 'Model refusal' } : { decision: 'approve', planVersion: view.planVersion };
+        const body = refuse
+          ? { decision: 'refuse', planVersion: view.planVersion, reason: 'Model refusal' }
+          : { decision: 'approve', planVersion: view.planVersion };
         return note(await post(who(o), `/api/bookings/${id}/approval`, body));
       },
     };
@@ -270,7 +313,7 @@ function nextOp(band?: readonly [number, number]): Op {
     return {
       name: 'checklist',
       run: async () => {
-        const view = id ? m.seen.get(id) ?? (await read(m, id)) : null;
+        const view = id ? (m.seen.get(id) ?? (await read(m, id))) : null;
         if (!view) return 0;
         return (await post(who(m), `/api/bookings/${view.id}/checklist`, { phase: 'pre', answers: answers(view.checklist.pre, bad) })).status;
       },
@@ -333,9 +376,17 @@ function nextOp(band?: readonly [number, number]): Op {
     return {
       name: 'item status',
       run: async () => {
-        if (tagOut) return (await patch(manager, `/api/items/${random.pick(items).id}`, { status: 'out-of-service', statusReason: 'Model: cracked insulation' })).status;
+        if (tagOut)
+          return (await patch(manager, `/api/items/${random.pick(items).id}`, { status: 'out-of-service', statusReason: 'Model: cracked insulation' })).status;
         // Put a tagged-out item back: inspect it, then clear the tag.
-        const out = await ctx.db('items').whereIn('id', items.map((i) => i.id)).andWhere({ status: 'out-of-service' }).pluck('id');
+        const out = await ctx
+          .db('items')
+          .whereIn(
+            'id',
+            items.map((i) => i.id),
+          )
+          .andWhere({ status: 'out-of-service' })
+          .pluck('id');
         if (out.length === 0) return 0;
         const id = random.pick(out as number[]);
         await post(who(manager), `/api/items/${id}/inspections`, { result: 'pass', readings: [], notes: 'Model inspection' });
@@ -353,7 +404,13 @@ function nextOp(band?: readonly [number, number]): Op {
           const id = addedLines.splice(random.int(addedLines.length), 1)[0]!;
           return (await o.session.agent.delete(`/api/checklist-templates/${id}`).set('x-csrf-token', o.session.csrf())).status;
         }
-        const body = { phase: 'pre', kind: 'confirm', text: `Model line ${random.int(1e6)}`, required: true, appliesWithKind: random.pick([null, 'probe', 'interlock']) };
+        const body = {
+          phase: 'pre',
+          kind: 'confirm',
+          text: `Model line ${random.int(1e6)}`,
+          required: true,
+          appliesWithKind: random.pick([null, 'probe', 'interlock']),
+        };
         const res = await post(who(o), '/api/checklist-templates', body);
         if (res.status === 201) addedLines.push(res.body.template.id);
         return res.status;
@@ -368,7 +425,14 @@ function nextOp(band?: readonly [number, number]): Op {
       run: async () => {
         if (confirm) return (await post(who(o), '/api/lab-rules/confirm')).status;
         const rules = (await o.session.agent.get('/api/lab-rules')).body;
-        return (await put(who(o), '/api/lab-rules', { ...rules, approvalKv: random.pick([15, 30]), energyThresholdJ: random.pick([0.35, 2]), ratingMarginPct: random.pick([10, 30]) })).status;
+        return (
+          await put(who(o), '/api/lab-rules', {
+            ...rules,
+            approvalKv: random.pick([15, 30]),
+            energyThresholdJ: random.pick([0.35, 2]),
+            ratingMarginPct: random.pick([10, 30]),
+          })
+        ).status;
       },
     };
   }
@@ -377,7 +441,14 @@ function nextOp(band?: readonly [number, number]): Op {
     const m = aMember();
     return {
       name: 'qualification',
-      run: async () => (await put(who(o), `/api/people/${m.person.id}/qualification`, { authorisedKv: random.pick([10, 30]), expiresOn: addDaysIso(todayIso(), 200), notes: '' })).status,
+      run: async () =>
+        (
+          await put(who(o), `/api/people/${m.person.id}/qualification`, {
+            authorisedKv: random.pick([10, 30]),
+            expiresOn: addDaysIso(todayIso(), 200),
+            notes: '',
+          })
+        ).status,
     };
   }
   return {
@@ -413,14 +484,21 @@ async function noDoubleHolds(): Promise<void> {
 const same = (a: unknown, b: unknown) => JSON.stringify(sortKeys(a)) === JSON.stringify(sortKeys(b));
 function sortKeys(v: unknown): unknown {
   if (Array.isArray(v)) return v.map(sortKeys);
-  if (v && typeof v === 'object') return Object.fromEntries(Object.entries(v as Record<string, unknown>).filter(([, x]) => x !== undefined).sort(([a], [b]) => (a < b ? -1 : 1)).map(([k, x]) => [k, sortKeys(x)]));
+  if (v && typeof v === 'object')
+    return Object.fromEntries(
+      Object.entries(v as Record<string, unknown>)
+        .filter(([, x]) => x !== undefined)
+        .sort(([a], [b]) => (a < b ? -1 : 1))
+        .map(([k, x]) => [k, sortKeys(x)]),
+    );
   return v;
 }
 const parse = <T>(v: unknown): T => (typeof v === 'string' ? JSON.parse(v) : v) as T;
 
 /** 3. An approval that stands (not voided, for the current version) covers exactly the booking as it is now. */
 async function approvalsMatch(): Promise<void> {
-  const rows = await ctx.db('bookings as b')
+  const rows = await ctx
+    .db('bookings as b')
     .join('approvals as a', 'a.booking_id', 'b.id')
     .whereIn('b.status', ['awaiting-approval', 'approved', 'requested'])
     .whereNull('a.voided_at')
@@ -429,7 +507,15 @@ async function approvalsMatch(): Promise<void> {
     .whereRaw('a.id = (SELECT MAX(x.id) FROM approvals x WHERE x.booking_id = b.id)')
     .select('b.*', 'a.basis');
   for (const row of rows) {
-    const basis = parse<{ plan: unknown; itemIds: number[]; location: string; purpose: string; startsAt: string; endsAt: string; figures: { items: { id: number; ratings: unknown }[] } }>(row.basis);
+    const basis = parse<{
+      plan: unknown;
+      itemIds: number[];
+      location: string;
+      purpose: string;
+      startsAt: string;
+      endsAt: string;
+      figures: { items: { id: number; ratings: unknown }[] };
+    }>(row.basis);
     const itemIds = (await ctx.db('booking_items').where({ booking_id: row.id }).orderBy('item_id').pluck('item_id')) as number[];
     const plan = { plannedKv: Number(row.planned_kv), polarity: row.polarity, maxCurrentMa: Number(row.max_current_ma), peoplePresent: row.people_present };
     const problems = [
@@ -437,7 +523,8 @@ async function approvalsMatch(): Promise<void> {
       !same(basis.itemIds, itemIds) && 'items',
       basis.location !== row.location && 'location',
       basis.purpose !== row.purpose && 'purpose',
-      (new Date(basis.startsAt).getTime() !== new Date(row.starts_at).getTime() || new Date(basis.endsAt).getTime() !== new Date(row.ends_at).getTime()) && 'window',
+      (new Date(basis.startsAt).getTime() !== new Date(row.starts_at).getTime() || new Date(basis.endsAt).getTime() !== new Date(row.ends_at).getTime()) &&
+        'window',
     ].filter(Boolean);
     for (const item of basis.figures.items) {
       const now = await ctx.db('items').where({ id: item.id }).first('ratings');
@@ -459,8 +546,45 @@ async function approvalsMatch(): Promise<void> {
  */
 async function releasesKeptTheRules(): Promise<number> {
   type Rules = { approvalKv: number; energyThresholdJ: number; ratingMarginPct: number; interlockKv: number; safeResidualV: number; earlyPickupMin: number };
-  type Line = { id: number; phase: string; kind: string; text: string; unit: string | null; min: number | null; max: number | null; maxFromRule: string | null; required: boolean; appliesFromKv: number | null; appliesWithKind: string | null };
-  type Booking = { personId: number; itemIds: number[]; startsAt: string; endsAt: string; location: string; purpose: string; plan: { plannedKv: number }; planVersion: number; approval: { planVersion: number; basis: { plan: unknown; itemIds: number[]; location: string; purpose: string; startsAt: string; endsAt: string; figures: { items: { id: number; ratings: unknown }[] } } } | null; preRun: { planVersion: number; answers: { id: number; text: string; kind: string; min?: number; max?: number; required?: boolean; confirmed?: boolean; value?: number }[] } | null };
+  type Line = {
+    id: number;
+    phase: string;
+    kind: string;
+    text: string;
+    unit: string | null;
+    min: number | null;
+    max: number | null;
+    maxFromRule: string | null;
+    required: boolean;
+    appliesFromKv: number | null;
+    appliesWithKind: string | null;
+  };
+  type Booking = {
+    personId: number;
+    itemIds: number[];
+    startsAt: string;
+    endsAt: string;
+    location: string;
+    purpose: string;
+    plan: { plannedKv: number };
+    planVersion: number;
+    approval: {
+      planVersion: number;
+      basis: {
+        plan: unknown;
+        itemIds: number[];
+        location: string;
+        purpose: string;
+        startsAt: string;
+        endsAt: string;
+        figures: { items: { id: number; ratings: unknown }[] };
+      };
+    } | null;
+    preRun: {
+      planVersion: number;
+      answers: { id: number; text: string; kind: string; min?: number; max?: number; required?: boolean; confirmed?: boolean; value?: number }[];
+    } | null;
+  };
 
   // The state as it was when the run started, then every change in commit order.
   const itemState = new Map(initialItems.map((i) => [i.id, { ...i, ratings: { ...i.ratings } }]));
@@ -471,10 +595,29 @@ async function releasesKeptTheRules(): Promise<number> {
   const firstRules = events.find((e) => e.entity === 'lab-rules' && e.action === 'lab-rules.updated');
   let rules: Rules = firstRules
     ? parse<Rules>(firstRules.before)
-    : { approvalKv: Number(rulesNow.approval_kv), energyThresholdJ: Number(rulesNow.energy_threshold_j), ratingMarginPct: Number(rulesNow.rating_margin_pct), interlockKv: Number(rulesNow.interlock_kv), safeResidualV: Number(rulesNow.safe_residual_v), earlyPickupMin: Number(rulesNow.early_pickup_min) };
+    : {
+        approvalKv: Number(rulesNow.approval_kv),
+        energyThresholdJ: Number(rulesNow.energy_threshold_j),
+        ratingMarginPct: Number(rulesNow.rating_margin_pct),
+        interlockKv: Number(rulesNow.interlock_kv),
+        safeResidualV: Number(rulesNow.safe_residual_v),
+        earlyPickupMin: Number(rulesNow.early_pickup_min),
+      };
   const touched = new Set(events.filter((e) => e.entity === 'checklist-template').map((e) => Number(e.entity_id)));
   for (const row of await ctx.db('checklist_templates')) {
-    const line: Line = { id: row.id, phase: row.phase, kind: row.kind, text: row.text, unit: row.unit, min: row.min_value === null ? null : Number(row.min_value), max: row.max_value === null ? null : Number(row.max_value), maxFromRule: row.max_from_rule, required: Boolean(row.required), appliesFromKv: row.applies_from_kv === null ? null : Number(row.applies_from_kv), appliesWithKind: row.applies_with_kind };
+    const line: Line = {
+      id: row.id,
+      phase: row.phase,
+      kind: row.kind,
+      text: row.text,
+      unit: row.unit,
+      min: row.min_value === null ? null : Number(row.min_value),
+      max: row.max_value === null ? null : Number(row.max_value),
+      maxFromRule: row.max_from_rule,
+      required: Boolean(row.required),
+      appliesFromKv: row.applies_from_kv === null ? null : Number(row.applies_from_kv),
+      appliesWithKind: row.applies_with_kind,
+    };
     // Lines the run created start absent; lines it changed start as they were before its first change.
     if (!touched.has(row.id)) {
       if (row.active) lines.set(row.id, line);
@@ -483,12 +626,21 @@ async function releasesKeptTheRules(): Promise<number> {
     const firstChange = events.find((e) => e.entity === 'checklist-template' && Number(e.entity_id) === row.id)!;
     if (firstChange.action !== 'checklist-template.created') lines.set(row.id, { ...parse<Line>(firstChange.before), id: row.id });
   }
-  const people = new Map<number, boolean>([[switched.person.id, true], ...[...members, ...officers, manager].map((a) => [a.person.id, true] as [number, boolean])]);
+  const people = new Map<number, boolean>([
+    [switched.person.id, true],
+    ...[...members, ...officers, manager].map((a) => [a.person.id, true] as [number, boolean]),
+  ]);
   const qualifications = new Map<number, { authorisedKv: number; expiresOn: string }>();
   for (const m of [...members, switched]) {
     const firstSet = events.find((e) => e.entity === 'qualification' && Number(e.entity_id) === m.person.id);
-    const q = firstSet ? parse<{ authorisedKv: number; expiresOn: string } | null>(firstSet.before) : await ctx.db('qualifications').where({ person_id: m.person.id }).first();
-    if (q) qualifications.set(m.person.id, { authorisedKv: Number((q as { authorisedKv?: number; authorised_kv?: number }).authorisedKv ?? (q as { authorised_kv?: number }).authorised_kv), expiresOn: String((q as { expiresOn?: string }).expiresOn ?? todayIso()).slice(0, 10) });
+    const q = firstSet
+      ? parse<{ authorisedKv: number; expiresOn: string } | null>(firstSet.before)
+      : await ctx.db('qualifications').where({ person_id: m.person.id }).first();
+    if (q)
+      qualifications.set(m.person.id, {
+        authorisedKv: Number((q as { authorisedKv?: number; authorised_kv?: number }).authorisedKv ?? (q as { authorised_kv?: number }).authorised_kv),
+        expiresOn: String((q as { expiresOn?: string }).expiresOn ?? todayIso()).slice(0, 10),
+      });
   }
   const state = new Map<number, Booking>();
   let releases = 0;
@@ -513,11 +665,30 @@ async function releasesKeptTheRules(): Promise<number> {
     } else if (e.entity === 'booking') {
       const b = state.get(id);
       if (e.action === 'booking.created') {
-        state.set(id, { personId: e.actor_id, itemIds: after.itemIds as number[], startsAt: String(after.startsAt), endsAt: String(after.endsAt), location: String(after.location), purpose: String(after.purpose), plan: after.plan as Booking['plan'], planVersion: 1, approval: null, preRun: null });
+        state.set(id, {
+          personId: e.actor_id,
+          itemIds: after.itemIds as number[],
+          startsAt: String(after.startsAt),
+          endsAt: String(after.endsAt),
+          location: String(after.location),
+          purpose: String(after.purpose),
+          plan: after.plan as Booking['plan'],
+          planVersion: 1,
+          approval: null,
+          preRun: null,
+        });
       } else if (!b) {
         continue; // a booking from before the run
       } else if (e.action === 'booking.plan-changed' || e.action === 'booking.updated') {
-        Object.assign(b, { itemIds: after.itemIds, startsAt: String(after.startsAt), endsAt: String(after.endsAt), location: after.location, purpose: after.purpose, plan: after.plan, planVersion: after.planVersion });
+        Object.assign(b, {
+          itemIds: after.itemIds,
+          startsAt: String(after.startsAt),
+          endsAt: String(after.endsAt),
+          location: after.location,
+          purpose: after.purpose,
+          plan: after.plan,
+          planVersion: after.planVersion,
+        });
       } else if (e.action === 'booking.gear-changed') {
         b.planVersion = Number(after.planVersion);
       } else if (e.action === 'approval.granted') {
@@ -552,34 +723,61 @@ async function releasesKeptTheRules(): Promise<number> {
     if (!has('isolation-stand')) problems.push('no isolation stand rated for the plan');
     if (kv > rules.interlockKv && !has('interlock')) problems.push('no interlock above the interlock voltage');
     // E = ½CV² over the supplies (textbook electrostatics).
-    const energyJ = set.filter((s) => s.kind === 'hv-supply').reduce((sum, s) => sum + 0.5 * Number(s.ratings.outputCapacitanceNf ?? 0) * 1e-9 * (kv * 1000) ** 2, 0);
+    const energyJ = set
+      .filter((s) => s.kind === 'hv-supply')
+      .reduce((sum, s) => sum + 0.5 * Number(s.ratings.outputCapacitanceNf ?? 0) * 1e-9 * (kv * 1000) ** 2, 0);
     const q = qualifications.get(b.personId);
     const qualified = q && q.authorisedKv >= kv && q.expiresOn >= todayIso();
     if (kv > rules.approvalKv || energyJ > rules.energyThresholdJ || !qualified) {
       const a = b.approval;
-      if (!a || a.planVersion !== b.planVersion) problems.push(`needed an approval (${kv} kV, ${energyJ.toFixed(3)} J) and had none for version ${b.planVersion}`);
+      if (!a || a.planVersion !== b.planVersion)
+        problems.push(`needed an approval (${kv} kV, ${energyJ.toFixed(3)} J) and had none for version ${b.planVersion}`);
       else {
-        if (!same(a.basis.plan, b.plan) || !same(a.basis.itemIds, [...b.itemIds].sort((x, y) => x - y)) || a.basis.location !== b.location || a.basis.purpose !== b.purpose) problems.push('the approval covered another plan');
-        if (new Date(a.basis.startsAt).getTime() !== new Date(b.startsAt).getTime() || new Date(a.basis.endsAt).getTime() !== new Date(b.endsAt).getTime()) problems.push('the approval covered another window');
-        for (const item of a.basis.figures.items) if (!same(item.ratings, itemState.get(item.id)?.ratings)) problems.push(`the approval saw other ratings for item ${item.id}`);
+        if (
+          !same(a.basis.plan, b.plan) ||
+          !same(
+            a.basis.itemIds,
+            [...b.itemIds].sort((x, y) => x - y),
+          ) ||
+          a.basis.location !== b.location ||
+          a.basis.purpose !== b.purpose
+        )
+          problems.push('the approval covered another plan');
+        if (new Date(a.basis.startsAt).getTime() !== new Date(b.startsAt).getTime() || new Date(a.basis.endsAt).getTime() !== new Date(b.endsAt).getTime())
+          problems.push('the approval covered another window');
+        for (const item of a.basis.figures.items)
+          if (!same(item.ratings, itemState.get(item.id)?.ratings)) problems.push(`the approval saw other ratings for item ${item.id}`);
       }
     }
     if (!b.preRun || b.preRun.planVersion !== b.planVersion) problems.push('no pre-energize checklist for this version');
     else {
       const kinds = new Set(set.map((s) => s.kind as string));
       for (const line of lines.values()) {
-        if (line.phase !== 'pre' || (line.appliesFromKv !== null && kv < line.appliesFromKv) || (line.appliesWithKind !== null && !kinds.has(line.appliesWithKind))) continue;
+        if (
+          line.phase !== 'pre' ||
+          (line.appliesFromKv !== null && kv < line.appliesFromKv) ||
+          (line.appliesWithKind !== null && !kinds.has(line.appliesWithKind))
+        )
+          continue;
         const max = line.maxFromRule === 'safeResidualV' ? rules.safeResidualV : line.max;
         const answer = b.preRun.answers.find((x) => x.id === line.id);
-        if (!answer || answer.text !== line.text || (answer.min ?? null) !== line.min || (answer.max ?? null) !== max || Boolean(answer.required) !== line.required) {
+        if (
+          !answer ||
+          answer.text !== line.text ||
+          (answer.min ?? null) !== line.min ||
+          (answer.max ?? null) !== max ||
+          Boolean(answer.required) !== line.required
+        ) {
           problems.push(`line ${line.id} in force was not answered as it stood`);
           continue;
         }
         if (line.required && line.kind === 'confirm' && answer.confirmed !== true) problems.push(`line ${line.id} not confirmed`);
-        if (line.kind === 'reading' && answer.value !== undefined && ((line.min !== null && answer.value < line.min) || (max !== null && answer.value > max))) problems.push(`line ${line.id} read ${answer.value}, outside its limits`);
+        if (line.kind === 'reading' && answer.value !== undefined && ((line.min !== null && answer.value < line.min) || (max !== null && answer.value > max)))
+          problems.push(`line ${line.id} read ${answer.value}, outside its limits`);
       }
     }
-    if (at.getTime() < new Date(b.startsAt).getTime() - rules.earlyPickupMin * 60_000 || at.getTime() >= new Date(b.endsAt).getTime()) problems.push('released outside its window');
+    if (at.getTime() < new Date(b.startsAt).getTime() - rules.earlyPickupMin * 60_000 || at.getTime() >= new Date(b.endsAt).getTime())
+      problems.push('released outside its window');
     return problems;
   }
 }
@@ -591,7 +789,15 @@ describe(`the gate under random concurrent interleavings (seed ${SEED}, ${ROUNDS
     for (let round = 0; round < ROUNDS; round += 1) {
       // Weight bands of nextOp: create, change, approve, counter visits.
       roundWindow = freshWindow(round);
-      const band = random.next() < 0.3 ? random.pick([[0, 14], [14, 22], [28, 40], [53, 68]] as const) : undefined;
+      const band =
+        random.next() < 0.3
+          ? random.pick([
+              [0, 14],
+              [14, 22],
+              [28, 40],
+              [53, 68],
+            ] as const)
+          : undefined;
       const ops = Array.from({ length: PER_ROUND }, () => nextOp(band));
       const statuses = await Promise.all(ops.map((op) => op.run().catch((error: unknown) => (console.error(op.name, error), 599))));
       ops.forEach((op, i) => {
@@ -605,7 +811,9 @@ describe(`the gate under random concurrent interleavings (seed ${SEED}, ${ROUNDS
       if (violations.length > 0) break;
     }
     const releases = await releasesKeptTheRules();
-    console.log(`model-based gate test: ${operations} operations, ${releases} releases checked; answers ${JSON.stringify(Object.fromEntries(Object.entries(tally).sort()))}; release refusals by rule ${JSON.stringify(refusals)}`);
+    console.log(
+      `model-based gate test: ${operations} operations, ${releases} releases checked; answers ${JSON.stringify(Object.fromEntries(Object.entries(tally).sort()))}; release refusals by rule ${JSON.stringify(refusals)}`,
+    );
     expect(violations).toEqual([]);
     // The schedule must reach the gate, or the test proves nothing: releases granted (each
     // replayed above) and refused (each naming its rules) together.

@@ -40,7 +40,13 @@ async function readyBooking() {
   const member = await signedInAs(ctx, 'member');
   await qualify(ctx.db, member.person.id, 40);
   const kit = await insertKit(ctx.db);
-  const created = await post(member, '/api/bookings', { itemIds: kit.all.map((i) => i.id), ...windowFromNow(), location: 'Bay 1', purpose: 'Only release releases', plan: plan(10) });
+  const created = await post(member, '/api/bookings', {
+    itemIds: kit.all.map((i) => i.id),
+    ...windowFromNow(),
+    location: 'Bay 1',
+    purpose: 'Only release releases',
+    plan: plan(10),
+  });
   const booking = created.body.booking;
   await scanAll(member, booking);
   await completePre(member, booking);
@@ -81,7 +87,10 @@ describe('the released state', () => {
     const released = await post(ready.member, `/api/bookings/${ready.booking.id}/release`);
     expect(released.body.booking.status).toBe('released');
     // The audit agrees: one entry moved the booking to released, and it is the release's.
-    const entries = await ctx.db('audit_events').where({ entity: 'booking', entity_id: String(ready.booking.id) }).select('action', 'after');
+    const entries = await ctx
+      .db('audit_events')
+      .where({ entity: 'booking', entity_id: String(ready.booking.id) })
+      .select('action', 'after');
     const toReleased = entries.filter((e) => (typeof e.after === 'string' ? JSON.parse(e.after) : e.after)?.status === 'released').map((e) => e.action);
     expect(toReleased).toEqual(['booking.released']);
   });
@@ -92,7 +101,13 @@ describe('the released state', () => {
     const manager = await signedInAs(ctx, 'manager');
     await qualify(ctx.db, member.person.id, 40);
     const kit = await insertKit(ctx.db);
-    const created = await post(member, '/api/bookings', { itemIds: kit.all.map((i) => i.id), ...windowFromNow(), location: 'Bay 1', purpose: 'Only release releases', plan: plan(10) });
+    const created = await post(member, '/api/bookings', {
+      itemIds: kit.all.map((i) => i.id),
+      ...windowFromNow(),
+      location: 'Bay 1',
+      purpose: 'Only release releases',
+      plan: plan(10),
+    });
     const booking = created.body.booking;
     await scanAll(member, booking);
     await completePre(member, booking);

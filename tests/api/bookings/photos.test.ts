@@ -21,7 +21,9 @@ function pngBytes(): Buffer {
   png.data.fill(120);
   return PNG.sync.write(png);
 }
-const PDF_BYTES = Buffer.from('%PDF-1.4\n1 0 obj<</Type/Catalog/Pages 2 0 R>>endobj 2 0 obj<</Type/Pages/Kids[]/Count 0>>endobj\ntrailer<</Root 1 0 R>>\n%%EOF\n');
+const PDF_BYTES = Buffer.from(
+  '%PDF-1.4\n1 0 obj<</Type/Catalog/Pages 2 0 R>>endobj 2 0 obj<</Type/Pages/Kids[]/Count 0>>endobj\ntrailer<</Root 1 0 R>>\n%%EOF\n',
+);
 
 beforeAll(async () => {
   ctx = createTestContext();
@@ -50,7 +52,13 @@ type Entry = { id: number; kind: string; required: boolean; min?: number; max?: 
 async function newBooking(who: Who = member) {
   const kit = await insertKit(ctx.db);
   const rig = await insertItem(ctx.db, 'other', { ratings: { maxKv: 40 } });
-  const res = await post(who, '/api/bookings', { itemIds: [...kit.all.map((i) => i.id), rig.id], ...windowFromNow(), location: 'Bay 4', purpose: 'Barrier photo test', plan: plan(10) });
+  const res = await post(who, '/api/bookings', {
+    itemIds: [...kit.all.map((i) => i.id), rig.id],
+    ...windowFromNow(),
+    location: 'Bay 4',
+    purpose: 'Barrier photo test',
+    plan: plan(10),
+  });
   expect(res.status).toBe(201);
   return res.body.booking as { id: number; status: string; checklist: { pre: Entry[] } };
 }
@@ -93,7 +101,11 @@ describe('POST /api/bookings/:id/photos', () => {
       uploadedByName: expect.any(String),
     });
     const fileId = res.body.file.id as number;
-    expect(await ctx.db('item_files').where({ id: fileId }).first('item_id', 'booking_id', 'kind')).toEqual({ item_id: null, booking_id: booking.id, kind: 'photo' });
+    expect(await ctx.db('item_files').where({ id: fileId }).first('item_id', 'booking_id', 'kind')).toEqual({
+      item_id: null,
+      booking_id: booking.id,
+      kind: 'photo',
+    });
 
     const audit = await officer.agent.get(`/api/audit?entity=booking&id=${booking.id}`).expect(200);
     expect(audit.body.events[0]).toMatchObject({ action: 'booking.photo-added', after: { fileId, fileName: 'barrier.png', contentType: 'image/png' } });
@@ -109,7 +121,7 @@ describe('POST /api/bookings/:id/photos', () => {
     expect((await request(ctx.app).get(`/api/files/${fileId}`)).status).toBe(401);
   });
 
-  it('lets staff working the counter attach a photo to a member\'s booking', async () => {
+  it("lets staff working the counter attach a photo to a member's booking", async () => {
     const booking = await newBooking();
     expect((await upload(officer, booking.id, 'stand.png', pngBytes())).status).toBe(201);
   });
@@ -126,7 +138,11 @@ describe('POST /api/bookings/:id/photos', () => {
     const booking = await newBooking();
     const none = await member.agent.post(`/api/bookings/${booking.id}/photos`).set('x-csrf-token', member.csrf()).field('note', 'x');
     expect(none.status).toBe(400);
-    const extra = await member.agent.post(`/api/bookings/${booking.id}/photos`).set('x-csrf-token', member.csrf()).field('kind', 'photo').attach('file', pngBytes(), 'a.png');
+    const extra = await member.agent
+      .post(`/api/bookings/${booking.id}/photos`)
+      .set('x-csrf-token', member.csrf())
+      .field('kind', 'photo')
+      .attach('file', pngBytes(), 'a.png');
     expect(extra.status).toBe(400);
     expect((await upload(member, booking.id, '../../barrier.png', pngBytes())).status).toBe(400);
     expect(await photoRows(booking.id)).toEqual([]);
@@ -152,25 +168,23 @@ describe('POST /api/bookings/:id/photos', () => {
 });
 
 describe('a required photo line in the checklist', () => {
-  it('refuses a missing, unknown, foreign or item photo on the line with 400 and records nothing; accepts the booking\'s own', async () => {
+  it("refuses a missing, unknown, foreign or item photo on the line with 400 and records nothing; accepts the booking's own", async () => {
     const booking = await newBooking();
     expect(booking.checklist.pre.some((e) => e.id === photoLineId)).toBe(true);
     const own = (await upload(member, booking.id, 'barrier.png', pngBytes())).body.file.id as number;
     const elsewhere = await newBooking();
     const foreign = (await upload(member, elsewhere.id, 'other-barrier.png', pngBytes())).body.file.id as number;
     const probe = await insertItem(ctx.db, 'probe');
-    const itemFile = await officer.agent
-      .post(`/api/items/${probe.id}/files`)
-      .set('x-csrf-token', officer.csrf())
-      .attach('file', pngBytes(), 'probe.png');
+    const itemFile = await officer.agent.post(`/api/items/${probe.id}/files`).set('x-csrf-token', officer.csrf()).attach('file', pngBytes(), 'probe.png');
     expect(itemFile.status).toBe(201);
 
-    const submit = (fileId: number | undefined) => post(member, `/api/bookings/${booking.id}/checklist`, { phase: 'pre', answers: answers(booking.checklist.pre, fileId) });
+    const submit = (fileId: number | undefined) =>
+      post(member, `/api/bookings/${booking.id}/checklist`, { phase: 'pre', answers: answers(booking.checklist.pre, fileId) });
     const cases: [string, number | undefined, RegExp][] = [
       ['missing', undefined, /^Attach the photo/],
       ['unknown', 99999999, /not taken for this booking/],
-      ['another booking\'s', foreign, /not taken for this booking/],
-      ['an item\'s file', itemFile.body.file.id as number, /not taken for this booking/],
+      ["another booking's", foreign, /not taken for this booking/],
+      ["an item's file", itemFile.body.file.id as number, /not taken for this booking/],
     ];
     for (const [what, fileId, message] of cases) {
       const res = await submit(fileId);
@@ -198,7 +212,16 @@ describe('a required photo line in the checklist', () => {
 });
 
 describe('GET /api/bookings/:id/checklist-runs', () => {
-  type Run = { id: number; phase: string; planVersion: number; current: boolean; withinLimits: boolean; completedAt: string; completedByName: string; answers: { id: number; kind: string; text: string; confirmed?: boolean; value?: number; fileId?: number; withinLimits: boolean }[] };
+  type Run = {
+    id: number;
+    phase: string;
+    planVersion: number;
+    current: boolean;
+    withinLimits: boolean;
+    completedAt: string;
+    completedByName: string;
+    answers: { id: number; kind: string; text: string; confirmed?: boolean; value?: number; fileId?: number; withinLimits: boolean }[];
+  };
 
   it('shows every run as answered, newest first, with its photo, readings, who and when', async () => {
     const booking = await newBooking();
@@ -235,7 +258,10 @@ describe('GET /api/bookings/:id/checklist-runs', () => {
     const booking = await newBooking();
     const photo = (await upload(member, booking.id, 'barrier.png', pngBytes())).body.file.id as number;
     expect((await post(member, `/api/bookings/${booking.id}/checklist`, { phase: 'pre', answers: answers(booking.checklist.pre, photo) })).status).toBe(200);
-    const changed = await member.agent.patch(`/api/bookings/${booking.id}`).set('x-csrf-token', member.csrf()).send({ plan: plan(12) });
+    const changed = await member.agent
+      .patch(`/api/bookings/${booking.id}`)
+      .set('x-csrf-token', member.csrf())
+      .send({ plan: plan(12) });
     expect(changed.status).toBe(200);
     const runs = (await member.agent.get(`/api/bookings/${booking.id}/checklist-runs`)).body.runs as Run[];
     expect(runs.map((r) => [r.planVersion, r.current])).toEqual([[1, false]]);

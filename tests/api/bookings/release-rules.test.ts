@@ -27,7 +27,8 @@ async function book(itemIds: number[], plannedKv: number, window = windowFromNow
 async function readyBooking(plannedKv = 10, options: { skip?: 'scan' | 'checklist'; itemIds?: number[] } = {}) {
   const kit = await insertKit(ctx.db);
   let booking = await book(options.itemIds ?? kit.all.map((i) => i.id), plannedKv);
-  if (booking.status === 'awaiting-approval') booking = (await post(officer, `/api/bookings/${booking.id}/approval`, { decision: 'approve', planVersion: booking.planVersion })).body.booking;
+  if (booking.status === 'awaiting-approval')
+    booking = (await post(officer, `/api/bookings/${booking.id}/approval`, { decision: 'approve', planVersion: booking.planVersion })).body.booking;
   if (options.skip !== 'scan') await scanAll(member, booking);
   if (options.skip !== 'checklist') booking = await completePre(member, booking);
   return { kit, booking };
@@ -57,13 +58,28 @@ describe('POST /api/bookings/:id/release', () => {
     const returned = await post(member, `/api/bookings/${booking.id}/return`, {});
     expect(returned.status).toBe(200);
     expect(returned.body.booking.status).toBe('returned');
-    const audit = await ctx.db('audit_events').where({ entity: 'booking', entity_id: String(booking.id) }).pluck('action');
-    expect(audit).toEqual(expect.arrayContaining(['booking.created', 'booking.item-scanned', 'checklist.pre-completed', 'booking.released', 'checklist.return-completed', 'booking.returned']));
+    const audit = await ctx
+      .db('audit_events')
+      .where({ entity: 'booking', entity_id: String(booking.id) })
+      .pluck('action');
+    expect(audit).toEqual(
+      expect.arrayContaining([
+        'booking.created',
+        'booking.item-scanned',
+        'checklist.pre-completed',
+        'booking.released',
+        'checklist.return-completed',
+        'booking.returned',
+      ]),
+    );
   });
 
   it('rule "approval": above the approval voltage without an officer decision', async () => {
     const kit = await insertKit(ctx.db);
-    const booking = await book(kit.all.map((i) => i.id), 25);
+    const booking = await book(
+      kit.all.map((i) => i.id),
+      25,
+    );
     await scanAll(member, booking);
     await completePre(member, booking);
     expect(await refusedRules(booking.id)).toContain('approval');
@@ -71,13 +87,21 @@ describe('POST /api/bookings/:id/release', () => {
 
   it('rule "approval": a plan changed after approval needs a new decision', async () => {
     const { booking } = await readyBooking(25);
-    await member.agent.patch(`/api/bookings/${booking.id}`).set('x-csrf-token', member.csrf()).send({ plan: plan(26) }).expect(200);
+    await member.agent
+      .patch(`/api/bookings/${booking.id}`)
+      .set('x-csrf-token', member.csrf())
+      .send({ plan: plan(26) })
+      .expect(200);
     expect(await refusedRules(booking.id)).toContain('approval');
   });
 
   it('rule "window": too early to pick up', async () => {
     const kit = await insertKit(ctx.db);
-    const booking = await book(kit.all.map((i) => i.id), 10, windowFromNow(120));
+    const booking = await book(
+      kit.all.map((i) => i.id),
+      10,
+      windowFromNow(120),
+    );
     await scanAll(member, booking);
     await completePre(member, booking);
     expect(await refusedRules(booking.id)).toEqual(['window']);
@@ -106,7 +130,10 @@ describe('POST /api/bookings/:id/release', () => {
 
   it('rule "inspection": an item whose inspection is overdue', async () => {
     const { booking, kit } = await readyBooking(10);
-    await ctx.db('items').where({ id: kit.stick.id }).update({ next_inspection_due: addDaysIso(todayIso(), -1) });
+    await ctx
+      .db('items')
+      .where({ id: kit.stick.id })
+      .update({ next_inspection_due: addDaysIso(todayIso(), -1) });
     expect(await refusedRules(booking.id)).toEqual(['inspection']);
   });
 
@@ -158,7 +185,13 @@ describe('POST /api/bookings/:id/release', () => {
     const unqualified = await signedInAs(ctx, 'member');
     await qualify(ctx.db, unqualified.person.id, 5);
     const kit = await insertKit(ctx.db);
-    const res = await post(unqualified, '/api/bookings', { itemIds: kit.all.map((i) => i.id), ...windowFromNow(), location: 'Bay 1', purpose: 'Unqualified run', plan: plan(10) });
+    const res = await post(unqualified, '/api/bookings', {
+      itemIds: kit.all.map((i) => i.id),
+      ...windowFromNow(),
+      location: 'Bay 1',
+      purpose: 'Unqualified run',
+      plan: plan(10),
+    });
     const booking = res.body.booking;
     expect(booking.assessment.approvalReasons.map((r: { code: string }) => r.code)).toEqual(['qualification']);
     await scanAll(unqualified, booking);
@@ -167,15 +200,32 @@ describe('POST /api/bookings/:id/release', () => {
     expect(release.status).toBe(409);
     expect(release.body.error.failures.map((f: { rule: string }) => f.rule).sort()).toEqual(['approval', 'qualification']);
     // An officer's approval covers it.
-    await post(officer, `/api/bookings/${booking.id}/approval`, { decision: 'approve', planVersion: booking.planVersion, conditions: 'Supervised by I. Achterberg' }).expect(200);
+    await post(officer, `/api/bookings/${booking.id}/approval`, {
+      decision: 'approve',
+      planVersion: booking.planVersion,
+      conditions: 'Supervised by I. Achterberg',
+    }).expect(200);
     const released = await post(unqualified, `/api/bookings/${booking.id}/release`);
     expect(released.status).toBe(200);
     // The answer shows the stored approval and checklist run as they are, times to the millisecond.
     const approvalRow = await ctx.db('approvals').where({ booking_id: booking.id }).first();
     const runRow = await ctx.db('checklist_runs').where({ booking_id: booking.id, phase: 'pre' }).orderBy('id', 'desc').first();
     const { name: officerName } = await ctx.db('people').where({ id: officer.person.id }).first('name');
-    expect(released.body.booking.approval).toEqual({ decision: 'approve', officerName, conditions: 'Supervised by I. Achterberg', reason: null, decidedAt: new Date(approvalRow.decided_at).toISOString(), planVersion: 1, current: true });
-    expect(released.body.booking.checklistRuns.pre).toEqual({ completedAt: new Date(runRow.completed_at).toISOString(), withinLimits: true, complete: true, gaps: [] });
+    expect(released.body.booking.approval).toEqual({
+      decision: 'approve',
+      officerName,
+      conditions: 'Supervised by I. Achterberg',
+      reason: null,
+      decidedAt: new Date(approvalRow.decided_at).toISOString(),
+      planVersion: 1,
+      current: true,
+    });
+    expect(released.body.booking.checklistRuns.pre).toEqual({
+      completedAt: new Date(runRow.completed_at).toISOString(),
+      withinLimits: true,
+      complete: true,
+      gaps: [],
+    });
     expect(released.body.booking.checklistRuns.return).toBeNull();
   });
 
@@ -204,7 +254,10 @@ describe('POST /api/bookings/:id/return', () => {
   it('is refused while the residual voltage reading is above the safe level', async () => {
     const { booking } = await released();
     const residual = booking.checklist.return.find((e: { unit?: string }) => e.unit === 'V');
-    await post(member, `/api/bookings/${booking.id}/checklist`, { phase: 'return', answers: answersFor(booking.checklist.return, { [residual.id]: 400 }) }).expect(200);
+    await post(member, `/api/bookings/${booking.id}/checklist`, {
+      phase: 'return',
+      answers: answersFor(booking.checklist.return, { [residual.id]: 400 }),
+    }).expect(200);
     const res = await post(member, `/api/bookings/${booking.id}/return`, {});
     expect(res.status).toBe(409);
     expect(res.body.error.failures[0].message).toMatch(/residual/i);
@@ -213,7 +266,10 @@ describe('POST /api/bookings/:id/return', () => {
   it('tags a damaged item out with an incident record', async () => {
     const { booking, kit } = await released();
     const residual = booking.checklist.return.find((e: { unit?: string }) => e.unit === 'V');
-    await post(member, `/api/bookings/${booking.id}/checklist`, { phase: 'return', answers: answersFor(booking.checklist.return, { [residual.id]: 0 }) }).expect(200);
+    await post(member, `/api/bookings/${booking.id}/checklist`, {
+      phase: 'return',
+      answers: answersFor(booking.checklist.return, { [residual.id]: 0 }),
+    }).expect(200);
     expect((await post(member, `/api/bookings/${booking.id}/return`, { damagedItemIds: [kit.probe.id] })).status).toBe(400);
     const res = await post(member, `/api/bookings/${booking.id}/return`, { damagedItemIds: [kit.probe.id], notes: 'Probe tip bent after an arc-over' });
     expect(res.status).toBe(200);
@@ -226,7 +282,10 @@ describe('POST /api/bookings/:id/return', () => {
     expect(incidents[0]).toMatchObject({ kind: 'damage', status: 'open', reported_by: member.person.id, description: 'Probe tip bent after an arc-over' });
     expect(Boolean(incidents[0].tag_out)).toBe(true);
     expect(await ctx.db('incident_items').where({ incident_id: incidents[0].id }).pluck('item_id')).toEqual([kit.probe.id]);
-    const mail = await ctx.db('outbox').where({ kind: 'incident-reported', to_address: officer.person.email }).andWhere('dedupe_key', `incident-reported:${incidents[0].id}:${officer.person.id}`);
+    const mail = await ctx
+      .db('outbox')
+      .where({ kind: 'incident-reported', to_address: officer.person.email })
+      .andWhere('dedupe_key', `incident-reported:${incidents[0].id}:${officer.person.id}`);
     expect(mail).toHaveLength(1);
     expect(mail[0].text_body).toContain('Taken out of service now');
     // The officer's queue shows it.

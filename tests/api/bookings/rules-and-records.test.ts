@@ -12,11 +12,18 @@ beforeAll(async () => {
 });
 afterAll(() => ctx.close());
 
-
 describe('GET/PUT /api/lab-rules', () => {
   it('returns the lab rules with their documented defaults', async () => {
     const res = await member.agent.get('/api/lab-rules').expect(200);
-    expect(Object.keys(res.body).sort()).toEqual(['approvalKv', 'earlyPickupMin', 'energyThresholdJ', 'interlockKv', 'overdueGraceMin', 'ratingMarginPct', 'safeResidualV']);
+    expect(Object.keys(res.body).sort()).toEqual([
+      'approvalKv',
+      'earlyPickupMin',
+      'energyThresholdJ',
+      'interlockKv',
+      'overdueGraceMin',
+      'ratingMarginPct',
+      'safeResidualV',
+    ]);
   });
 
   it('lets an officer change a rule, audited with before and after, and refuses members', async () => {
@@ -41,8 +48,12 @@ describe('GET/PUT /api/lab-rules', () => {
 });
 
 describe('GET/PUT /api/people/:id/qualification', () => {
-  it('an officer records a member\'s authorised voltage and expiry; the member reads their own', async () => {
-    const res = await put(officer, `/api/people/${member.person.id}/qualification`, { authorisedKv: 30, expiresOn: '2027-06-30', notes: 'HV awareness + qualified-person course' });
+  it("an officer records a member's authorised voltage and expiry; the member reads their own", async () => {
+    const res = await put(officer, `/api/people/${member.person.id}/qualification`, {
+      authorisedKv: 30,
+      expiresOn: '2027-06-30',
+      notes: 'HV awareness + qualified-person course',
+    });
     expect(res.status).toBe(200);
     expect(res.body.qualification).toMatchObject({ personId: member.person.id, authorisedKv: 30, expiresOn: '2027-06-30' });
     const own = await member.agent.get(`/api/people/${member.person.id}/qualification`).expect(200);
@@ -69,7 +80,14 @@ describe('checklist templates', () => {
     const changed = await put(officer, `/api/checklist-templates/${id}`, { ...body, max: 0.05 });
     expect(changed.body.template.max).toBe(0.05);
     expect((await member.agent.post('/api/checklist-templates').set('x-csrf-token', member.csrf()).send(body)).status).toBe(403);
-    expect((await officer.agent.post('/api/checklist-templates').set('x-csrf-token', officer.csrf()).send({ ...body, unit: null })).status).toBe(400);
+    expect(
+      (
+        await officer.agent
+          .post('/api/checklist-templates')
+          .set('x-csrf-token', officer.csrf())
+          .send({ ...body, unit: null })
+      ).status,
+    ).toBe(400);
     await officer.agent.delete(`/api/checklist-templates/${id}`).set('x-csrf-token', officer.csrf()).expect(204);
     const list = await member.agent.get('/api/checklist-templates').expect(200);
     expect(list.body.templates.some((t: { id: number }) => t.id === id)).toBe(false);

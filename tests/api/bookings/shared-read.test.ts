@@ -25,7 +25,10 @@ describe('shared reads of lab rules', () => {
   it('inside a transaction the row is read, never the copy', async () => {
     const copy = await getLabRules(ctx.db);
     // Another server process changes the row behind this one's back.
-    await ctx.db('lab_rules').where({ id: 1 }).update({ early_pickup_min: copy.earlyPickupMin + 7 });
+    await ctx
+      .db('lab_rules')
+      .where({ id: 1 })
+      .update({ early_pickup_min: copy.earlyPickupMin + 7 });
     expect((await getLabRules(ctx.db)).earlyPickupMin).toBe(copy.earlyPickupMin);
     await ctx.db.transaction(async (trx) => {
       expect((await getLabRules(trx)).earlyPickupMin).toBe(copy.earlyPickupMin + 7);

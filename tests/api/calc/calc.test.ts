@@ -11,7 +11,11 @@ beforeAll(async () => {
 });
 afterAll(() => ctx.close());
 
-const calc = (path: string, body: unknown) => member.agent.post(`/api/calc/${path}`).set('x-csrf-token', member.csrf()).send(body as object);
+const calc = (path: string, body: unknown) =>
+  member.agent
+    .post(`/api/calc/${path}`)
+    .set('x-csrf-token', member.csrf())
+    .send(body as object);
 
 describe('POST /api/calc/*', () => {
   it('energy: 1 µF at 10 kV holds 50 J and 10 mC (E = ½CV², Q = CV, textbook)', async () => {

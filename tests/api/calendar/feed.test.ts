@@ -41,13 +41,28 @@ function parse(text: string) {
   const calendar = new ICAL.Component(ICAL.parse(text));
   return calendar.getAllSubcomponents('vevent').map((vevent) => {
     const event = new ICAL.Event(vevent);
-    return { uid: event.uid, sequence: event.sequence, summary: event.summary, location: event.location, status: vevent.getFirstPropertyValue('status'), start: event.startDate, end: event.endDate, url: vevent.getFirstPropertyValue('url') };
+    return {
+      uid: event.uid,
+      sequence: event.sequence,
+      summary: event.summary,
+      location: event.location,
+      status: vevent.getFirstPropertyValue('status'),
+      start: event.startDate,
+      end: event.endDate,
+      url: vevent.getFirstPropertyValue('url'),
+    };
   });
 }
 
 async function book(who: Who, plannedKv = 10, startMin = 24 * 60) {
   const kit = await insertKit(ctx.db);
-  const res = await post(who, '/api/bookings', { itemIds: kit.all.map((i) => i.id), ...windowFromNow(startMin), location: 'Bay 4', purpose: 'Corona onset on a rod-plane gap', plan: plan(plannedKv) });
+  const res = await post(who, '/api/bookings', {
+    itemIds: kit.all.map((i) => i.id),
+    ...windowFromNow(startMin),
+    location: 'Bay 4',
+    purpose: 'Corona onset on a rod-plane gap',
+    plan: plan(plannedKv),
+  });
   expect(res.status).toBe(201);
   return res.body.booking;
 }

@@ -22,11 +22,24 @@ beforeAll(async () => {
 });
 afterAll(() => ctx.close());
 
-const patch = (who: Who, path: string, body: unknown) => who.agent.patch(path).set('x-csrf-token', who.csrf()).send(body as object);
+const patch = (who: Who, path: string, body: unknown) =>
+  who.agent
+    .patch(path)
+    .set('x-csrf-token', who.csrf())
+    .send(body as object);
 const minutesAgo = (n: number) => new Date(Date.now() - n * 60_000).toISOString();
 
 function report(overrides: Record<string, unknown> = {}) {
-  return { kind: 'damage', severity: 'moderate', occurredAt: minutesAgo(5), location: `Bay 3 ${uniqueWord()}`, description: 'Probe lead insulation split near the tip', itemIds: [] as number[], tagOut: true, ...overrides };
+  return {
+    kind: 'damage',
+    severity: 'moderate',
+    occurredAt: minutesAgo(5),
+    location: `Bay 3 ${uniqueWord()}`,
+    description: 'Probe lead insulation split near the tip',
+    itemIds: [] as number[],
+    tagOut: true,
+    ...overrides,
+  };
 }
 
 async function mailTo(email: string, kind = 'incident-reported') {
@@ -49,7 +62,16 @@ describe('POST /api/incidents', () => {
     const res = await post(reporter, '/api/incidents', report({ itemIds: [stick.id, probe.id] }));
     expect(res.status).toBe(201);
     const { incident } = res.body;
-    expect(incident).toMatchObject({ kind: 'damage', severity: 'moderate', status: 'open', tagOut: true, bookingId: null, reportedBy: { id: reporter.person.id }, cause: null, correctiveActions: [] });
+    expect(incident).toMatchObject({
+      kind: 'damage',
+      severity: 'moderate',
+      status: 'open',
+      tagOut: true,
+      bookingId: null,
+      reportedBy: { id: reporter.person.id },
+      cause: null,
+      correctiveActions: [],
+    });
     expect(incident.items.map((i: { id: number }) => i.id).sort()).toEqual([probe.id, stick.id].sort());
     for (const item of [probe, stick]) {
       const row = await ctx.db('items').where({ id: item.id }).first('status', 'status_reason');
@@ -71,12 +93,18 @@ describe('POST /api/incidents', () => {
   it('e-mails each officer once, and the lab manager too for a shock or a burn', async () => {
     const damage = await post(reporter, '/api/incidents', report({ kind: 'damage' }));
     expect(damage.status).toBe(201);
-    const officerMail = (await mailTo(officer.person.email)).filter((m) => m.dedupe_key === `incident-reported:${damage.body.incident.id}:${officer.person.id}`);
+    const officerMail = (await mailTo(officer.person.email)).filter(
+      (m) => m.dedupe_key === `incident-reported:${damage.body.incident.id}:${officer.person.id}`,
+    );
     expect(officerMail).toHaveLength(1);
     expect(officerMail[0].text_body).toContain('Probe lead insulation split');
     expect((await mailTo(manager.person.email)).filter((m) => m.dedupe_key?.startsWith(`incident-reported:${damage.body.incident.id}:`))).toHaveLength(0);
 
-    const shock = await post(reporter, '/api/incidents', report({ kind: 'shock', severity: 'severe', description: 'Felt a tingle through the left hand at the HV lead' }));
+    const shock = await post(
+      reporter,
+      '/api/incidents',
+      report({ kind: 'shock', severity: 'severe', description: 'Felt a tingle through the left hand at the HV lead' }),
+    );
     expect(shock.status).toBe(201);
     const key = (p: { id: number }) => `incident-reported:${shock.body.incident.id}:${p.id}`;
     expect((await mailTo(officer.person.email)).filter((m) => m.dedupe_key === key(officer.person))).toHaveLength(1);
@@ -98,7 +126,11 @@ describe('POST /api/incidents', () => {
   ])('answers 400 for %s and changes nothing', async (_label, overrides, field) => {
     const item = await insertItem(ctx.db, 'probe');
     const before = await counts();
-    const res = await post(reporter, '/api/incidents', report({ itemIds: [item.id], ...overrides, ...('itemIds' in overrides ? { itemIds: [item.id, ...(overrides.itemIds as number[])] } : {}) }));
+    const res = await post(
+      reporter,
+      '/api/incidents',
+      report({ itemIds: [item.id], ...overrides, ...('itemIds' in overrides ? { itemIds: [item.id, ...(overrides.itemIds as number[])] } : {}) }),
+    );
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('VALIDATION_FAILED');
     expect(Object.keys(res.body.error.fieldErrors ?? { _: [] }).join(' ')).toContain(field);
@@ -109,7 +141,13 @@ describe('POST /api/incidents', () => {
   it('refuses a booking that is not the reporter’s (400), and accepts their own', async () => {
     await qualify(ctx.db, otherMember.person.id, 40);
     const kit = await insertKit(ctx.db);
-    const booked = await post(otherMember, '/api/bookings', { itemIds: kit.all.map((i) => i.id), ...windowFromNow(60), location: 'Bay 1', purpose: 'Incident booking check', plan: plan(10) });
+    const booked = await post(otherMember, '/api/bookings', {
+      itemIds: kit.all.map((i) => i.id),
+      ...windowFromNow(60),
+      location: 'Bay 1',
+      purpose: 'Incident booking check',
+      plan: plan(10),
+    });
     expect(booked.status).toBe(201);
     const before = await counts();
     const refused = await post(reporter, '/api/incidents', report({ bookingId: booked.body.booking.id, itemIds: [kit.probe.id] }));
@@ -118,7 +156,11 @@ describe('POST /api/incidents', () => {
     expect(await counts()).toEqual(before);
     expect((await ctx.db('items').where({ id: kit.probe.id }).first('status')).status).toBe('in-service');
 
-    const own = await post(otherMember, '/api/incidents', report({ kind: 'arc-over', bookingId: booked.body.booking.id, itemIds: [kit.probe.id], tagOut: false }));
+    const own = await post(
+      otherMember,
+      '/api/incidents',
+      report({ kind: 'arc-over', bookingId: booked.body.booking.id, itemIds: [kit.probe.id], tagOut: false }),
+    );
     expect(own.status).toBe(201);
     expect(own.body.incident.bookingId).toBe(booked.body.booking.id);
     const listed = await otherMember.agent.get(`/api/incidents?bookingId=${booked.body.booking.id}`);
@@ -130,7 +172,12 @@ describe('POST /api/incidents', () => {
     const marker = `rollback-${uniqueWord()}`;
     // Fails the officers' e-mail, the last write of the report, for this report only.
     const trigger = `fail_${marker.replace(/[^a-z0-9]/gi, '_')}`.slice(0, 60);
-    await ctx.db.raw(`CREATE TRIGGER ${trigger} BEFORE INSERT ON outbox FOR EACH ROW BEGIN IF NEW.text_body LIKE ? THEN SIGNAL SQLSTATE '45000' SET MESSAGE_TEXT = 'test: outbox refused'; END IF; END`.replace('?', `'%${marker}%'`));
+    await ctx.db.raw(
+      `CREATE TRIGGER ${trigger} BEFORE INSERT ON outbox FOR EACH ROW BEGIN IF NEW.text_body LIKE ? THEN SIGNAL SQLSTATE '45000' SET MESSAGE_TEXT = 'test: outbox refused'; END IF; END`.replace(
+        '?',
+        `'%${marker}%'`,
+      ),
+    );
     try {
       const before = await counts();
       const res = await post(reporter, '/api/incidents', report({ itemIds: [item.id], location: marker }));
@@ -161,7 +208,13 @@ describe('GET /api/incidents and /api/incidents/:id', () => {
     const kit = await insertKit(ctx.db);
     item = kit.probe;
     // The viewer has booked this gear; someone else later reports a problem with it.
-    const booked = await post(viewer, '/api/bookings', { itemIds: kit.all.map((i) => i.id), ...windowFromNow(24 * 60), location: 'Bay 2', purpose: 'Visibility check', plan: plan(10) });
+    const booked = await post(viewer, '/api/bookings', {
+      itemIds: kit.all.map((i) => i.id),
+      ...windowFromNow(24 * 60),
+      location: 'Bay 2',
+      purpose: 'Visibility check',
+      plan: plan(10),
+    });
     expect(booked.status).toBe(201);
     onBookedGear = (await post(reporter, '/api/incidents', report({ kind: 'burn', severity: 'serious', itemIds: [item.id], tagOut: false }))).body.incident.id;
     mine = (await post(viewer, '/api/incidents', report({ kind: 'near-miss', severity: 'low', tagOut: false }))).body.incident.id;
@@ -209,7 +262,11 @@ describe('PATCH /api/incidents/:id (the officer’s review)', () => {
     expect(res.status).toBe(201);
     return res.body.incident.id as number;
   }
-  const action = (dueOn = addDaysIso(todayIso(), 14)) => ({ action: 'Replace the cracked HV lead and add a strain relief', ownerId: reporter.person.id, dueOn });
+  const action = (dueOn = addDaysIso(todayIso(), 14)) => ({
+    action: 'Replace the cracked HV lead and add a strain relief',
+    ownerId: reporter.person.id,
+    dueOn,
+  });
 
   it('is for officers only: members and managers get 403 and change nothing', async () => {
     const id = await openIncident();
@@ -232,21 +289,35 @@ describe('PATCH /api/incidents/:id (the officer’s review)', () => {
     const noAction = await patch(officer, `/api/incidents/${id}`, { status: 'closed', cause: 'Lead routed over a sharp bench edge' });
     expect(noAction.status).toBe(400);
     expect(noAction.body.error.fieldErrors.correctiveActions).toBeDefined();
-    const emptyActions = await patch(officer, `/api/incidents/${id}`, { status: 'closed', cause: 'Lead routed over a sharp bench edge', correctiveActions: [] });
+    const emptyActions = await patch(officer, `/api/incidents/${id}`, {
+      status: 'closed',
+      cause: 'Lead routed over a sharp bench edge',
+      correctiveActions: [],
+    });
     expect(emptyActions.status).toBe(400);
     // Nothing of the refused closings was kept.
     const row = await ctx.db('incidents').where({ id }).first('status', 'cause');
     expect(row).toEqual({ status: 'under-review', cause: null });
     expect(await ctx.db('incident_actions').where({ incident_id: id })).toHaveLength(0);
 
-    const closed = await patch(officer, `/api/incidents/${id}`, { status: 'closed', cause: 'Lead routed over a sharp bench edge', correctiveActions: [action()] });
+    const closed = await patch(officer, `/api/incidents/${id}`, {
+      status: 'closed',
+      cause: 'Lead routed over a sharp bench edge',
+      correctiveActions: [action()],
+    });
     expect(closed.status).toBe(200);
     expect(closed.body.incident).toMatchObject({ status: 'closed', cause: 'Lead routed over a sharp bench edge', closedAt: expect.any(String) });
-    expect(closed.body.incident.correctiveActions).toEqual([expect.objectContaining({ action: action().action, ownerId: reporter.person.id, ownerName: reporter.person.name, doneAt: null, pastDue: false })]);
+    expect(closed.body.incident.correctiveActions).toEqual([
+      expect.objectContaining({ action: action().action, ownerId: reporter.person.id, ownerName: reporter.person.name, doneAt: null, pastDue: false }),
+    ]);
 
     const again = await patch(officer, `/api/incidents/${id}`, { status: 'open' });
     expect(again.status).toBe(409);
-    const audit = await ctx.db('audit_events').where({ entity: 'incident', entity_id: String(id) }).orderBy('id').pluck('action');
+    const audit = await ctx
+      .db('audit_events')
+      .where({ entity: 'incident', entity_id: String(id) })
+      .orderBy('id')
+      .pluck('action');
     expect(audit).toEqual(['incident.reported', 'incident.under-review', 'incident.closed']);
   });
 
@@ -268,7 +339,11 @@ describe('PATCH /api/incidents/:id (the officer’s review)', () => {
   it('lists past-due actions for their owner and every officer until the owner marks them done', async () => {
     const id = await openIncident();
     const yesterday = addDaysIso(todayIso(), -1);
-    const res = await patch(officer, `/api/incidents/${id}`, { status: 'closed', cause: 'Interlock bypassed for a quick check', correctiveActions: [action(yesterday)] });
+    const res = await patch(officer, `/api/incidents/${id}`, {
+      status: 'closed',
+      cause: 'Interlock bypassed for a quick check',
+      correctiveActions: [action(yesterday)],
+    });
     expect(res.status).toBe(200);
     const actionId = res.body.incident.correctiveActions[0].id;
     expect(res.body.incident.correctiveActions[0].pastDue).toBe(true);
@@ -297,7 +372,10 @@ describe('POST /api/incidents/:id/photos', () => {
 
   it('keeps a photo with the report, served only to those who may see the report', async () => {
     const id = (await post(reporter, '/api/incidents', report({ tagOut: false }))).body.incident.id;
-    const up = await reporter.agent.post(`/api/incidents/${id}/photos`).set('x-csrf-token', reporter.csrf()).attach('file', pngBytes(), { filename: 'lead.png', contentType: 'image/png' });
+    const up = await reporter.agent
+      .post(`/api/incidents/${id}/photos`)
+      .set('x-csrf-token', reporter.csrf())
+      .attach('file', pngBytes(), { filename: 'lead.png', contentType: 'image/png' });
     expect(up.status).toBe(201);
     const fileId = up.body.file.id;
     expect((await reporter.agent.get(`/api/incidents/${id}`)).body.incident.photos.map((p: { id: number }) => p.id)).toEqual([fileId]);
@@ -305,7 +383,10 @@ describe('POST /api/incidents/:id/photos', () => {
     expect((await officer.agent.get(`/api/files/${fileId}`)).status).toBe(200);
     expect((await otherMember.agent.get(`/api/files/${fileId}`)).status).toBe(404);
     // Someone else cannot add to the report.
-    const refused = await otherMember.agent.post(`/api/incidents/${id}/photos`).set('x-csrf-token', otherMember.csrf()).attach('file', pngBytes(), { filename: 'x.png', contentType: 'image/png' });
+    const refused = await otherMember.agent
+      .post(`/api/incidents/${id}/photos`)
+      .set('x-csrf-token', otherMember.csrf())
+      .attach('file', pngBytes(), { filename: 'x.png', contentType: 'image/png' });
     expect(refused.status).toBe(404);
   });
 });

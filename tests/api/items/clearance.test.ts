@@ -8,7 +8,10 @@ beforeAll(async () => {
 });
 afterAll(() => ctx.close());
 
-const write = (method: 'post' | 'patch', path: string, body: unknown) => manager.agent[method](path).set('x-csrf-token', manager.csrf()).send(body as object);
+const write = (method: 'post' | 'patch', path: string, body: unknown) =>
+  manager.agent[method](path)
+    .set('x-csrf-token', manager.csrf())
+    .send(body as object);
 
 describe('GET /api/items/:id/clearance', () => {
   it('says an item in service is not something to clear', async () => {

@@ -10,7 +10,11 @@ beforeAll(async () => {
 });
 afterAll(() => ctx.close());
 
-const post = (who: typeof manager, body: unknown) => who.agent.post('/api/items').set('x-csrf-token', who.csrf()).send(body as object);
+const post = (who: typeof manager, body: unknown) =>
+  who.agent
+    .post('/api/items')
+    .set('x-csrf-token', who.csrf())
+    .send(body as object);
 
 describe('POST /api/items', () => {
   describe.each(ITEM_KINDS)('a %s', (kind) => {
@@ -81,7 +85,11 @@ describe('PATCH /api/items/:id', () => {
   it('edits, tags out with a reason, clears and retires, keeping every change in the history', async () => {
     const { body } = await post(manager, itemBody('hv-supply', uniqueWord()));
     const id = body.item.id;
-    const patch = (change: unknown) => manager.agent.patch(`/api/items/${id}`).set('x-csrf-token', manager.csrf()).send(change as object);
+    const patch = (change: unknown) =>
+      manager.agent
+        .patch(`/api/items/${id}`)
+        .set('x-csrf-token', manager.csrf())
+        .send(change as object);
 
     const edited = await patch({ location: 'Bay 4', ratings: { ...body.item.ratings, maxKv: 35 } });
     expect(edited.status).toBe(200);
@@ -97,7 +105,11 @@ describe('PATCH /api/items/:id', () => {
     const tooSoon = await patch({ status: 'in-service' });
     expect(tooSoon.status).toBe(409);
     expect(tooSoon.body.error.code).toBe('INSPECTION_REQUIRED');
-    await manager.agent.post(`/api/items/${id}/inspections`).set('x-csrf-token', manager.csrf()).send({ result: 'pass', notes: 'New output lead fitted' }).expect(201);
+    await manager.agent
+      .post(`/api/items/${id}/inspections`)
+      .set('x-csrf-token', manager.csrf())
+      .send({ result: 'pass', notes: 'New output lead fitted' })
+      .expect(201);
     const cleared = await patch({ status: 'in-service' });
     expect(cleared.body.item).toMatchObject({ status: 'in-service', statusReason: null, lastInspectionResult: 'pass' });
     const retired = await patch({ status: 'retired', statusReason: 'Replaced by a newer supply' });
@@ -121,7 +133,10 @@ describe('PATCH /api/items/:id', () => {
 
   it('checks new ratings against the item kind', async () => {
     const { body } = await post(manager, itemBody('grounding-stick', uniqueWord()));
-    const res = await manager.agent.patch(`/api/items/${body.item.id}`).set('x-csrf-token', manager.csrf()).send({ ratings: { maxKv: 10 } });
+    const res = await manager.agent
+      .patch(`/api/items/${body.item.id}`)
+      .set('x-csrf-token', manager.csrf())
+      .send({ ratings: { maxKv: 10 } });
     expect(res.status).toBe(400);
     // Field errors name the field as the form knows it.
     expect(Object.keys(res.body.error.fieldErrors).every((k) => k === 'ratings' || k.startsWith('ratings.'))).toBe(true);

@@ -11,7 +11,9 @@ function pngBytes(): Buffer {
   png.data.fill(200);
   return PNG.sync.write(png);
 }
-const PDF_BYTES = Buffer.from('%PDF-1.4\n1 0 obj<</Type/Catalog/Pages 2 0 R>>endobj 2 0 obj<</Type/Pages/Kids[]/Count 0>>endobj\ntrailer<</Root 1 0 R>>\n%%EOF\n');
+const PDF_BYTES = Buffer.from(
+  '%PDF-1.4\n1 0 obj<</Type/Catalog/Pages 2 0 R>>endobj 2 0 obj<</Type/Pages/Kids[]/Count 0>>endobj\ntrailer<</Root 1 0 R>>\n%%EOF\n',
+);
 
 beforeAll(async () => {
   ctx = createTestContext({ UPLOAD_MAX_MB: '0.05' });
@@ -42,11 +44,14 @@ describe('POST /api/items/:id/files', () => {
     const item = await manager.agent.get(`/api/items/${itemId}`);
     expect(item.body.item.photoFileId).toBe(res.body.file.id);
 
-    const served = await manager.agent.get(`/api/files/${res.body.file.id}`).buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    const served = await manager.agent
+      .get(`/api/files/${res.body.file.id}`)
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     expect(served.status).toBe(200);
     expect(Buffer.compare(served.body as Buffer, bytes)).toBe(0);
     expect(served.headers['content-type']).toBe('image/png');

@@ -12,13 +12,19 @@ beforeAll(async () => {
 afterAll(() => ctx.close());
 
 async function newItem(overrides: Record<string, unknown> = {}) {
-  const res = await manager.agent.post('/api/items').set('x-csrf-token', manager.csrf()).send(itemBody('grounding-stick', uniqueWord(), overrides));
+  const res = await manager.agent
+    .post('/api/items')
+    .set('x-csrf-token', manager.csrf())
+    .send(itemBody('grounding-stick', uniqueWord(), overrides));
   expect(res.status).toBe(201);
   return res.body.item as { id: number; inspectionIntervalDays: number };
 }
 
 const inspect = (who: typeof manager, id: number, body: unknown) =>
-  who.agent.post(`/api/items/${id}/inspections`).set('x-csrf-token', who.csrf()).send(body as object);
+  who.agent
+    .post(`/api/items/${id}/inspections`)
+    .set('x-csrf-token', who.csrf())
+    .send(body as object);
 
 describe('POST /api/items/:id/inspections', () => {
   it('records a pass with readings and sets the next due date from the item interval', async () => {
@@ -63,10 +69,20 @@ describe('POST /api/items/:id/inspections', () => {
 
   it('moves the item in a word search sorted by due date, and in the due filters', async () => {
     const word = uniqueWord();
-    const [a, b, c] = [await newItem({ name: `${word} stick A`, inspectionIntervalDays: 30 }), await newItem({ name: `${word} stick B`, inspectionIntervalDays: 30 }), await newItem({ name: `${word} stick C`, inspectionIntervalDays: 30 })];
+    const [a, b, c] = [
+      await newItem({ name: `${word} stick A`, inspectionIntervalDays: 30 }),
+      await newItem({ name: `${word} stick B`, inspectionIntervalDays: 30 }),
+      await newItem({ name: `${word} stick C`, inspectionIntervalDays: 30 }),
+    ];
     // Inspected 40, 10 and 25 days ago on a 30-day interval: A is overdue, C due soon, B current.
-    for (const [item, daysAgo] of [[a, 40], [b, 10], [c, 25]] as const) expect((await inspect(officer, item.id, { result: 'pass', inspectedOn: addDaysIso(todayIso(), -daysAgo) })).status).toBe(201);
-    const search = async (query: string) => ((await manager.agent.get(`/api/items?q=${word}&${query}`).expect(200)).body.items as { id: number }[]).map((i) => i.id);
+    for (const [item, daysAgo] of [
+      [a, 40],
+      [b, 10],
+      [c, 25],
+    ] as const)
+      expect((await inspect(officer, item.id, { result: 'pass', inspectedOn: addDaysIso(todayIso(), -daysAgo) })).status).toBe(201);
+    const search = async (query: string) =>
+      ((await manager.agent.get(`/api/items?q=${word}&${query}`).expect(200)).body.items as { id: number }[]).map((i) => i.id);
     expect(await search('sort=nextDue')).toEqual([a.id, c.id, b.id]);
     expect(await search('due=overdue')).toEqual([a.id]);
     expect(await search('due=soon&sort=nextDue')).toEqual([a.id, c.id]);

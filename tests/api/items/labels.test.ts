@@ -37,7 +37,9 @@ function decodeLabels(pdf: Buffer, grid: { columns: number; rows: number } | nul
     writeFileSync(path.join(dir, 'labels.pdf'), pdf);
     execFileSync('pdftoppm', ['-r', '200', '-png', path.join(dir, 'labels.pdf'), path.join(dir, 'page')]);
     const found: string[] = [];
-    for (const file of readdirSync(dir).filter((f) => f.endsWith('.png')).sort()) {
+    for (const file of readdirSync(dir)
+      .filter((f) => f.endsWith('.png'))
+      .sort()) {
       const png = PNG.sync.read(readFileSync(path.join(dir, file)));
       const cells = grid ? { columns: grid.columns, rows: grid.rows } : { columns: 1, rows: 1 };
       // Each label: QR on the left part of the cell. Crop cell by cell so jsQR sees one code.

@@ -125,7 +125,8 @@ describe('word search', () => {
     const word = uniqueWord();
     const accented = await create('probe', `${word} Prüfspitze`, { location: 'Salle Électrique' });
     const plain = await create('probe', `${word} Prufkabel`);
-    for (const q of [`${word} pruf`, `${word} prüf`, `${word} PRÜF`, `${word} pru\u0308f`]) expect(ids(await search({ q })).sort()).toEqual([accented.id, plain.id].sort());
+    for (const q of [`${word} pruf`, `${word} prüf`, `${word} PRÜF`, `${word} pru\u0308f`])
+      expect(ids(await search({ q })).sort()).toEqual([accented.id, plain.id].sort());
     expect(ids(await search({ q: `${word} prufspitze` }))).toEqual([accented.id]);
     expect(ids(await search({ q: `${word} prüfkabel` }))).toEqual([plain.id]);
     expect(ids(await search({ q: `${word} electrique` }))).toEqual([accented.id]);
@@ -215,7 +216,11 @@ describe('word search paging', () => {
       made.push(res.body.item);
     }
     // Due dates with ties and gaps, set as an inspection sets them: on the item and its search terms.
-    for (const [n, due] of [[0, '2030-01-01'], [1, '2030-06-01'], [2, null]] as const) {
+    for (const [n, due] of [
+      [0, '2030-01-01'],
+      [1, '2030-06-01'],
+      [2, null],
+    ] as const) {
       const ids = made.filter((_, i) => i % 3 === n).map((m) => m.id);
       await ctx.db('items').whereIn('id', ids).update({ next_inspection_due: due });
       await ctx.db('item_terms').whereIn('item_id', ids).update({ next_inspection_due: due });
@@ -259,7 +264,9 @@ describe('word search paging', () => {
       // Two words, a kind and a rating, as the word-driven search takes them.
       const probes = out.filter((m) => m.kind === 'probe' && (m.ratedKv ?? 0) >= 40);
       expect(probes.length).toBeGreaterThan(0);
-      expect(new Set(ids(await search({ q: `${word} unit`, status: 'out-of-service', kind: 'probe', minKv: 40 })))).toEqual(new Set(ids(probes.filter((m) => m.name.includes(' unit')))));
+      expect(new Set(ids(await search({ q: `${word} unit`, status: 'out-of-service', kind: 'probe', minKv: 40 })))).toEqual(
+        new Set(ids(probes.filter((m) => m.name.includes(' unit')))),
+      );
     } finally {
       await ctx.db('items').whereIn('id', ids(out)).update({ status: 'in-service' });
     }
@@ -309,7 +316,13 @@ describe('word search plan', () => {
     'item_terms_term_rated_kv_item_id_index',
     'PRIMARY',
   ];
-  it.each([[{ q: 'W', kind: 'probe', minKv: 50 }], [{ q: 'W' }], [{ q: 'W', sort: 'name' }], [{ q: 'W', sort: 'nextDue', kind: 'probe' }], [{ q: 'W divi', sort: 'ratedKv' }]])('%o reads a term index and no table whole', async (params) => {
+  it.each([
+    [{ q: 'W', kind: 'probe', minKv: 50 }],
+    [{ q: 'W' }],
+    [{ q: 'W', sort: 'name' }],
+    [{ q: 'W', sort: 'nextDue', kind: 'probe' }],
+    [{ q: 'W divi', sort: 'ratedKv' }],
+  ])('%o reads a term index and no table whole', async (params) => {
     const word = uniqueWord();
     for (let i = 0; i < 3; i += 1) await create('probe', `${word} divider ${i}`, { ratings: { maxKv: 60, ratio: 1000, inputResistanceMohm: 1000 } });
     const rows = await planOf({ ...params, q: params.q.replaceAll('W', word) });

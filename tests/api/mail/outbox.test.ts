@@ -43,7 +43,13 @@ describe('approval mail', () => {
     const officer = await signedInAs(ctx, 'officer');
     await qualify(ctx.db, member.person.id, 50);
     const kit = await insertKit(ctx.db);
-    const res = await post(member, '/api/bookings', { itemIds: kit.all.map((i) => i.id), ...windowFromNow(), location: 'Bay 1', purpose: 'Wire-cylinder corona at 25 kV', plan: plan(25) });
+    const res = await post(member, '/api/bookings', {
+      itemIds: kit.all.map((i) => i.id),
+      ...windowFromNow(),
+      location: 'Bay 1',
+      purpose: 'Wire-cylinder corona at 25 kV',
+      plan: plan(25),
+    });
     const id = res.body.booking.id;
     await drainUntil(() => smtp.list().some((m) => m.to.includes(officer.person.email) && m.subject.includes(`booking #${id}`)));
     const request_ = smtp.list().find((m) => m.to.includes(officer.person.email) && m.subject.includes(`booking #${id}`))!;
@@ -52,7 +58,11 @@ describe('approval mail', () => {
     expect(request_.text).toContain(`${ctx.config.publicUrl}/approvals`);
     expect(request_.html).toContain('<a href=');
 
-    await post(officer, `/api/bookings/${id}/approval`, { decision: 'approve', planVersion: res.body.booking.planVersion, conditions: 'Observer present' }).expect(200);
+    await post(officer, `/api/bookings/${id}/approval`, {
+      decision: 'approve',
+      planVersion: res.body.booking.planVersion,
+      conditions: 'Observer present',
+    }).expect(200);
     await drainUntil(() => smtp.list().some((m) => m.to.includes(member.person.email) && m.subject.startsWith('Approved')));
     const decision = smtp.list().find((m) => m.to.includes(member.person.email) && m.subject.startsWith('Approved'))!;
     expect(decision.text).toContain('Conditions: Observer present');
@@ -65,7 +75,14 @@ describe('outbox retries', () => {
     const down = await startFakeSmtp();
     const localWorker = new OutboxWorker(ctx.db, createTransport(down.url), 'Voltcrib <voltcrib@localhost>');
     await down.close();
-    const [id] = await ctx.db('outbox').insert({ kind: 'test', to_address: 'retry@test.voltcrib.example', subject: 'Retry check', text_body: 'x', html_body: '<p>x</p>', next_attempt_at: new Date() });
+    const [id] = await ctx.db('outbox').insert({
+      kind: 'test',
+      to_address: 'retry@test.voltcrib.example',
+      subject: 'Retry check',
+      text_body: 'x',
+      html_body: '<p>x</p>',
+      next_attempt_at: new Date(),
+    });
     // Only this row is due for the local worker: drain until it has tried ours.
     for (let i = 0; i < 20; i += 1) {
       await localWorker.drain(200);
@@ -132,7 +149,10 @@ describe('password reset', () => {
     await a.agent.post('/api/password-resets').set('x-csrf-token', a.csrf()).send({ email: person.email }).expect(202);
     await drainUntil(() => smtp.list().some((m) => m.to.includes(person.email)));
     const token = tokenFrom(smtp.list().find((m) => m.to.includes(person.email))!.text, 'reset-password')!;
-    await ctx.db('person_tokens').where({ person_id: person.id }).update({ expires_at: new Date(Date.now() - 1000) });
+    await ctx
+      .db('person_tokens')
+      .where({ person_id: person.id })
+      .update({ expires_at: new Date(Date.now() - 1000) });
     const res = await a.agent.post(`/api/password-resets/${token}`).set('x-csrf-token', a.csrf()).send({ password: 'a brand new long password' });
     expect(res.status).toBe(410);
     expect(res.body.error.code).toBe('LINK_EXPIRED');

@@ -55,7 +55,9 @@ describe('POST /api/password-resets', () => {
     }
     // Throttling (two counters) and the one outbox row: nothing that reads people.
     expect(known[0]!.sql.join('\n')).not.toMatch(/people|person_tokens|audit/);
-    console.log(`[reset timing] statements per request ${known[0]!.sql.length} for both; median ms known ${median(known.map((k) => k.ms)).toFixed(1)}, unknown ${median(unknown.map((u) => u.ms)).toFixed(1)} (8 each, interleaved)`);
+    console.log(
+      `[reset timing] statements per request ${known[0]!.sql.length} for both; median ms known ${median(known.map((k) => k.ms)).toFixed(1)}, unknown ${median(unknown.map((u) => u.ms)).toFixed(1)} (8 each, interleaved)`,
+    );
   });
 
   it('sends the link to a known e-mail afterwards, and leaves nothing behind for an unknown one', async () => {

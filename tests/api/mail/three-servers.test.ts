@@ -77,7 +77,9 @@ it('sends one overdue reminder to the member and one per officer, with three sch
     approval_required: false,
     item_tags: bookingItemTags(kit.all),
   });
-  await ctx.db('booking_items').insert(kit.all.map((i) => ({ booking_id: bookingId, item_id: i.id, starts_at: new Date(endsAt.getTime() - 3600_000), ends_at: endsAt, live: true })));
+  await ctx
+    .db('booking_items')
+    .insert(kit.all.map((i) => ({ booking_id: bookingId, item_id: i.id, starts_at: new Date(endsAt.getTime() - 3600_000), ends_at: endsAt, live: true })));
 
   await Promise.all([startServerProcess(), startServerProcess(), startServerProcess()]);
   const about = (m: { subject: string }) => m.subject.includes(`booking #${bookingId}`);
@@ -91,7 +93,12 @@ it('sends one overdue reminder to the member and one per officer, with three sch
   const received = smtp.list().filter(about);
   expect(received.filter((m) => m.to.includes(member.email))).toHaveLength(1);
   // The reminder names the gear still out, in tag order.
-  expect(received.find((m) => m.to.includes(member.email))!.text).toContain(kit.all.map((i) => i.tag).sort().join(', '));
+  expect(received.find((m) => m.to.includes(member.email))!.text).toContain(
+    kit.all
+      .map((i) => i.tag)
+      .sort()
+      .join(', '),
+  );
   const officers = await ctx.db('people').where({ role: 'officer', active: true }).pluck('email');
   for (const email of officers) expect(received.filter((m) => m.to.includes(email))).toHaveLength(1);
   expect(received).toHaveLength(1 + officers.length);

@@ -18,7 +18,14 @@ beforeAll(async () => {
   for (let i = 0; i < 30; i += 1) {
     const kit = await insertKit(ctx.db);
     const start = new Date(Date.now() + (i + 1) * 3600_000);
-    const res = await post(member, '/api/bookings', { itemIds: kit.all.map((k) => k.id), startsAt: start.toISOString(), endsAt: new Date(start.getTime() + 1800_000).toISOString(), location: 'Bay', purpose: `Page ${i}`, plan: plan(5) });
+    const res = await post(member, '/api/bookings', {
+      itemIds: kit.all.map((k) => k.id),
+      startsAt: start.toISOString(),
+      endsAt: new Date(start.getTime() + 1800_000).toISOString(),
+      location: 'Bay',
+      purpose: `Page ${i}`,
+      plan: plan(5),
+    });
     expect(res.status).toBe(201);
   }
 });
@@ -61,9 +68,20 @@ describe('queries per request', () => {
   it('an item page costs the same with one inspection or many', async () => {
     const one = await insertItem(ctx.db, 'probe');
     const many = await insertItem(ctx.db, 'probe');
-    for (const [id, count] of [[one.id, 1], [many.id, 12]] as const) {
+    for (const [id, count] of [
+      [one.id, 1],
+      [many.id, 12],
+    ] as const) {
       for (let i = 0; i < count; i += 1) {
-        await ctx.db('inspections').insert({ item_id: id, inspected_on: addDaysIso(todayIso(), -i), inspector_id: manager.person.id, result: 'pass', readings: '[]', notes: '', next_due: addDaysIso(todayIso(), 100) });
+        await ctx.db('inspections').insert({
+          item_id: id,
+          inspected_on: addDaysIso(todayIso(), -i),
+          inspector_id: manager.person.id,
+          result: 'pass',
+          readings: '[]',
+          notes: '',
+          next_due: addDaysIso(todayIso(), 100),
+        });
       }
     }
     expect(await queriesFor(manager.agent, `/api/items/${many.id}/inspections`)).toBe(await queriesFor(manager.agent, `/api/items/${one.id}/inspections`));
@@ -71,9 +89,25 @@ describe('queries per request', () => {
 
   it('a booking costs the same with one item or five', async () => {
     const kit = await insertKit(ctx.db);
-    const small = await post(member, '/api/bookings', { itemIds: [kit.stick.id], startsAt: new Date(Date.now() + 90 * 86400_000).toISOString(), endsAt: new Date(Date.now() + 90 * 86400_000 + 3600_000).toISOString(), location: 'Bay', purpose: 'One item', plan: plan(5) });
-    const big = await post(member, '/api/bookings', { itemIds: [kit.supply.id, kit.stand.id, kit.interlock.id, kit.probe.id], startsAt: new Date(Date.now() + 91 * 86400_000).toISOString(), endsAt: new Date(Date.now() + 91 * 86400_000 + 3600_000).toISOString(), location: 'Bay', purpose: 'Four items', plan: plan(5) });
-    expect(await queriesFor(member.agent, `/api/bookings/${big.body.booking.id}`)).toBe(await queriesFor(member.agent, `/api/bookings/${small.body.booking.id}`));
+    const small = await post(member, '/api/bookings', {
+      itemIds: [kit.stick.id],
+      startsAt: new Date(Date.now() + 90 * 86400_000).toISOString(),
+      endsAt: new Date(Date.now() + 90 * 86400_000 + 3600_000).toISOString(),
+      location: 'Bay',
+      purpose: 'One item',
+      plan: plan(5),
+    });
+    const big = await post(member, '/api/bookings', {
+      itemIds: [kit.supply.id, kit.stand.id, kit.interlock.id, kit.probe.id],
+      startsAt: new Date(Date.now() + 91 * 86400_000).toISOString(),
+      endsAt: new Date(Date.now() + 91 * 86400_000 + 3600_000).toISOString(),
+      location: 'Bay',
+      purpose: 'Four items',
+      plan: plan(5),
+    });
+    expect(await queriesFor(member.agent, `/api/bookings/${big.body.booking.id}`)).toBe(
+      await queriesFor(member.agent, `/api/bookings/${small.body.booking.id}`),
+    );
   });
 
   it('signed-in reads load their session in at most one statement and write nothing back', async () => {

@@ -53,9 +53,21 @@ beforeAll(async () => {
   await ctx.db('people').where({ id: person.id }).update({ group_id: group.id });
   booker = person;
   // Mon 1 Mar 2021 10:00-14:00, released 10:00, back on time at 13:30: 4 h booked, 3.5 h out.
-  await insertBooking({ startsAt: '2021-03-01T10:00:00Z', endsAt: '2021-03-01T14:00:00Z', status: 'returned', releasedAt: '2021-03-01T10:00:00Z', returnedAt: '2021-03-01T13:30:00Z' });
+  await insertBooking({
+    startsAt: '2021-03-01T10:00:00Z',
+    endsAt: '2021-03-01T14:00:00Z',
+    status: 'returned',
+    releasedAt: '2021-03-01T10:00:00Z',
+    returnedAt: '2021-03-01T13:30:00Z',
+  });
   // Sun 7 Mar 22:00 to Mon 8 Mar 02:00: 2 h in each ISO week; back late (overdue), 1 h over.
-  await insertBooking({ startsAt: '2021-03-07T22:00:00Z', endsAt: '2021-03-08T02:00:00Z', status: 'returned', releasedAt: '2021-03-07T22:00:00Z', returnedAt: '2021-03-08T03:00:00Z' });
+  await insertBooking({
+    startsAt: '2021-03-07T22:00:00Z',
+    endsAt: '2021-03-08T02:00:00Z',
+    status: 'returned',
+    releasedAt: '2021-03-07T22:00:00Z',
+    returnedAt: '2021-03-08T03:00:00Z',
+  });
   // Cancelled: counts nowhere.
   await insertBooking({ startsAt: '2021-03-10T10:00:00Z', endsAt: '2021-03-10T18:00:00Z', status: 'cancelled' });
   // Incidents of the month, written as a report would leave them.
@@ -64,7 +76,16 @@ beforeAll(async () => {
     ['near-miss', 'low', 'open'],
     ['near-miss', 'moderate', 'under-review'],
   ] as const) {
-    await ctx.db('incidents').insert({ kind, severity, status, occurred_at: new Date('2021-03-15T12:00:00Z'), location: 'Bay 9', description: 'Report figures', reported_by: booker.id, tag_out: false });
+    await ctx.db('incidents').insert({
+      kind,
+      severity,
+      status,
+      occurred_at: new Date('2021-03-15T12:00:00Z'),
+      location: 'Bay 9',
+      description: 'Report figures',
+      reported_by: booker.id,
+      tag_out: false,
+    });
   }
 });
 afterAll(() => ctx.close());
@@ -139,11 +160,14 @@ describe('GET /api/reports/safety-summary.pdf', () => {
     const s = figures.body.summary;
     expect(s.incidents.total).toBeGreaterThanOrEqual(3);
 
-    const res = await manager.agent.get(`/api/reports/safety-summary.pdf?month=${MONTH}`).buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    const res = await manager.agent
+      .get(`/api/reports/safety-summary.pdf?month=${MONTH}`)
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toBe('application/pdf');
     const dir = mkdtempSync(path.join(os.tmpdir(), 'summary-'));

@@ -17,7 +17,17 @@ describe('reports', () => {
     const kit = await insertKit(ctx.db);
     const from = new Date('2026-03-01T00:00:00Z');
     const to = new Date('2026-03-02T00:00:00Z');
-    const base = { person_id: person.id, location: 'Bay', purpose: 'Report', planned_kv: 5, polarity: 'positive', max_current_ma: 1, people_present: 2, assessment: '{}', approval_required: false };
+    const base = {
+      person_id: person.id,
+      location: 'Bay',
+      purpose: 'Report',
+      planned_kv: 5,
+      polarity: 'positive',
+      max_current_ma: 1,
+      people_present: 2,
+      assessment: '{}',
+      approval_required: false,
+    };
     // 3 h inside, 2 h of 4 h inside (clipped), one cancelled (not counted).
     await ctx.db('bookings').insert([
       { ...base, status: 'returned', starts_at: new Date('2026-03-01T09:00:00Z'), ends_at: new Date('2026-03-01T12:00:00Z') },

@@ -11,25 +11,32 @@ beforeAll(() => {
 });
 afterAll(() => ctx.close());
 
-const deadlock = () => Object.assign(new Error('Deadlock found when trying to get lock; try restarting transaction'), { code: 'ER_LOCK_DEADLOCK', errno: 1213 });
+const deadlock = () =>
+  Object.assign(new Error('Deadlock found when trying to get lock; try restarting transaction'), { code: 'ER_LOCK_DEADLOCK', errno: 1213 });
 
 describe('withDeadlockRetry', () => {
   it('runs again after a deadlock and returns the later result', async () => {
     let calls = 0;
-    const result = await withDeadlockRetry(async () => {
-      calls += 1;
-      if (calls < 3) throw deadlock();
-      return 'done';
-    }, { baseDelayMs: 1 });
+    const result = await withDeadlockRetry(
+      async () => {
+        calls += 1;
+        if (calls < 3) throw deadlock();
+        return 'done';
+      },
+      { baseDelayMs: 1 },
+    );
     expect({ result, calls }).toEqual({ result: 'done', calls: 3 });
   });
 
   it('gives up after a bounded number of attempts with a 503, never a 500', async () => {
     let calls = 0;
-    const error = await withDeadlockRetry(async () => {
-      calls += 1;
-      throw deadlock();
-    }, { baseDelayMs: 1 }).catch((e: unknown) => e);
+    const error = await withDeadlockRetry(
+      async () => {
+        calls += 1;
+        throw deadlock();
+      },
+      { baseDelayMs: 1 },
+    ).catch((e: unknown) => e);
     expect(calls).toBe(DEFAULT_ATTEMPTS);
     expect(error).toBeInstanceOf(AppError);
     expect((error as AppError).status).toBe(503);
@@ -38,10 +45,12 @@ describe('withDeadlockRetry', () => {
   it('does not retry any other error', async () => {
     let calls = 0;
     const duplicate = Object.assign(new Error('Duplicate entry'), { code: 'ER_DUP_ENTRY', errno: 1062 });
-    await expect(withDeadlockRetry(async () => {
-      calls += 1;
-      throw duplicate;
-    })).rejects.toBe(duplicate);
+    await expect(
+      withDeadlockRetry(async () => {
+        calls += 1;
+        throw duplicate;
+      }),
+    ).rejects.toBe(duplicate);
     expect(calls).toBe(1);
   });
 
@@ -83,7 +92,11 @@ describe('auditedTransaction', () => {
 describe('POST /api/invitations sent at the same moment', () => {
   it('answers 201 for each new e-mail and 201 once then 409 for one e-mail, never 500', async () => {
     const manager = await signedInAs(ctx, 'manager');
-    const invite = (email: string, i: number) => manager.agent.post('/api/invitations').set('x-csrf-token', manager.csrf()).send({ email, name: `Invitee ${i}`, role: 'member' });
+    const invite = (email: string, i: number) =>
+      manager.agent
+        .post('/api/invitations')
+        .set('x-csrf-token', manager.csrf())
+        .send({ email, name: `Invitee ${i}`, role: 'member' });
     const distinct = await Promise.all(Array.from({ length: 12 }, (_, i) => invite(uniqueEmail('invitee'), i)));
     const same = uniqueEmail('twice');
     const duplicate = await Promise.all(Array.from({ length: 8 }, (_, i) => invite(same, i)));

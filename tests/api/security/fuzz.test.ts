@@ -126,7 +126,7 @@ function pct(text: string): string {
 const HOSTILE_STRINGS = [
   "' OR 1=1 --",
   '" OR ""="',
-  "1; DROP TABLE items; --",
+  '1; DROP TABLE items; --',
   "' UNION SELECT password_hash FROM people --",
   "\\'; SHUTDOWN; --",
   '<script>alert(1)</script>',
@@ -168,8 +168,40 @@ const HOSTILE_STRINGS = [
   '__proto__',
   'constructor',
 ];
-const NUMBER_TEXTS = ['1e400', '-1e400', '1e-400', '-0', '0', '-1', '2147483648', '4294967296', '9007199254740993', '1.7976931348623157e308', '5e-324', '1.5', '-2147483649', '1E+2', '123456789012345678901234567890'];
-const HOSTILE_KEYS = ['__proto__', 'constructor', 'prototype', '__defineGetter__', 'toString', 'hasOwnProperty', 'valueOf', '', ' ', 'a.b', '$where', 'role', 'id', 'personId', 'isAdmin'];
+const NUMBER_TEXTS = [
+  '1e400',
+  '-1e400',
+  '1e-400',
+  '-0',
+  '0',
+  '-1',
+  '2147483648',
+  '4294967296',
+  '9007199254740993',
+  '1.7976931348623157e308',
+  '5e-324',
+  '1.5',
+  '-2147483649',
+  '1E+2',
+  '123456789012345678901234567890',
+];
+const HOSTILE_KEYS = [
+  '__proto__',
+  'constructor',
+  'prototype',
+  '__defineGetter__',
+  'toString',
+  'hasOwnProperty',
+  'valueOf',
+  '',
+  ' ',
+  'a.b',
+  '$where',
+  'role',
+  'id',
+  'personId',
+  'isAdmin',
+];
 const ODD_CHARS = ['\u0000', '\u202E', '\u200F', '\ud800', '\udfff', '🔌', '⚡', '\uFEFF', '\n', '%', '\\', '"', "'", '<', '>', '/', '.', 'a', 'Z', '7', ' '];
 
 const oddString = fc.string({ unit: fc.constantFrom(...ODD_CHARS), maxLength: 24 });
@@ -190,7 +222,15 @@ const hostileString: fc.Arbitrary<string> = fc.oneof(
 const hostileKey = fc.oneof({ arbitrary: fc.constantFrom(...HOSTILE_KEYS), weight: 3 }, { arbitrary: oddString, weight: 1 });
 
 const pollution: fc.Arbitrary<J> = fc.constantFrom<J>(
-  new Obj([['__proto__', new Obj([['isAdmin', true], ['role', 'manager']])]]),
+  new Obj([
+    [
+      '__proto__',
+      new Obj([
+        ['isAdmin', true],
+        ['role', 'manager'],
+      ]),
+    ],
+  ]),
   new Obj([['constructor', new Obj([['prototype', new Obj([['polluted', 'yes']])]])]]),
   new Obj([['prototype', new Obj([['polluted', 'yes']])]]),
   new Obj([['__proto__', new Obj([['__proto__', new Obj([['deep', 1]])]])]]),
@@ -253,7 +293,13 @@ function mutate(body: J, m: Mutation): J {
     const [k, v] = entries[objectField]!;
     entries[objectField] = [k, new Obj([...(v as Obj).entries, [m.key, m.value]])];
   } else {
-    entries[i] = [key, new Obj([[m.key, m.value], ['value', old]])];
+    entries[i] = [
+      key,
+      new Obj([
+        [m.key, m.value],
+        ['value', old],
+      ]),
+    ];
   }
   return new Obj(entries);
 }
@@ -428,7 +474,9 @@ class Lane {
   /** The query over this lane's rows; the list of its bookings is read afresh each time. */
   private async buildSql(): Promise<void> {
     const { world, watch } = this;
-    const [columns] = (await watch.query('SELECT table_name AS t, column_name AS c FROM information_schema.columns WHERE table_schema = DATABASE() ORDER BY ordinal_position')) as unknown as [{ t: string; c: string }[]];
+    const [columns] = (await watch.query(
+      'SELECT table_name AS t, column_name AS c FROM information_schema.columns WHERE table_schema = DATABASE() ORDER BY ordinal_position',
+    )) as unknown as [{ t: string; c: string }[]];
     const cols = (table: string) => columns.filter((r) => r.t === table).map((r) => r.c);
     const list = (values: Iterable<number>, quote = false) => {
       const all = [...values];
@@ -439,9 +487,9 @@ class Lane {
     const P = list(world.people);
     const I = list(world.items);
     const B = list(bookingIds);
-    const [[floor]] = (await watch.query('SELECT (SELECT IFNULL(MAX(id), 0) FROM audit_events) AS audit, (SELECT IFNULL(MAX(id), 0) FROM outbox) AS outbox')) as unknown as [
-      { audit: number; outbox: number }[],
-    ];
+    const [[floor]] = (await watch.query(
+      'SELECT (SELECT IFNULL(MAX(id), 0) FROM audit_events) AS audit, (SELECT IFNULL(MAX(id), 0) FROM outbox) AS outbox',
+    )) as unknown as [{ audit: number; outbox: number }[]];
     const emails = [...world.emails];
     const where: Record<string, string> = {
       people: `id IN ${P}`,
@@ -519,16 +567,34 @@ class Lane {
       booking_items: ['UPDATE booking_items SET live = NOT live WHERE booking_id = ?', [b]],
       approvals: ["INSERT INTO approvals (booking_id, officer_id, decision, plan_version) VALUES (?, ?, 'approve', 1)", [b, person]],
       booking_scans: ['INSERT INTO booking_scans (booking_id, item_id, scanned_by) VALUES (?, ?, ?)', [b, otherItem, person]],
-      checklist_runs: ["INSERT INTO checklist_runs (booking_id, phase, plan_version, answers, complete, within_limits, completed_by) VALUES (?, 'pre', 1, '[]', 1, 1, ?)", [b, person]],
-      inspections: ["INSERT INTO inspections (item_id, inspected_on, inspector_id, result, readings, notes, next_due) VALUES (?, '2026-01-01', ?, 'pass', '[]', '', '2027-01-01')", [item, person]],
-      item_files: ["INSERT INTO item_files (item_id, kind, file_name, content_type, size_bytes, storage_key, sha256, uploaded_by) VALUES (?, 'photo', 'x.png', 'image/png', 1, ?, '0', ?)", [item, `probe/${Date.now()}-${Math.random()}`, person]],
+      checklist_runs: [
+        "INSERT INTO checklist_runs (booking_id, phase, plan_version, answers, complete, within_limits, completed_by) VALUES (?, 'pre', 1, '[]', 1, 1, ?)",
+        [b, person],
+      ],
+      inspections: [
+        "INSERT INTO inspections (item_id, inspected_on, inspector_id, result, readings, notes, next_due) VALUES (?, '2026-01-01', ?, 'pass', '[]', '', '2027-01-01')",
+        [item, person],
+      ],
+      item_files: [
+        "INSERT INTO item_files (item_id, kind, file_name, content_type, size_bytes, storage_key, sha256, uploaded_by) VALUES (?, 'photo', 'x.png', 'image/png', 1, ?, '0', ?)",
+        [item, `probe/${Date.now()}-${Math.random()}`, person],
+      ],
       qualifications: ['UPDATE qualifications SET notes = CONCAT(notes, ?) WHERE person_id = ?', ['~', person]],
       checklist_templates: ['UPDATE checklist_templates SET text = CONCAT(text, ?) WHERE id = ?', ['~', template]],
-      outbox: ["INSERT INTO outbox (kind, to_address, subject, text_body, html_body, next_attempt_at) VALUES ('invitation', ?, 's', 't', 'h', NOW(3))", [email]],
-      person_tokens: ["INSERT INTO person_tokens (person_id, purpose, token_hash, expires_at) VALUES (?, 'password-reset', ?, NOW(3))", [person, `${Date.now()}${Math.random()}`.slice(0, 64)]],
+      outbox: [
+        "INSERT INTO outbox (kind, to_address, subject, text_body, html_body, next_attempt_at) VALUES ('invitation', ?, 's', 't', 'h', NOW(3))",
+        [email],
+      ],
+      person_tokens: [
+        "INSERT INTO person_tokens (person_id, purpose, token_hash, expires_at) VALUES (?, 'password-reset', ?, NOW(3))",
+        [person, `${Date.now()}${Math.random()}`.slice(0, 64)],
+      ],
       audit_events: ["INSERT INTO audit_events (actor_id, entity, entity_id, action, prev_hash, hash) VALUES (?, 'probe', '0', 'probe', '0', '0')", [person]],
       incidents: ["INSERT INTO incidents (booking_id, kind, description, reported_by) VALUES (?, 'near-miss', 'probe', ?)", [b, person]],
-      calendar_feeds: ["INSERT INTO calendar_feeds (person_id, token_hash, nonce) VALUES (?, ?, ?)", [person, `${Date.now()}${Math.random()}`.replace(/\D/g, '').padEnd(64, '0').slice(0, 64), '0'.repeat(32)]],
+      calendar_feeds: [
+        'INSERT INTO calendar_feeds (person_id, token_hash, nonce) VALUES (?, ?, ?)',
+        [person, `${Date.now()}${Math.random()}`.replace(/\D/g, '').padEnd(64, '0').slice(0, 64), '0'.repeat(32)],
+      ],
     };
     const noticed: Record<string, boolean> = {};
     for (const [table, [sql, values]] of Object.entries(changes)) {
@@ -677,9 +743,7 @@ function report(property: string): void {
 /** Runs a property in every lane at once, splitting the runs between the lanes. */
 async function inLanes(runs: number, property: (lane: Lane) => fc.IAsyncProperty<never[]> | fc.IAsyncProperty<unknown[]>): Promise<void> {
   await Promise.all(
-    lanes.map((lane, i) =>
-      fc.assert(property(lane) as fc.IAsyncProperty<unknown[]>, { numRuns: Math.ceil(runs / LANES), seed: SEED + i, endOnFailure: true }),
-    ),
+    lanes.map((lane, i) => fc.assert(property(lane) as fc.IAsyncProperty<unknown[]>, { numRuns: Math.ceil(runs / LANES), seed: SEED + i, endOnFailure: true })),
   );
 }
 
@@ -703,7 +767,9 @@ describe('hostile input (fast-check)', () => {
         const { method } = splitRoute(key);
         const url = urlOf(key, req.params);
         await lane.inspect({ property: 'body', key, method, url, body: text }, () =>
-          agentCall(req.as ?? caller, method, url).set('Content-Type', 'application/json').send(text),
+          agentCall(req.as ?? caller, method, url)
+            .set('Content-Type', 'application/json')
+            .send(text),
         );
       }),
     );
@@ -712,7 +778,12 @@ describe('hostile input (fast-check)', () => {
 
   it(`path segments on every route with a parameter (${RUNS.params} runs)`, async () => {
     const keys = [...WRITE_ROUTES, ...LIST_ROUTES].filter((k) => paramNames(splitRoute(k).pattern).length > 0);
-    const pollutedBody = toJson(new Obj([['__proto__', new Obj([['isAdmin', true]])], ['x', "' OR 1=1 --"]]));
+    const pollutedBody = toJson(
+      new Obj([
+        ['__proto__', new Obj([['isAdmin', true]])],
+        ['x', "' OR 1=1 --"],
+      ]),
+    );
     await inLanes(RUNS.params, (lane) =>
       fc.asyncProperty(fc.constantFrom(...keys), hostileSegment, fc.boolean(), async (key, segment, hostileBody) => {
         const { method, pattern } = splitRoute(key);
@@ -740,7 +811,10 @@ describe('hostile input (fast-check)', () => {
       { arbitrary: codePointString, weight: 1 },
       { arbitrary: fc.integer({ min: 100, max: 2_000 }).map((n) => 'q'.repeat(n)), weight: 1 },
     );
-    const name = fc.oneof(hostileKey, fc.constantFrom('q', 'limit', 'cursor', 'status', 'kind', 'sort', 'from', 'to', 'items', 'entity', 'id', 'mine', 'itemId', 'minKv', 'due'));
+    const name = fc.oneof(
+      hostileKey,
+      fc.constantFrom('q', 'limit', 'cursor', 'status', 'kind', 'sort', 'from', 'to', 'items', 'entity', 'id', 'mine', 'itemId', 'minKv', 'due'),
+    );
     const junk = fc.constantFrom(
       '&&&',
       '=',
@@ -759,12 +833,18 @@ describe('hostile input (fast-check)', () => {
       'sort=__proto__',
     );
     await inLanes(RUNS.query, (lane) =>
-      fc.asyncProperty(fc.constantFrom(...LIST_ROUTES), fc.array(fc.tuple(name, value), { maxLength: 4 }), fc.option(junk), fc.boolean(), async (key, pairs, extra, keepBaseline) => {
-        const { caller, req } = lane.baseline(key);
-        const parts = [keepBaseline ? queryText(req.query) : '', ...pairs.map(([k, v]) => `${pct(k)}=${pct(v)}`), extra ?? ''].filter((p) => p !== '');
-        const url = urlOf(key, req.params, parts.join('&'));
-        await lane.inspect({ property: 'query', key, method: 'GET', url }, () => agentCall(caller, 'GET', url));
-      }),
+      fc.asyncProperty(
+        fc.constantFrom(...LIST_ROUTES),
+        fc.array(fc.tuple(name, value), { maxLength: 4 }),
+        fc.option(junk),
+        fc.boolean(),
+        async (key, pairs, extra, keepBaseline) => {
+          const { caller, req } = lane.baseline(key);
+          const parts = [keepBaseline ? queryText(req.query) : '', ...pairs.map(([k, v]) => `${pct(k)}=${pct(v)}`), extra ?? ''].filter((p) => p !== '');
+          const url = urlOf(key, req.params, parts.join('&'));
+          await lane.inspect({ property: 'query', key, method: 'GET', url }, () => agentCall(caller, 'GET', url));
+        },
+      ),
     );
     report('query');
   }, 600_000);
@@ -784,23 +864,56 @@ describe('hostile input (fast-check)', () => {
       ['png signature + html', Buffer.concat([pngBytes().subarray(0, 8), Buffer.from('<html>')])],
     );
     const fileName = fc.oneof(
-      fc.constantFrom('../../etc/passwd', '..\\evil.png', 'a/b.png', '.png', '...', 'x\u0000.png', 'gnp\u202E.exe', 'photo".png', "it's.png", '🔌.png', `${'a'.repeat(300)}.png`, '%2e%2e%2fx.png', 'CON', ' ', 'ok.png'),
+      fc.constantFrom(
+        '../../etc/passwd',
+        '..\\evil.png',
+        'a/b.png',
+        '.png',
+        '...',
+        'x\u0000.png',
+        'gnp\u202E.exe',
+        'photo".png',
+        "it's.png",
+        '🔌.png',
+        `${'a'.repeat(300)}.png`,
+        '%2e%2e%2fx.png',
+        'CON',
+        ' ',
+        'ok.png',
+      ),
       hostileString.filter((s) => s.length < 400),
     );
-    const fields = fc.array(fc.tuple(fc.oneof(fc.constant('kind'), hostileKey), fc.oneof(fc.constantFrom('photo', 'document', 'PHOTO', ''), hostileString.filter((s) => s.length < 2000))), { maxLength: 6 });
+    const fields = fc.array(
+      fc.tuple(
+        fc.oneof(fc.constant('kind'), hostileKey),
+        fc.oneof(
+          fc.constantFrom('photo', 'document', 'PHOTO', ''),
+          hostileString.filter((s) => s.length < 2000),
+        ),
+      ),
+      { maxLength: 6 },
+    );
     await inLanes(RUNS.upload, (lane) =>
-      fc.asyncProperty(fc.constantFrom(...uploadRoutes), contents, fileName, fields, fc.constantFrom('file', 'files', '__proto__'), fc.boolean(), async (key, [what, bytes], name, extraFields, fieldName, twice) => {
-        const { caller, req } = lane.baseline(key);
-        const url = urlOf(key, req.params);
-        const note = `${what} as ${JSON.stringify(name)} in field ${fieldName}${twice ? ' twice' : ''}; fields ${JSON.stringify(extraFields.map(([k, v]) => [k, v.slice(0, 50)]))}`;
-        await lane.inspect({ property: 'upload', key, method: 'POST', url, note, body: note.slice(0, 300) }, () => {
-          let test = agentCall(caller, 'POST', url);
-          for (const [k, v] of extraFields) test = test.field(k, v);
-          test = test.attach(fieldName, bytes, { filepath: name } as unknown as string);
-          if (twice) test = test.attach(fieldName, bytes, { filepath: 'second.png' } as unknown as string);
-          return test;
-        });
-      }),
+      fc.asyncProperty(
+        fc.constantFrom(...uploadRoutes),
+        contents,
+        fileName,
+        fields,
+        fc.constantFrom('file', 'files', '__proto__'),
+        fc.boolean(),
+        async (key, [what, bytes], name, extraFields, fieldName, twice) => {
+          const { caller, req } = lane.baseline(key);
+          const url = urlOf(key, req.params);
+          const note = `${what} as ${JSON.stringify(name)} in field ${fieldName}${twice ? ' twice' : ''}; fields ${JSON.stringify(extraFields.map(([k, v]) => [k, v.slice(0, 50)]))}`;
+          await lane.inspect({ property: 'upload', key, method: 'POST', url, note, body: note.slice(0, 300) }, () => {
+            let test = agentCall(caller, 'POST', url);
+            for (const [k, v] of extraFields) test = test.field(k, v);
+            test = test.attach(fieldName, bytes, { filepath: name } as unknown as string);
+            if (twice) test = test.attach(fieldName, bytes, { filepath: 'second.png' } as unknown as string);
+            return test;
+          });
+        },
+      ),
     );
     report('upload');
   }, 600_000);
@@ -859,7 +972,11 @@ describe('hostile inputs the fuzzer found (fixed cases, so they fail until the s
     ['notes', 'PUT /api/people/:id/qualification', { authorisedKv: 10, expiresOn: '2030-01-01', notes: LONE }],
   ];
 
-  async function sendKnown(key: string, sent: Omit<Sent, 'property' | 'key' | 'method' | 'url'>, attach: (test: ReturnType<typeof agentCall>) => ReturnType<typeof agentCall>) {
+  async function sendKnown(
+    key: string,
+    sent: Omit<Sent, 'property' | 'key' | 'method' | 'url'>,
+    attach: (test: ReturnType<typeof agentCall>) => ReturnType<typeof agentCall>,
+  ) {
     const lane = lanes[0]!;
     const caller = lane.callerFor(key);
     const req = await ROUTES[key]!.build(lane.world, caller);
@@ -888,7 +1005,9 @@ describe('hostile inputs the fuzzer found (fixed cases, so they fail until the s
 describe('after the run', () => {
   it('sent at least 10,000 requests and polluted no prototype', () => {
     const seconds = Math.round((Date.now() - started) / 1000);
-    console.log(`fuzz: ${tally.requests} requests in ${seconds} s over ${LANES} lanes (seed ${SEED}); answers by status ${JSON.stringify(tally.byStatus)}; ${violations.length} violations`);
+    console.log(
+      `fuzz: ${tally.requests} requests in ${seconds} s over ${LANES} lanes (seed ${SEED}); answers by status ${JSON.stringify(tally.byStatus)}; ${violations.length} violations`,
+    );
     expect(tally.requests).toBeGreaterThanOrEqual(10_000);
     expect(Object.getOwnPropertyNames(Object.prototype).sort()).toEqual(prototypeBefore);
     const probe = {} as Record<string, unknown>;

@@ -7,7 +7,11 @@ import type { Mailbox } from '../../../server/mail/fake-smtp';
 import { createPerson, signedInAgent, testConfig } from '../../helpers/test-app';
 import { createDb, type Db } from '../../../server/db';
 
-const mailbox: Mailbox = { list: () => [{ id: 1, to: ['a@test.voltcrib.example'], from: 'x', subject: 'Hello', text: 'x', html: null, messageId: null, receivedAt: new Date().toISOString() }] };
+const mailbox: Mailbox = {
+  list: () => [
+    { id: 1, to: ['a@test.voltcrib.example'], from: 'x', subject: 'Hello', text: 'x', html: null, messageId: null, receivedAt: new Date().toISOString() },
+  ],
+};
 
 let db: Db;
 beforeAll(() => {

@@ -2,7 +2,17 @@
 // the roles it admits; this suite proves the table matches the routes Express really has, then
 // sends each route's valid request as signed out, member, officer and manager and expects exactly
 // the fixture's success status for an admitted identity, 401 signed out, and 403 for another role.
-import { createSecurityContext, expectedStatus, IDENTITIES, listApiRoutes, ROUTES, send, World, type Caller, type Identity } from '../../helpers/route-fixtures';
+import {
+  createSecurityContext,
+  expectedStatus,
+  IDENTITIES,
+  listApiRoutes,
+  ROUTES,
+  send,
+  World,
+  type Caller,
+  type Identity,
+} from '../../helpers/route-fixtures';
 import type { TestContext } from '../../helpers/test-app';
 
 const KEYS = Object.keys(ROUTES).sort((a, b) => a.split(' ')[1]!.localeCompare(b.split(' ')[1]!) || a.localeCompare(b));

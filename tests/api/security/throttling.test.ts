@@ -32,7 +32,12 @@ async function visitor(app: TestContext['app'], address: string) {
   const agent = request.agent(app);
   const res = await agent.get('/api/session').set('X-Forwarded-For', address).expect(200);
   const token = res.body.csrfToken as string;
-  const post = (path: string, body: unknown) => agent.post(path).set('X-Forwarded-For', address).set('x-csrf-token', token).send(body as object);
+  const post = (path: string, body: unknown) =>
+    agent
+      .post(path)
+      .set('X-Forwarded-For', address)
+      .set('x-csrf-token', token)
+      .send(body as object);
   return { signIn: (email: string, password: string) => post('/api/session', { email, password }), post };
 }
 

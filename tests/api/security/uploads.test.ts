@@ -15,7 +15,11 @@ function noisyPng(side: number): Buffer {
   return PNG.sync.write(png);
 }
 const smallPng = () => noisyPng(4);
-const JPEG = Buffer.concat([Buffer.from([0xff, 0xd8, 0xff, 0xe0, 0x00, 0x10, 0x4a, 0x46, 0x49, 0x46, 0x00, 0x01]), Buffer.alloc(64), Buffer.from([0xff, 0xd9])]);
+const JPEG = Buffer.concat([
+  Buffer.from([0xff, 0xd8, 0xff, 0xe0, 0x00, 0x10, 0x4a, 0x46, 0x49, 0x46, 0x00, 0x01]),
+  Buffer.alloc(64),
+  Buffer.from([0xff, 0xd9]),
+]);
 
 type Who = Awaited<ReturnType<typeof signedInAs>>;
 
@@ -27,7 +31,13 @@ async function member(ctx: TestContext): Promise<Who> {
 
 async function newBooking(ctx: TestContext, who: Who): Promise<number> {
   const kit = await insertKit(ctx.db);
-  const res = await post(who, '/api/bookings', { itemIds: kit.all.map((i) => i.id), ...windowFromNow(), location: 'Bay 4', purpose: 'Upload limits', plan: plan(10) });
+  const res = await post(who, '/api/bookings', {
+    itemIds: kit.all.map((i) => i.id),
+    ...windowFromNow(),
+    location: 'Bay 4',
+    purpose: 'Upload limits',
+    plan: plan(10),
+  });
   expect(res.status).toBe(201);
   return res.body.booking.id as number;
 }
@@ -82,14 +92,18 @@ describe('stored file names', () => {
     expect(res.body.file.fileName).toBe(expected);
   });
 
-  it('drops control characters a name carries in RFC 5987 encoding (filename*=UTF-8\'\'…)', async () => {
+  it("drops control characters a name carries in RFC 5987 encoding (filename*=UTF-8''…)", async () => {
     const boundary = 'voltcrib-boundary';
     const body = Buffer.concat([
       Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="file"; filename*=UTF-8''bell%07and%09tab%1B.png\r\nContent-Type: image/png\r\n\r\n`),
       smallPng(),
       Buffer.from(`\r\n--${boundary}--\r\n`),
     ]);
-    const res = await who.agent.post(`/api/bookings/${bookingId}/photos`).set('x-csrf-token', who.csrf()).set('content-type', `multipart/form-data; boundary=${boundary}`).send(body);
+    const res = await who.agent
+      .post(`/api/bookings/${bookingId}/photos`)
+      .set('x-csrf-token', who.csrf())
+      .set('content-type', `multipart/form-data; boundary=${boundary}`)
+      .send(body);
     expect(res.status).toBe(201);
     expect(res.body.file.fileName).toBe('bellandtab.png');
   });

@@ -41,7 +41,12 @@ function cookieNamed(res: { headers: Record<string, unknown> }, name: string): s
 async function signInRaw(app: TestContext['app'], person: { email: string; password: string }, headers: Record<string, string> = {}) {
   const visit = await request(app).get('/api/session').set(headers).expect(200);
   const csrfCookie = ([] as string[]).concat((visit.headers['set-cookie'] as unknown as string[]) ?? []).find((c) => /voltcrib\.csrf=/.test(c))!;
-  const res = await request(app).post('/api/session').set(headers).set('Cookie', csrfCookie.split(';')[0]!).set('x-csrf-token', visit.body.csrfToken).send({ email: person.email, password: person.password });
+  const res = await request(app)
+    .post('/api/session')
+    .set(headers)
+    .set('Cookie', csrfCookie.split(';')[0]!)
+    .set('x-csrf-token', visit.body.csrfToken)
+    .send({ email: person.email, password: person.password });
   return { visit, res };
 }
 
@@ -101,7 +106,11 @@ describe('the session id', () => {
     const visit = await agent.get('/api/session').expect(200);
     expect(sessionCookie(visit)).toBeUndefined();
 
-    const signIn = await agent.post('/api/session').set('x-csrf-token', visit.body.csrfToken).send({ email: person.email, password: person.password }).expect(200);
+    const signIn = await agent
+      .post('/api/session')
+      .set('x-csrf-token', visit.body.csrfToken)
+      .send({ email: person.email, password: person.password })
+      .expect(200);
     const signedSid = sessionId(sessionCookie(signIn));
     expect(await sessionRow(signedSid)).toBeDefined();
 
@@ -109,7 +118,9 @@ describe('the session id', () => {
     await agent.delete('/api/session').set('x-csrf-token', token).expect(204);
     expect(await sessionRow(signedSid)).toBeUndefined();
     // The old cookie, replayed, is a signed-out visitor.
-    const replay = await request(ctx.app).get('/api/session').set('Cookie', `${SID}=${encodeURIComponent(`s:${signedSid}`)}`);
+    const replay = await request(ctx.app)
+      .get('/api/session')
+      .set('Cookie', `${SID}=${encodeURIComponent(`s:${signedSid}`)}`);
     expect(replay.body.user).toBeNull();
   });
 
@@ -285,9 +296,15 @@ describe('the audit chain', () => {
   // transaction is one, and its own transaction then nests as a savepoint that sees the edit.
   async function auditIdOfNewItem(): Promise<number> {
     const manager = await signedInAs(ctx, 'manager');
-    const res = await manager.agent.post('/api/items').set('x-csrf-token', manager.csrf()).send({ kind: 'meter', name: 'Audit probe meter', location: 'Bay 1', ratings: { maxKv: null } });
+    const res = await manager.agent
+      .post('/api/items')
+      .set('x-csrf-token', manager.csrf())
+      .send({ kind: 'meter', name: 'Audit probe meter', location: 'Bay 1', ratings: { maxKv: null } });
     expect(res.status).toBe(201);
-    const row = await ctx.db('audit_events').where({ entity: 'item', entity_id: String(res.body.item.id), action: 'item.created' }).first('id');
+    const row = await ctx
+      .db('audit_events')
+      .where({ entity: 'item', entity_id: String(res.body.item.id), action: 'item.created' })
+      .first('id');
     return Number(row.id);
   }
 
@@ -296,9 +313,15 @@ describe('the audit chain', () => {
     // for accents, symbols outside the BMP, quotes and backslashes alike.
     const manager = await signedInAs(ctx, 'manager');
     const name = 'Prüfspitze “Ω” ⚡ 𝛀 \\ "quoted" 探针';
-    const res = await manager.agent.post('/api/items').set('x-csrf-token', manager.csrf()).send({ kind: 'meter', name, location: 'Bay 1', ratings: { maxKv: null } });
+    const res = await manager.agent
+      .post('/api/items')
+      .set('x-csrf-token', manager.csrf())
+      .send({ kind: 'meter', name, location: 'Bay 1', ratings: { maxKv: null } });
     expect(res.status).toBe(201);
-    const row = await ctx.db('audit_events').where({ entity: 'item', entity_id: String(res.body.item.id), action: 'item.created' }).first('after', 'hash');
+    const row = await ctx
+      .db('audit_events')
+      .where({ entity: 'item', entity_id: String(res.body.item.id), action: 'item.created' })
+      .first('after', 'hash');
     expect((typeof row.after === 'string' ? JSON.parse(row.after) : row.after).name).toBe(name);
     expect(row.hash).toMatch(/^[0-9a-f]{64}$/);
     expect((await verifyAuditChain(ctx.db)).ok).toBe(true);
@@ -308,7 +331,9 @@ describe('the audit chain', () => {
     const id = await auditIdOfNewItem();
     const trx = await ctx.db.transaction();
     try {
-      await trx('audit_events').where({ id }).update({ after: JSON.stringify({ name: 'Someone else’s meter' }) });
+      await trx('audit_events')
+        .where({ id })
+        .update({ after: JSON.stringify({ name: 'Someone else’s meter' }) });
       expect(await verifyAuditChain(trx)).toEqual({ ok: false, checked: expect.any(Number), brokenAtId: id });
     } finally {
       await trx.rollback();

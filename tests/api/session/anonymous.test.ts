@@ -17,7 +17,8 @@ async function anonymousRows(): Promise<number> {
   return Number(row?.n);
 }
 
-const sidCookie = (res: { headers: Record<string, unknown> }) => ([] as string[]).concat((res.headers['set-cookie'] as string[] | undefined) ?? []).find((c) => c.startsWith('voltcrib.sid='));
+const sidCookie = (res: { headers: Record<string, unknown> }) =>
+  ([] as string[]).concat((res.headers['set-cookie'] as string[] | undefined) ?? []).find((c) => c.startsWith('voltcrib.sid='));
 
 describe('anonymous visitors', () => {
   it('write no session row and get no session cookie, however many requests they send', async () => {
@@ -29,17 +30,25 @@ describe('anonymous visitors', () => {
     expect(answers.every((a) => a.status === 200 && a.body.user === null && typeof a.body.csrfToken === 'string')).toBe(true);
     expect(answers.filter(sidCookie)).toHaveLength(0);
     expect(await anonymousRows()).toBe(before);
-    console.log(`[anonymous] ${answers.length} anonymous GET /api/session: ${answers.filter(sidCookie).length} session cookies, ${(await anonymousRows()) - before} new session rows`);
+    console.log(
+      `[anonymous] ${answers.length} anonymous GET /api/session: ${answers.filter(sidCookie).length} session cookies, ${(await anonymousRows()) - before} new session rows`,
+    );
   });
 
   it('write none either when a sign-in fails or a password reset is asked for', async () => {
     const before = await anonymousRows();
     const agent = request.agent(ctx.app);
     const { body } = await agent.get('/api/session').expect(200);
-    const failed = await agent.post('/api/session').set('x-csrf-token', body.csrfToken).send({ email: uniqueEmail('nobody'), password: 'wrong' });
+    const failed = await agent
+      .post('/api/session')
+      .set('x-csrf-token', body.csrfToken)
+      .send({ email: uniqueEmail('nobody'), password: 'wrong' });
     expect(failed.status).toBe(401);
     expect(sidCookie(failed)).toBeUndefined();
-    const reset = await agent.post('/api/password-resets').set('x-csrf-token', body.csrfToken).send({ email: uniqueEmail('nobody') });
+    const reset = await agent
+      .post('/api/password-resets')
+      .set('x-csrf-token', body.csrfToken)
+      .send({ email: uniqueEmail('nobody') });
     expect(reset.status).toBe(202);
     expect(await anonymousRows()).toBe(before);
   });
@@ -60,7 +69,11 @@ describe('anonymous visitors', () => {
 
     // A forged token in both places (not signed with the server's secret): refused.
     const forged = 'a'.repeat(64) + '.' + 'b'.repeat(64);
-    const forgedRes = await request(ctx.app).post('/api/session').set('Cookie', `voltcrib.csrf=${forged}`).set('x-csrf-token', forged).send({ email: person.email, password: person.password });
+    const forgedRes = await request(ctx.app)
+      .post('/api/session')
+      .set('Cookie', `voltcrib.csrf=${forged}`)
+      .set('x-csrf-token', forged)
+      .send({ email: person.email, password: person.password });
     expect(forgedRes.status).toBe(403);
 
     // The visitor's own cookie and token: signed in, with a session row and a token of the session.

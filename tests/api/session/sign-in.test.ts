@@ -30,7 +30,10 @@ describe('POST /api/session', () => {
     it('accepts the e-mail in any case and with spaces around it', async () => {
       const person = await createPerson(ctx.db);
       const { agent, csrf } = await anonymousAgent(ctx.app);
-      const res = await agent.post('/api/session').set('x-csrf-token', csrf()).send({ email: `  ${person.email.toUpperCase()} `, password: person.password });
+      const res = await agent
+        .post('/api/session')
+        .set('x-csrf-token', csrf())
+        .send({ email: `  ${person.email.toUpperCase()} `, password: person.password });
       expect(res.status).toBe(200);
     });
 
@@ -52,7 +55,10 @@ describe('POST /api/session', () => {
       const a = await anonymousAgent(ctx.app);
       const wrong = await a.agent.post('/api/session').set('x-csrf-token', a.csrf()).send({ email: person.email, password: 'not the password' });
       const b = await anonymousAgent(ctx.app);
-      const unknown = await b.agent.post('/api/session').set('x-csrf-token', b.csrf()).send({ email: 'nobody-here@test.voltcrib.example', password: 'whatever' });
+      const unknown = await b.agent
+        .post('/api/session')
+        .set('x-csrf-token', b.csrf())
+        .send({ email: 'nobody-here@test.voltcrib.example', password: 'whatever' });
       expect(wrong.status).toBe(401);
       expect(unknown.status).toBe(401);
       expect(wrong.body).toEqual(unknown.body);
@@ -98,7 +104,10 @@ describe('POST /api/session', () => {
         const person = await createPerson(limited.db);
         const a = await anonymousAgent(limited.app);
         for (let i = 0; i < 3; i += 1) {
-          const res = await a.agent.post('/api/session').set('x-csrf-token', a.csrf()).send({ email: person.email, password: `wrong-${i}` });
+          const res = await a.agent
+            .post('/api/session')
+            .set('x-csrf-token', a.csrf())
+            .send({ email: person.email, password: `wrong-${i}` });
           expect(res.status).toBe(401);
         }
         const blocked = await a.agent.post('/api/session').set('x-csrf-token', a.csrf()).send({ email: person.email, password: person.password });

@@ -111,7 +111,11 @@ describe('API answers', () => {
     const first = await fetch(`${baseUrl}/api/session`);
     const anonymous = first.headers.get('set-cookie')!.split(';')[0]!;
     const { csrfToken } = (await first.json()) as { csrfToken: string };
-    const signIn = await fetch(`${baseUrl}/api/session`, { method: 'POST', headers: { cookie: anonymous, 'content-type': 'application/json', 'x-csrf-token': csrfToken }, body: JSON.stringify({ email: person.email, password: person.password }) });
+    const signIn = await fetch(`${baseUrl}/api/session`, {
+      method: 'POST',
+      headers: { cookie: anonymous, 'content-type': 'application/json', 'x-csrf-token': csrfToken },
+      body: JSON.stringify({ email: person.email, password: person.password }),
+    });
     expect(signIn.status).toBe(200);
     const cookie = signIn.headers.get('set-cookie')?.split(';')[0] ?? anonymous;
     const { csrfToken: token } = (await signIn.json()) as { csrfToken: string };
@@ -122,7 +126,11 @@ describe('API answers', () => {
     expect(small.headers['content-encoding']).toBeUndefined();
     const word = uniqueWord();
     for (const kind of ['probe', 'hv-supply', 'isolation-stand', 'grounding-stick', 'interlock', 'multiplier']) {
-      const created = await fetch(`${baseUrl}/api/items`, { method: 'POST', headers: { cookie, 'content-type': 'application/json', 'x-csrf-token': token }, body: JSON.stringify(itemBody(kind, word)) });
+      const created = await fetch(`${baseUrl}/api/items`, {
+        method: 'POST',
+        headers: { cookie, 'content-type': 'application/json', 'x-csrf-token': token },
+        body: JSON.stringify(itemBody(kind, word)),
+      });
       expect(created.status).toBe(201);
     }
     const big = await onTheWire(`/api/items?q=${word}`, { 'accept-encoding': 'gzip', cookie });

@@ -44,7 +44,9 @@ describe('report periods', () => {
     const { from, to } = periodToInstants({ from: '2026-03-02', to: '2026-03-31' });
     expect(new Date(from).getTime()).toBe(new Date(2026, 2, 2).getTime());
     expect(new Date(to).getTime()).toBe(new Date(2026, 3, 1).getTime());
-    expect(reportUrls.usageCsv({ from: '2026-03-02', to: '2026-03-31' })).toBe(`/api/reports/usage.csv?from=${encodeURIComponent(from)}&to=${encodeURIComponent(to)}`);
+    expect(reportUrls.usageCsv({ from: '2026-03-02', to: '2026-03-31' })).toBe(
+      `/api/reports/usage.csv?from=${encodeURIComponent(from)}&to=${encodeURIComponent(to)}`,
+    );
   });
 
   it('accepts two dates in order and says what is wrong otherwise', () => {

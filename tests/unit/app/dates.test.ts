@@ -16,7 +16,19 @@ describe('isoOfMillis', () => {
   });
 
   it('agrees at the edges of a day, of the epoch and of the representable range', () => {
-    for (const ms of [0, -1, 1, 86_399_999, 86_400_000, -86_400_000, -86_400_001, MAX_TIME, -MAX_TIME, Date.UTC(2026, 11, 31, 23, 59, 59, 999), Date.UTC(2028, 1, 29, 12)]) {
+    for (const ms of [
+      0,
+      -1,
+      1,
+      86_399_999,
+      86_400_000,
+      -86_400_000,
+      -86_400_001,
+      MAX_TIME,
+      -MAX_TIME,
+      Date.UTC(2026, 11, 31, 23, 59, 59, 999),
+      Date.UTC(2028, 1, 29, 12),
+    ]) {
       expect(isoOfMillis(ms)).toBe(new Date(ms).toISOString());
     }
   });

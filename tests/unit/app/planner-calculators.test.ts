@@ -11,7 +11,11 @@ function calc(name: CalculatorName) {
   return found;
 }
 
-function run(name: CalculatorName, fields: Record<string, string | [string, string]>, choices: Record<string, string> = {}): { view: CalcView; state: CalcState } {
+function run(
+  name: CalculatorName,
+  fields: Record<string, string | [string, string]>,
+  choices: Record<string, string> = {},
+): { view: CalcView; state: CalcState } {
   const def = calc(name);
   const state = initialState(def);
   for (const [key, value] of Object.entries(fields)) {
@@ -146,7 +150,9 @@ describe('multiplier', () => {
   });
 
   it('asks for a whole number of stages and flags an overloaded cascade', () => {
-    expect(run('multiplier', { stages: '2.5', peakInput: '10', frequency: '50', stageCapacitance: '1', load: '1' }).view.errors).toEqual({ stages: 'Enter a whole number' });
+    expect(run('multiplier', { stages: '2.5', peakInput: '10', frequency: '50', stageCapacitance: '1', load: '1' }).view.errors).toEqual({
+      stages: 'Enter a whole number',
+    });
     const overloaded = run('multiplier', { stages: '20', peakInput: '1', frequency: ['50', 'Hz'], stageCapacitance: '1', load: '1' }).view;
     expect(overloaded.sections[0]!.notices.map((n) => n.key)).toContain('overloaded');
   });
@@ -161,7 +167,9 @@ describe('corona onset', () => {
   });
 
   it('refuses a collector inside the wire with the schema’s message', () => {
-    expect(run('corona', { wireRadius: '2', outerRadius: ['1', 'mm'] }).view.errors).toEqual({ outerRadius: 'The outer radius must be larger than the wire radius' });
+    expect(run('corona', { wireRadius: '2', outerRadius: ['1', 'mm'] }).view.errors).toEqual({
+      outerRadius: 'The outer radius must be larger than the wire radius',
+    });
   });
 });
 

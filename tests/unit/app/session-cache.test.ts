@@ -18,7 +18,12 @@ describe('SessionCache', () => {
   it('drops one session, or every session of a person', () => {
     const cache = new SessionCache();
     const expires = Date.now() + 60_000;
-    for (const [sid, person] of [['a', 1], ['b', 1], ['c', 2]] as const) cache.keep(sid, json(person), expires, cache.begin());
+    for (const [sid, person] of [
+      ['a', 1],
+      ['b', 1],
+      ['c', 2],
+    ] as const)
+      cache.keep(sid, json(person), expires, cache.begin());
     cache.forget('c');
     expect(cache.read('c')).toBeUndefined();
     cache.forgetPerson(1);

@@ -4,7 +4,8 @@ import { unitOfField } from '@/shared/zod-errors';
 import { checklistTemplateItemSchema, labRulesSchema } from '@/shared/schemas/bookings';
 import { signInSchema } from '@/shared/schemas/session';
 
-const messagesOf = (result: { success: boolean; error?: z.ZodError }) => Object.fromEntries((result.error?.issues ?? []).map((i) => [i.path.join('.'), i.message]));
+const messagesOf = (result: { success: boolean; error?: z.ZodError }) =>
+  Object.fromEntries((result.error?.issues ?? []).map((i) => [i.path.join('.'), i.message]));
 
 describe('the shared zod error map', () => {
   it('reads the unit from the field name', () => {
@@ -20,7 +21,15 @@ describe('the shared zod error map', () => {
   });
 
   it('says number limits with their unit', () => {
-    const rules = { approvalKv: 400, energyThresholdJ: -1, ratingMarginPct: 10, interlockKv: 1.5, safeResidualV: 50, earlyPickupMin: 15, overdueGraceMin: 99999 };
+    const rules = {
+      approvalKv: 400,
+      energyThresholdJ: -1,
+      ratingMarginPct: 10,
+      interlockKv: 1.5,
+      safeResidualV: 50,
+      earlyPickupMin: 15,
+      overdueGraceMin: 99999,
+    };
     expect(messagesOf(labRulesSchema.safeParse(rules))).toEqual({
       approvalKv: 'At most 300 kV',
       energyThresholdJ: 'At least 0 J',

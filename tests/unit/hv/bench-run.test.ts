@@ -2,7 +2,18 @@ import { benchRunFlags, deriveBenchRun, type BenchRunContext, type BenchRunReadi
 import { expectWithin } from './expect-within';
 
 const PLAN: BenchRunContext = { plannedKv: 12, maxCurrentMa: 0.5, supplies: [{ tag: 'KH-SUP-1', maxKv: 30, maxMa: 2 }] };
-const RUN: BenchRunReadings = { appliedKv: 10, currentMa: 0.25, gapMm: 30, thrustMn: 15, massG: 40, outletAreaCm2: 100, velocityMps: 1.2, temperatureC: 20, pressureKpa: 101.325, humidityPct: 0 };
+const RUN: BenchRunReadings = {
+  appliedKv: 10,
+  currentMa: 0.25,
+  gapMm: 30,
+  thrustMn: 15,
+  massG: 40,
+  outletAreaCm2: 100,
+  velocityMps: 1.2,
+  temperatureC: 20,
+  pressureKpa: 101.325,
+  humidityPct: 0,
+};
 
 const codes = (run: BenchRunReadings, ctx = PLAN) => benchRunFlags(run, deriveBenchRun(run), ctx).map((f) => f.code);
 
@@ -20,7 +31,15 @@ describe('deriveBenchRun', () => {
 
   it('gives null where an input is missing', () => {
     const d = deriveBenchRun({ appliedKv: 10, currentMa: 0.25, gapMm: 30 });
-    expect(d).toEqual({ powerW: 2.5, thrustPerPowerMnPerW: null, thrustToWeightPct: null, wattsPerGramForce: null, airDensityKgM3: null, ehdThrustBoundMn: expect.any(Number), momentumVelocityMps: null });
+    expect(d).toEqual({
+      powerW: 2.5,
+      thrustPerPowerMnPerW: null,
+      thrustToWeightPct: null,
+      wattsPerGramForce: null,
+      airDensityKgM3: null,
+      ehdThrustBoundMn: expect.any(Number),
+      momentumVelocityMps: null,
+    });
   });
 });
 

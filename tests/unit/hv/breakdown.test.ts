@@ -63,7 +63,9 @@ describe("Peek's law (Peek 1929; Kuffel & Zaengl p. 366)", () => {
   });
 
   it('rejects a collector no larger than the wire, and a surface factor above 1', () => {
-    expect(catchHvInputError(() => coronaOnset({ wireRadiusM: 1e-3, pressureCmHg: 76, temperatureC: 25, surfaceFactor: 1, outerRadiusM: 1e-3 })).field).toBe('outerRadiusM');
+    expect(catchHvInputError(() => coronaOnset({ wireRadiusM: 1e-3, pressureCmHg: 76, temperatureC: 25, surfaceFactor: 1, outerRadiusM: 1e-3 })).field).toBe(
+      'outerRadiusM',
+    );
     expect(catchHvInputError(() => coronaOnset({ wireRadiusM: 1e-3, pressureCmHg: 76, temperatureC: 25, surfaceFactor: 1.1 })).field).toBe('surfaceFactor');
     expect(catchHvInputError(() => coronaOnset({ wireRadiusM: 1e-3, pressureCmHg: 76, temperatureC: -300, surfaceFactor: 1 })).field).toBe('temperatureC');
   });

@@ -24,7 +24,9 @@ describe("fitCoronaCurrent: Townsend's I = C·V·(V − V₀) by least squares o
     expect(Math.abs(fit.onsetV - V0_TRUE)).toBeLessThan(3 * fit.onsetVStdErr);
     expect(Math.abs(fit.cAPerV2 - C_TRUE)).toBeLessThan(3 * fit.cAPerV2StdErr);
     expect(fit.rSquared).toBeGreaterThan(0.98);
-    console.log(`corona fit, 2 % noise: C = ${(fit.cAPerV2 * 1e9).toFixed(5)} ± ${(fit.cAPerV2StdErr * 1e9).toFixed(5)} mA/kV², V₀ = ${(fit.onsetV / 1e3).toFixed(3)} ± ${(fit.onsetVStdErr / 1e3).toFixed(3)} kV, R² = ${fit.rSquared.toFixed(4)}`);
+    console.log(
+      `corona fit, 2 % noise: C = ${(fit.cAPerV2 * 1e9).toFixed(5)} ± ${(fit.cAPerV2StdErr * 1e9).toFixed(5)} mA/kV², V₀ = ${(fit.onsetV / 1e3).toFixed(3)} ± ${(fit.onsetVStdErr / 1e3).toFixed(3)} kV, R² = ${fit.rSquared.toFixed(4)}`,
+    );
   });
 
   it("agrees with simple-statistics' linearRegression and rSquared on the same I/V-against-V data", () => {

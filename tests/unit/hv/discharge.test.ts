@@ -1,11 +1,4 @@
-import {
-  bleederPowerW,
-  dischargePlan,
-  residualAfterTimeConstantsV,
-  residualVoltageV,
-  timeConstantsToSafe,
-  timeToSafeVoltageS,
-} from '../../../shared/hv';
+import { bleederPowerW, dischargePlan, residualAfterTimeConstantsV, residualVoltageV, timeConstantsToSafe, timeToSafeVoltageS } from '../../../shared/hv';
 import { catchHvInputError, expectWithin } from './expect-within';
 
 // Worked example of domain §3.1: C = 1 µF, V0 = 10 kV, R = 100 MΩ.

@@ -1,4 +1,13 @@
-import { EHD, ehdThrustBoundN, ehdThrustPerPowerBoundNPerW, electricalPowerW, gramsForceToNewtons, momentumFluxVelocityMps, thrustPerPowerNPerW, wattsPerGramForce } from '../../../shared/hv';
+import {
+  EHD,
+  ehdThrustBoundN,
+  ehdThrustPerPowerBoundNPerW,
+  electricalPowerW,
+  gramsForceToNewtons,
+  momentumFluxVelocityMps,
+  thrustPerPowerNPerW,
+  wattsPerGramForce,
+} from '../../../shared/hv';
 import { catchHvInputError, expectWithin } from './expect-within';
 
 describe('one-dimensional EHD bound (Masuyama & Barrett, Proc. R. Soc. A 2013; T = I·d/μ)', () => {
@@ -16,7 +25,11 @@ describe('one-dimensional EHD bound (Masuyama & Barrett, Proc. R. Soc. A 2013; T
   });
 
   it('the two bounds agree: (I·d/μ) / (V·I) = d/(μ·V) (identity of the 1-D model, any input)', () => {
-    for (const [kv, ma, mm] of [[8, 0.05, 15], [12, 0.4, 30], [45, 1.2, 60]] as const) {
+    for (const [kv, ma, mm] of [
+      [8, 0.05, 15],
+      [12, 0.4, 30],
+      [45, 1.2, 60],
+    ] as const) {
       const thrust = ehdThrustBoundN({ currentA: ma * 1e-3, gapM: mm * 1e-3 });
       const power = electricalPowerW({ voltageV: kv * 1e3, currentA: ma * 1e-3 });
       expectWithin(thrust / power, ehdThrustPerPowerBoundNPerW({ voltageV: kv * 1e3, gapM: mm * 1e-3 }), 1e-9);

@@ -22,11 +22,16 @@ const resistance = fc.double({ min: 1, max: 1e12, noNaN: true });
 describe('energy', () => {
   it('scales with V²: E(C, kV) = k²·E(C, V)', () => {
     fc.assert(
-      fc.property(capacitance, fc.double({ min: 1e-3, max: 1e5, noNaN: true }), fc.double({ min: 1e-3, max: 1e3, noNaN: true }), (capacitanceF, voltageV, k) => {
-        const scaled = storedEnergyJ({ capacitanceF, voltageV: k * voltageV });
-        const expected = k * k * storedEnergyJ({ capacitanceF, voltageV });
-        expect(Math.abs(scaled - expected)).toBeLessThanOrEqual(expected * 1e-12);
-      }),
+      fc.property(
+        capacitance,
+        fc.double({ min: 1e-3, max: 1e5, noNaN: true }),
+        fc.double({ min: 1e-3, max: 1e3, noNaN: true }),
+        (capacitanceF, voltageV, k) => {
+          const scaled = storedEnergyJ({ capacitanceF, voltageV: k * voltageV });
+          const expected = k * k * storedEnergyJ({ capacitanceF, voltageV });
+          expect(Math.abs(scaled - expected)).toBeLessThanOrEqual(expected * 1e-12);
+        },
+      ),
     );
   });
 });
@@ -36,11 +41,18 @@ describe('discharge time', () => {
 
   it('never falls as the start voltage rises', () => {
     fc.assert(
-      fc.property(resistance, capacitance, safeV, fc.double({ min: 1.0001, max: 1e4, noNaN: true }), fc.double({ min: 1, max: 1e3, noNaN: true }), (resistanceOhm, capacitanceF, s, ratio, factor) => {
-        const low = timeToSafeVoltageS({ resistanceOhm, capacitanceF, safeV: s, initialV: s * ratio });
-        const high = timeToSafeVoltageS({ resistanceOhm, capacitanceF, safeV: s, initialV: s * ratio * factor });
-        expect(high).toBeGreaterThanOrEqual(low);
-      }),
+      fc.property(
+        resistance,
+        capacitance,
+        safeV,
+        fc.double({ min: 1.0001, max: 1e4, noNaN: true }),
+        fc.double({ min: 1, max: 1e3, noNaN: true }),
+        (resistanceOhm, capacitanceF, s, ratio, factor) => {
+          const low = timeToSafeVoltageS({ resistanceOhm, capacitanceF, safeV: s, initialV: s * ratio });
+          const high = timeToSafeVoltageS({ resistanceOhm, capacitanceF, safeV: s, initialV: s * ratio * factor });
+          expect(high).toBeGreaterThanOrEqual(low);
+        },
+      ),
     );
   });
 

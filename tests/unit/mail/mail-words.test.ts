@@ -2,7 +2,14 @@ import { loadConfig } from '../../../server/config';
 import { labTimeZone, mailDay, mailTime } from '../../../server/mail/lab-time';
 import { messages } from '../../../server/mail/messages';
 
-const booking = { id: 7, personName: 'Noor Haddad', itemTags: ['GST-0002', 'PSU-0001'], plannedKv: 30, endsAt: '2026-12-03T14:39:00.000Z', purpose: 'corona sweep' };
+const booking = {
+  id: 7,
+  personName: 'Noor Haddad',
+  itemTags: ['GST-0002', 'PSU-0001'],
+  plannedKv: 30,
+  endsAt: '2026-12-03T14:39:00.000Z',
+  purpose: 'corona sweep',
+};
 const ISO = /\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/;
 
 describe('e-mail times', () => {

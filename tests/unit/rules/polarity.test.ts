@@ -10,7 +10,15 @@ import type { LabRules, TestPlan } from '../../../shared/schemas/bookings';
 import type { Polarity } from '../../../shared/schemas/items';
 import { zonedTimeWords } from '../../../shared/zoned-time';
 
-const RULES: LabRules = { approvalKv: 15, energyThresholdJ: 0.35, ratingMarginPct: 10, interlockKv: 1.5, safeResidualV: 50, earlyPickupMin: 15, overdueGraceMin: 30 };
+const RULES: LabRules = {
+  approvalKv: 15,
+  energyThresholdJ: 0.35,
+  ratingMarginPct: 10,
+  interlockKv: 1.5,
+  safeResidualV: 50,
+  earlyPickupMin: 15,
+  overdueGraceMin: 30,
+};
 const item = (id: number, kind: AssessedItem['kind'], ratedKv: number, ratings: Record<string, unknown> = {}): AssessedItem => ({
   id,
   tag: `KH-${id}`,
@@ -28,7 +36,8 @@ const set = (supplyPolarity: Polarity) => [
   item(4, 'interlock', 100),
 ];
 const plan = (polarity: Polarity): TestPlan => ({ plannedKv: 10, polarity, maxCurrentMa: 1, peoplePresent: 2 });
-const assess = (supply: Polarity, planned: Polarity) => assessSetup({ items: set(supply), plan: plan(planned), rules: RULES, qualification: { authorisedKv: 100, expiresOn: '2027-12-31' }, today: '2026-12-03' });
+const assess = (supply: Polarity, planned: Polarity) =>
+  assessSetup({ items: set(supply), plan: plan(planned), rules: RULES, qualification: { authorisedKv: 100, expiresOn: '2027-12-31' }, today: '2026-12-03' });
 
 describe('polarityProblem (common practice, no source)', () => {
   it.each([
@@ -45,7 +54,12 @@ describe('polarityProblem (common practice, no source)', () => {
   });
 
   it('a reversible plan is met by a positive and a negative source together', () => {
-    expect(polarityProblem('reversible', [{ tag: 'SUP-1', polarity: 'positive' }, { tag: 'SUP-2', polarity: 'negative' }])).toBeNull();
+    expect(
+      polarityProblem('reversible', [
+        { tag: 'SUP-1', polarity: 'positive' },
+        { tag: 'SUP-2', polarity: 'negative' },
+      ]),
+    ).toBeNull();
   });
 
   it('a set with no rated source (a probe and a stick only) has nothing to check', () => {

@@ -7,13 +7,35 @@ import { bookingWindowErrors, BOOKING_WINDOW } from '../../../shared/rules/booki
 import { checklistCoverage } from '../../../shared/rules/checklist-coverage';
 import { rulesForPerson, strictestRules } from '../../../shared/rules/lab-rules';
 import { releaseFailures, returnFailures, type ReleaseContext } from '../../../shared/rules/release';
-import { bookingCreateSchema, labRulesSchema, testPlanSchema, type ChecklistAnswerRecord, type ChecklistEntry, type LabRules, type TestPlan } from '../../../shared/schemas/bookings';
+import {
+  bookingCreateSchema,
+  labRulesSchema,
+  testPlanSchema,
+  type ChecklistAnswerRecord,
+  type ChecklistEntry,
+  type LabRules,
+  type TestPlan,
+} from '../../../shared/schemas/bookings';
 
-const RULES: LabRules = { approvalKv: 15, energyThresholdJ: 0.35, ratingMarginPct: 10, interlockKv: 1.5, safeResidualV: 50, earlyPickupMin: 15, overdueGraceMin: 30 };
+const RULES: LabRules = {
+  approvalKv: 15,
+  energyThresholdJ: 0.35,
+  ratingMarginPct: 10,
+  interlockKv: 1.5,
+  safeResidualV: 50,
+  earlyPickupMin: 15,
+  overdueGraceMin: 30,
+};
 const TODAY = '2026-12-03';
 const qualified = { authorisedKv: 100, expiresOn: '2027-12-31' };
 
-function item(id: number, kind: AssessedItem['kind'], ratedKv: number | null, ratings: Record<string, unknown> = {}, extra: Partial<AssessedItem> = {}): AssessedItem {
+function item(
+  id: number,
+  kind: AssessedItem['kind'],
+  ratedKv: number | null,
+  ratings: Record<string, unknown> = {},
+  extra: Partial<AssessedItem> = {},
+): AssessedItem {
   return { id, tag: `KH-${id}`, name: `Item ${id}`, kind, ratedKv, ratings, status: 'in-service', inspectionState: 'current', ...extra };
 }
 
@@ -35,18 +57,45 @@ const PRE: ChecklistEntry[] = [
   { id: 12, kind: 'reading', text: 'Bleeder resistance', unit: 'MΩ', min: 10, max: 2000, required: true },
 ];
 const answered = (entries: ChecklistEntry[], values: Record<number, number> = {}): ChecklistAnswerRecord[] =>
-  entries.map((e) => ({ id: e.id, kind: e.kind, text: e.text, unit: e.unit, min: e.min, max: e.max, required: e.required, confirmed: e.kind === 'confirm' ? true : undefined, value: e.kind === 'reading' ? (values[e.id] ?? 100) : undefined, withinLimits: true }));
+  entries.map((e) => ({
+    id: e.id,
+    kind: e.kind,
+    text: e.text,
+    unit: e.unit,
+    min: e.min,
+    max: e.max,
+    required: e.required,
+    confirmed: e.kind === 'confirm' ? true : undefined,
+    value: e.kind === 'reading' ? (values[e.id] ?? 100) : undefined,
+    withinLimits: true,
+  }));
 
-function basisFor(items: AssessedItem[], plan = PLAN, details: Partial<{ location: string; purpose: string; startsAt: string; endsAt: string }> = {}): ApprovalBasis {
+function basisFor(
+  items: AssessedItem[],
+  plan = PLAN,
+  details: Partial<{ location: string; purpose: string; startsAt: string; endsAt: string }> = {},
+): ApprovalBasis {
   const assessment = assessSetup({ items, plan, rules: RULES, qualification: qualified, today: TODAY });
-  return approvalBasisOf({ plan, startsAt: start.toISOString(), endsAt: end.toISOString(), location: 'Bay 1', purpose: 'Corona sweep', ...details }, items, assessment);
+  return approvalBasisOf(
+    { plan, startsAt: start.toISOString(), endsAt: end.toISOString(), location: 'Bay 1', purpose: 'Corona sweep', ...details },
+    items,
+    assessment,
+  );
 }
 
 /** A context in which every rule holds; each case changes one thing. */
-function context(overrides: Partial<ReleaseContext> & { items?: AssessedItem[]; plan?: TestPlan; rules?: LabRules; qualification?: typeof qualified | null } = {}): ReleaseContext {
+function context(
+  overrides: Partial<ReleaseContext> & { items?: AssessedItem[]; plan?: TestPlan; rules?: LabRules; qualification?: typeof qualified | null } = {},
+): ReleaseContext {
   const items = overrides.items ?? kit();
   const plan = overrides.plan ?? PLAN;
-  const assessment = assessSetup({ items, plan, rules: overrides.rules ?? RULES, qualification: overrides.qualification === undefined ? qualified : overrides.qualification, today: TODAY });
+  const assessment = assessSetup({
+    items,
+    plan,
+    rules: overrides.rules ?? RULES,
+    qualification: overrides.qualification === undefined ? qualified : overrides.qualification,
+    today: TODAY,
+  });
   const basis = basisFor(items, plan);
   return {
     status: 'requested',
@@ -139,9 +188,13 @@ describe('releaseFailures', () => {
   it('rule "interlock" only above the lab interlock voltage (1.5 kV): at 1.5 kV none is needed', () => {
     const [supply, stick, stand] = kit();
     const plan = { ...PLAN, plannedKv: 1.5 };
-    expect(rulesOf(context({ items: [supply!, stick!, stand!], plan, scannedItemIds: [1, 2, 3], basis: basisFor([supply!, stick!, stand!], plan) }))).toEqual([]);
+    expect(rulesOf(context({ items: [supply!, stick!, stand!], plan, scannedItemIds: [1, 2, 3], basis: basisFor([supply!, stick!, stand!], plan) }))).toEqual(
+      [],
+    );
     const above = { ...PLAN, plannedKv: 1.51 };
-    expect(rulesOf(context({ items: [supply!, stick!, stand!], plan: above, scannedItemIds: [1, 2, 3], basis: basisFor([supply!, stick!, stand!], above) }))).toEqual(['interlock']);
+    expect(
+      rulesOf(context({ items: [supply!, stick!, stand!], plan: above, scannedItemIds: [1, 2, 3], basis: basisFor([supply!, stick!, stand!], above) })),
+    ).toEqual(['interlock']);
   });
 
   describe('rule "checklist"', () => {
@@ -222,13 +275,9 @@ describe('releaseFailures', () => {
     });
     it('several failures at once are all named', () => {
       const basis = basisFor(highItems, high);
-      expect(rulesOf(context({ plan: high, basis, status: 'awaiting-approval', bookerActive: false, scannedItemIds: [], checklist: null, qualification: null }))).toEqual([
-        'booker',
-        'approval',
-        'scanned',
-        'checklist',
-        'qualification',
-      ]);
+      expect(
+        rulesOf(context({ plan: high, basis, status: 'awaiting-approval', bookerActive: false, scannedItemIds: [], checklist: null, qualification: null })),
+      ).toEqual(['booker', 'approval', 'scanned', 'checklist', 'qualification']);
     });
   });
 });
@@ -254,10 +303,19 @@ describe('basisChanges', () => {
 describe('returnFailures', () => {
   const RETURN: ChecklistEntry[] = [{ id: 21, kind: 'reading', text: 'Residual voltage', unit: 'V', max: 50, required: true }];
   it('needs a released booking and a make-safe run inside the limits', () => {
-    expect(returnFailures({ status: 'released', planVersion: 1, checklistEntries: RETURN, checklist: { planVersion: 1, answers: answered(RETURN, { 21: 50 }) } })).toEqual([]);
+    expect(
+      returnFailures({ status: 'released', planVersion: 1, checklistEntries: RETURN, checklist: { planVersion: 1, answers: answered(RETURN, { 21: 50 }) } }),
+    ).toEqual([]);
     expect(returnFailures({ status: 'approved', planVersion: 1, checklistEntries: RETURN, checklist: null }).map((f) => f.rule)).toEqual(['status']);
-    expect(returnFailures({ status: 'released', planVersion: 1, checklistEntries: RETURN, checklist: null }).map((f) => f.rule)).toEqual(['make-safe-checklist']);
-    const high = returnFailures({ status: 'released', planVersion: 1, checklistEntries: RETURN, checklist: { planVersion: 1, answers: answered(RETURN, { 21: 50.1 }) } });
+    expect(returnFailures({ status: 'released', planVersion: 1, checklistEntries: RETURN, checklist: null }).map((f) => f.rule)).toEqual([
+      'make-safe-checklist',
+    ]);
+    const high = returnFailures({
+      status: 'released',
+      planVersion: 1,
+      checklistEntries: RETURN,
+      checklist: { planVersion: 1, answers: answered(RETURN, { 21: 50.1 }) },
+    });
     expect(high.map((f) => f.rule)).toEqual(['make-safe-checklist']);
     expect(high[0]!.message).toContain('50.1 V');
   });

@@ -13,7 +13,24 @@ const item = (fields: Partial<Record<'tag' | 'name' | 'make' | 'model' | 'serial
 describe('wordsOf', () => {
   it('splits on anything but letters and digits, lower-cased', () => {
     expect(wordsOf('PRB-0007 HV probe 1000:1, 40 kV Orrin Works HP-40 SN/40-7 Bay 2 (cage)')).toEqual([
-      'prb', '0007', 'hv', 'probe', '1000', '1', '40', 'kv', 'orrin', 'works', 'hp', '40', 'sn', '40', '7', 'bay', '2', 'cage',
+      'prb',
+      '0007',
+      'hv',
+      'probe',
+      '1000',
+      '1',
+      '40',
+      'kv',
+      'orrin',
+      'works',
+      'hp',
+      '40',
+      'sn',
+      '40',
+      '7',
+      'bay',
+      '2',
+      'cage',
     ]);
   });
 

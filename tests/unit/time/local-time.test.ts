@@ -17,7 +17,8 @@ describe('resolveLocalText in Europe/Berlin', () => {
   it('finds exactly one instant for an ordinary time', () => {
     const r = resolveLocalText('2026-07-01 14:15', zone);
     expect(r.kind).toBe('exact');
-    if (r.kind === 'exact') expect({ at: iso(r.candidate.instant), offset: r.candidate.offsetMinutes }).toEqual({ at: '2026-07-01T12:15:00.000Z', offset: 120 });
+    if (r.kind === 'exact')
+      expect({ at: iso(r.candidate.instant), offset: r.candidate.offsetMinutes }).toEqual({ at: '2026-07-01T12:15:00.000Z', offset: 120 });
   });
 
   it('refuses 02:30 on 29 March 2026: clocks jump from 02:00 to 03:00', () => {
@@ -68,7 +69,9 @@ describe('zones without changes and bad input', () => {
   });
 
   it('accepts a T between date and time, as ISO 8601 writes it', () => {
-    expect(resolveWallTime({ year: 2026, month: 12, day: 3, hour: 14, minute: 15 }, 'Europe/Berlin')).toEqual(resolveLocalText('2026-12-03T14:15', 'Europe/Berlin'));
+    expect(resolveWallTime({ year: 2026, month: 12, day: 3, hour: 14, minute: 15 }, 'Europe/Berlin')).toEqual(
+      resolveLocalText('2026-12-03T14:15', 'Europe/Berlin'),
+    );
   });
 });
 
