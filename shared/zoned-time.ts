@@ -29,3 +29,10 @@ export function zonedTimeWords(instant: string | Date, timeZone: string): string
   const { day, clock } = formatsIn(zone);
   return `${clock.format(date)} on ${day.format(date).replace(',', '')} (${zone} time)`;
 }
+
+/** "Thu 3 Dec 2026": a calendar date (YYYY-MM-DD, no clock) in the same words. */
+export function calendarDayWords(isoDate: string): string {
+  const date = new Date(`${isoDate}T00:00:00Z`);
+  if (Number.isNaN(date.getTime())) return isoDate;
+  return formatsIn('UTC').day.format(date).replace(',', '');
+}
