@@ -13,7 +13,7 @@ import { Screen } from '@/components/ui/screen';
 import { useBreakpoints } from '@/hooks/use-breakpoints';
 import { useCurrentUser } from '@/hooks/use-session';
 
-import { LazyTodayIncidents } from '@/components/incidents/lazy-today-incidents';
+import { TodayIncidents } from '@/components/incidents/today-incidents';
 
 import { DeskOverview } from './desk-overview';
 import { ApprovalsWaiting, MyGearOut, MyNextBookings } from './today-lists';
@@ -44,7 +44,7 @@ export function TodayScreen() {
       {user ? (
         <>
           <DeskOverview role={user.role} />
-          <LazyTodayIncidents role={user.role} />
+          <TodayIncidents role={user.role} />
           {user.role === 'officer' ? <ApprovalsWaiting officerId={user.id} /> : null}
           <MyGearOut />
           <MyNextBookings />

@@ -30,8 +30,8 @@ it('a member reports damage from an item page in a few taps; the item is tagged 
     await shown(page, 'report-problem').click();
     await shown(page, 'report-incident-screen').waitFor({ timeout: 20_000 });
     await expectAccessible(page, 'report-incident');
-    // The item from the page is already named.
-    await page.getByText(item.tag).first().waitFor({ timeout: 15_000 });
+    // The item from the page is already named (on the report itself: the item page stays mounted, hidden, below it).
+    await shown(page, 'report-incident-screen').getByText(item.tag).filter({ visible: true }).first().waitFor({ timeout: 15_000 });
 
     // Nothing chosen yet: the shared schema asks for the kind and the severity.
     await shown(page, 'incident-submit').click();

@@ -48,10 +48,13 @@ export async function renameItem(db: Db, id: number, name: string): Promise<void
   );
 }
 
-/** A complete 30 kV kit: supply with bleeder, grounding stick, stand, interlock and probe. */
-export async function insertKit(db: Db) {
+/**
+ * A complete 30 kV kit: supply with bleeder, grounding stick, stand, interlock and probe. The
+ * supply is negative-only unless told otherwise (the release gate checks it can give the plan's polarity).
+ */
+export async function insertKit(db: Db, options: { supplyPolarity?: 'positive' | 'negative' | 'reversible' } = {}) {
   const supply = await insertItem(db, 'hv-supply', {
-    ratings: { maxKv: 30, maxMa: 2, polarity: 'negative', outputCapacitanceNf: 5, bleederMohm: 300, hasInterlockInput: true },
+    ratings: { maxKv: 30, maxMa: 2, polarity: options.supplyPolarity ?? 'negative', outputCapacitanceNf: 5, bleederMohm: 300, hasInterlockInput: true },
   });
   const stick = await insertItem(db, 'grounding-stick', { ratings: { ratedKv: 100, hookResistanceMohm: 10, cableLengthM: 3 } });
   const stand = await insertItem(db, 'isolation-stand', { ratings: { withstandKv: 100 } });

@@ -256,6 +256,28 @@ export class World {
     return (await this.post(this.actor(who), '/api/bookings', await this.bookingBody(plannedKv))).booking;
   }
 
+  /** An incident reported by `who` (the owner when signed out): a near miss, nothing tagged out. */
+  async incident(who: Caller): Promise<number> {
+    const actor = this.actor(who);
+    const res = await actor.agent.post('/api/incidents').set('x-csrf-token', actor.csrf()).send(SECURITY_INCIDENT);
+    if (res.status !== 201) throw new Error(`fixture step POST /api/incidents failed: ${res.status} ${JSON.stringify(res.body)}`);
+    return res.body.incident.id as number;
+  }
+
+  /** A corrective action owned by `who` (the owner when signed out), on an incident an officer closed. */
+  async incidentAction(who: Caller): Promise<number> {
+    const actor = this.actor(who);
+    const id = await this.incident(actor);
+    const review = {
+      status: 'closed',
+      cause: 'Security suite cause',
+      correctiveActions: [{ action: 'Security suite action', ownerId: actor.person!.id, dueOn: addDaysIso(todayIso(), 7) }],
+    };
+    const res = await this.staff.agent.patch(`/api/incidents/${id}`).set('x-csrf-token', this.staff.csrf()).send(review);
+    if (res.status !== 200) throw new Error(`fixture step PATCH /api/incidents/${id} failed: ${res.status} ${JSON.stringify(res.body)}`);
+    return res.body.incident.correctiveActions[0].id as number;
+  }
+
   /** Every item scanned and the pre-energize checklist done: release will pass. */
   async readyBooking(who: Caller): Promise<BookingView> {
     const actor = this.actor(who);
@@ -345,6 +367,16 @@ const INERT_TEMPLATE_COLUMNS = { phase: 'pre', kind: 'confirm', required: false,
 
 /** A plausible bench run for the kit's 10 kV plan (tests/api/bench-runs). */
 const BENCH_RUN = { appliedKv: 8, currentMa: 0.1, gapMm: 30 };
+/** A near miss with no gear named, so a fixture's report tags nothing out. */
+const SECURITY_INCIDENT = {
+  kind: 'near-miss',
+  severity: 'low',
+  occurredAt: new Date(Date.now() - 3600_000).toISOString(),
+  location: 'Bay 3',
+  description: 'Security suite near miss',
+  itemIds: [],
+  tagOut: false,
+};
 const MANAGER: readonly Role[] = ['manager'];
 const OFFICER: readonly Role[] = ['officer'];
 const STAFF: readonly Role[] = ['officer', 'manager'];
@@ -583,4 +615,30 @@ export const ROUTES: Record<string, RouteFixture> = {
   'GET /api/reports/usage.csv': { access: MANAGER, build: async () => ({ query: period(), status: 200 }) },
   'GET /api/reports/overdue.csv': { access: MANAGER, build: ok() },
   'GET /api/reports/inspections.csv': { access: MANAGER, build: ok() },
+
+  'GET /api/incidents': { access: 'signed-in', build: async () => ({ query: { status: 'open' }, status: 200 }) },
+  'POST /api/incidents': { access: 'signed-in', build: async () => ({ body: SECURITY_INCIDENT, status: 201 }) },
+  'GET /api/incidents/actions/past-due': { access: 'signed-in', build: ok() },
+  'PATCH /api/incidents/actions/:id': {
+    access: 'signed-in',
+    build: async (world, caller) => ({ params: { id: await world.incidentAction(caller) }, body: { done: true }, status: 200 }),
+  },
+  'GET /api/incidents/:id': { access: 'signed-in', build: async (world, caller) => ({ params: { id: await world.incident(caller) }, status: 200 }) },
+  'PATCH /api/incidents/:id': {
+    access: OFFICER,
+    build: async (world, caller) => ({ params: { id: await world.incident(caller) }, body: { status: 'under-review' }, status: 200 }),
+  },
+  'POST /api/incidents/:id/photos': {
+    access: 'signed-in',
+    build: async (world, caller) => ({ params: { id: await world.incident(caller) }, upload: { fileName: 'near-miss.png', bytes: pngBytes() }, status: 201 }),
+  },
+
+  'GET /api/calendar-feed': { access: 'signed-in', build: ok() },
+  'POST /api/calendar-feed': { access: 'signed-in', build: async () => ({ body: {}, status: 200 }) },
+  'DELETE /api/calendar-feed': { access: 'signed-in', build: ok(204) },
+
+  'GET /api/reports/charts': { access: MANAGER, build: async () => ({ query: period(), status: 200 }) },
+  'GET /api/reports/charts/:name.csv': { access: MANAGER, build: async () => ({ params: { name: 'overdue-returns' }, query: period(), status: 200 }) },
+  'GET /api/reports/safety-summary': { access: MANAGER, build: async () => ({ query: { month: todayIso().slice(0, 7) }, status: 200 }) },
+  'GET /api/reports/safety-summary.pdf': { access: MANAGER, build: async () => ({ query: { month: todayIso().slice(0, 7) }, status: 200 }) },
 };

@@ -8,7 +8,8 @@ type Who = Awaited<ReturnType<typeof signedInAs>>;
 
 export async function releasedBooking(ctx: TestContext, who: Who, extra: Partial<{ polarity: string; plannedKv: number; maxCurrentMa: number }> = {}) {
   await qualify(ctx.db, who.person.id, 40);
-  const kit = await insertKit(ctx.db);
+  // A reversible supply: the suites sweep positive, negative and reversible plans on one kit.
+  const kit = await insertKit(ctx.db, { supplyPolarity: 'reversible' });
   const res = await post(who, '/api/bookings', {
     itemIds: kit.all.map((i) => i.id),
     ...windowFromNow(),

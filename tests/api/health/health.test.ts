@@ -17,7 +17,7 @@ describe('GET /api/health', () => {
     const ctx = createTestContext();
     try {
       const res = await request(ctx.app).get('/api/health').expect(200);
-      expect(res.body).toEqual({ ok: true, db: 'up' });
+      expect(res.body).toEqual({ ok: true, db: 'up', retries: { retries: expect.any(Number), exhausted: expect.any(Number), outages: expect.any(Number) } });
     } finally {
       await ctx.close();
     }

@@ -850,9 +850,9 @@ describe('hostile input (fast-check)', () => {
   }, 600_000);
 
   it(`multipart uploads on every upload route (${RUNS.upload} runs)`, async () => {
-    // The write routes whose valid request is an upload (item files, booking photos).
+    // The write routes whose valid request is an upload (item files, booking and incident photos).
     const uploadRoutes = WRITE_ROUTES.filter((k) => lanes[0]!.baseline(k).req.upload !== undefined);
-    expect(uploadRoutes).toEqual(['POST /api/bookings/:id/photos', 'POST /api/items/:id/files']);
+    expect(uploadRoutes).toEqual(['POST /api/bookings/:id/photos', 'POST /api/incidents/:id/photos', 'POST /api/items/:id/files']);
     const PDF = Buffer.from('%PDF-1.4\n1 0 obj<</Type/Catalog>>endobj\ntrailer<</Root 1 0 R>>\n%%EOF\n');
     const contents = fc.constantFrom<[string, Buffer]>(
       ['png', pngBytes()],
